@@ -1,0 +1,127 @@
+#pragma once
+// The worksheet as the user wrote it: every quantity keeps the text the user
+// typed (so writing is stable) beside its SI value. See
+// shared design project-format.md, version 1.
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "heatchain/property_model.hpp"
+#include "heatchain/substance.hpp"
+#include "heatchain/units.hpp"
+
+namespace heatchain {
+
+using Json = nlohmann::ordered_json;
+
+// A quantity as typed ("6 barg") and its SI value.
+struct Quantity {
+    std::string text;
+    double si = 0;
+};
+
+// A dimensionless number as typed: kept as the JSON number value.
+struct Number {
+    Json raw;  // the number as it was in the file (written back unchanged)
+    double value = 0;
+};
+
+enum class SystemKind { Closed, SteadyFlow };
+std::string_view systemId(SystemKind s);  // "closed", "steady-flow"
+
+enum class StepKind {
+    Heat, Cool, Melt, Freeze, Boil, Condense, Sublimate, Deposit,
+    Compress, Expand, Throttle,
+};
+std::string_view stepKindId(StepKind k);  // "heat", "cool", ...
+Result<StepKind> parseStepKind(std::string_view id);
+bool isPhaseChangeKind(StepKind k);       // melt … deposit
+bool isPressureChangeKind(StepKind k);    // compress, expand, throttle
+
+enum class PathKind { Isothermal, Isentropic, Polytropic, Adiabatic };
+std::string_view pathId(PathKind p);
+
+enum class HeatingAt { ConstantPressure, ConstantVolume };
+
+// A heat source or sink: a temperature, or (issue 7) a named utility.
+struct Reservoir {
+    std::optional<Quantity> T;
+    std::optional<std::string> utility;
+    Json extra = Json::object();  // unknown fields, kept
+};
+
+struct StepTarget {
+    std::optional<Quantity> T;
+    std::optional<Quantity> P;
+    std::optional<Quantity> duty;     // heat per kg·… as typed: energy (closed) or power (flow)
+    std::optional<Number> quality;
+    std::optional<Number> ratio;      // pressure ratio, > 1 (expand divides by it)
+    Json extra = Json::object();
+};
+
+struct Step {
+    std::string id;
+    StepKind kind = StepKind::Heat;
+    StepTarget to;
+    bool hasTo = false;
+    std::optional<HeatingAt> at;          // heat / cool
+    std::optional<Number> fraction;       // phase-change kinds
+    std::optional<PathKind> path;         // compress / expand
+    std::optional<Number> n;              // polytropic exponent
+    std::optional<Number> efficiency;     // isentropic efficiency, (0, 1]
+    std::optional<Reservoir> source;
+    std::optional<Reservoir> sink;
+    std::optional<std::string> note;
+    Json extra = Json::object();          // unknown fields, kept and written back
+};
+
+struct StartSpec {
+    std::optional<Quantity> T;
+    std::optional<Quantity> P;
+    std::optional<Number> quality;
+    std::optional<Number> meltFraction;
+    Json extra = Json::object();
+};
+
+struct Basis {
+    enum class Kind { Mass, Amount, MassFlow, MolarFlow } kind = Kind::Mass;
+    Quantity amount;  // SI: kg, mol, kg/s or mol/s
+};
+
+struct Meta {
+    std::string title, author, revision, created, modified, notes;
+    Json extra = Json::object();
+};
+
+struct Project {
+    int version = 1;
+    Meta meta;
+    UnitSystem displayUnits = UnitSystem::SI;
+    Json displayExtra = Json::object();
+    SystemKind system = SystemKind::SteadyFlow;
+    ModelKind model = ModelKind::Reference;
+    // Either a library id or a custom substance definition.
+    std::string substanceId;
+    std::optional<Json> customSubstanceJson;  // the object as written, when custom
+    Substance substance;                      // resolved definition
+    Basis basis;
+    Quantity atmosphere{"101.325 kPa", 101325.0};
+    bool hasAtmosphere = false;               // written back only if it was in the file
+    Quantity surroundingsT{"25 degC", 298.15};
+    Quantity surroundingsP{"1 atm", 101325.0};
+    bool hasSurroundings = false;
+    Json surroundingsExtra = Json::object();
+    StartSpec start;
+    std::vector<Step> steps;
+    Json extra = Json::object();              // unknown top-level fields (e.g. "utilities" until issue 7)
+
+    UnitContext unitContext() const { return UnitContext{atmosphere.si}; }
+    // kg or kg/s the extensive results are multiplied by.
+    double massBasis() const;
+    const Step* findStep(std::string_view id) const;
+};
+
+}  // namespace heatchain

@@ -1,0 +1,30 @@
+#pragma once
+// Reading and writing *.hchain project files (format version 1).
+#include <filesystem>
+#include <string>
+#include <string_view>
+
+#include "heatchain/project.hpp"
+#include "heatchain/result.hpp"
+
+namespace heatchain {
+
+inline constexpr int kProjectFormatVersion = 1;
+
+// Parses and validates project text. Errors carry the JSON path or step id
+// and the line:column of the offending value. `fileName` only labels errors.
+Result<Project> parseProject(std::string_view text, std::string_view fileName = {});
+Result<Project> loadProject(const std::filesystem::path& file);
+
+// Writes the project: fixed key order, 2-space indent, quantities as typed,
+// unknown fields kept. Same project, same bytes.
+std::string writeProject(const Project& project);
+
+// Atomic save: writes a temporary file in the same folder, flushes, keeps the
+// previous version as "<name>.bak", then renames over the target. On any
+// failure the original file is left untouched.
+Status saveProject(const Project& project, const std::filesystem::path& file);
+Status writeFileAtomically(const std::filesystem::path& file, std::string_view bytes,
+                           bool keepBackup = true);
+
+}  // namespace heatchain
