@@ -542,7 +542,12 @@ SequenceResult solve(const Project& project, const SolveOptions& options) {
         SequenceResult r;
         r.system = project.system;
         r.startError = makeError(model.error().message, "model");
-        for (const auto& s : project.steps) r.steps.push_back(StepResult{s.id, s.kind});
+        for (const auto& s : project.steps) {
+            StepResult sr;
+            sr.id = s.id;
+            sr.kind = s.kind;
+            r.steps.push_back(std::move(sr));
+        }
         return r;
     }
     return solve(project, *model, options);
@@ -642,10 +647,6 @@ SequenceResult solve(const Project& project, std::shared_ptr<const PropertyModel
         t.exergyDestroyed += sr.exergyDestroyed;
         if (sr.Q > 0) t.heatingDuty += sr.Q; else t.coolingDuty -= sr.Q;
     }
-    for (auto& sr : r.steps)
-        if (!sr.computed && !sr.error) {
-            // Steps after a failed one have no start state.
-        }
     if (r.start.warnings) r.warnings.push_back("start state: " + describeWarnings(r.start.warnings));
     return r;
 }
