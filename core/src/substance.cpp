@@ -523,8 +523,9 @@ Result<Substance> parseImpl(const Json& j, std::string_view where, const UnitCon
     }
 
     // Cross-checks between blocks that a typing slip would break.
-    if (s.melting && s.boiling && !(s.melting->T < s.boiling->T))
-        return makeError("the melting temperature must lie below the boiling temperature", join(where, "boiling.T"));
+    // Equal is allowed: a boiling anchor may be the triple point (carbon dioxide).
+    if (s.melting && s.boiling && !(s.melting->T <= s.boiling->T))
+        return makeError("the melting temperature must not lie above the boiling temperature", join(where, "boiling.T"));
     if (s.critical && s.boiling && !(s.boiling->T < s.critical->T))
         return makeError("the boiling temperature must lie below the critical temperature", join(where, "boiling.T"));
     return s;

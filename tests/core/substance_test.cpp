@@ -145,6 +145,16 @@ TEST(Substance, WatsonConvertsALatentHeatGivenElsewhere) {
     EXPECT_NEAR(s->boiling->enthalpy, 300e3 * std::pow((650 - 623.15) / (650 - 500.0), 0.38), 1e-6);
 }
 
+TEST(Substance, BoilingAnchorMayBeTheTriplePoint) {
+    // Carbon dioxide has no liquid at 1 atm; its vaporisation anchor is the
+    // triple point, where melting and boiling share one temperature.
+    auto j = Json::parse(kTestWax);
+    j["boiling"] = Json::parse(R"js({ "T": "58 degC", "P": "5 kPa", "enthalpy": "300 kJ/kg" })js");
+    auto s = parseSubstance(j, "substance");
+    ASSERT_TRUE(s.ok()) << s.error().text();
+    EXPECT_EQ(s->boiling->T, s->melting->T);
+}
+
 struct BadCase {
     const char* pointer;  // JSON pointer to change
     const char* value;    // new JSON value ("<remove>" to delete)
