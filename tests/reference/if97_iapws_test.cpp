@@ -4,6 +4,7 @@
 // MPa and K.
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
 #include <sstream>
 #include <string>
@@ -42,9 +43,14 @@ out = []
 def emit(kind, a, b, st):
     x = st.x if 0 < st.x < 1 else -1
     out.append("%s %.17g %.17g %.17g %.17g %.17g %.17g %.17g %.17g" % (kind, a, b, st.T, st.P*1e6, st.h*1e3, st.s*1e3, st.v, x))
+def make(**kw):
+    try:
+        return IAPWS97(**kw)
+    except Exception:
+        return None
 def tp(T, P):
-    st = IAPWS97(T=T, P=P/1e6)
-    if st.status: emit("TP", T, P, st)
+    st = make(T=T, P=P/1e6)
+    if st is not None and st.status: emit("TP", T, P, st)
     return st
 n = 0
 while n < 2400:
@@ -70,7 +76,7 @@ while n < 2400:
         T = None
     if T is not None:
         st = tp(T, P)
-        if not st.status: continue
+        if st is None or not st.status: continue
         n += 1
         # the same state through (P,h) and (P,s)
         out.append("PH %.17g %.17g %.17g %.17g %.17g %.17g %.17g -1" % (P, st.h*1e3, st.T, P, st.h*1e3, st.s*1e3, st.v))
@@ -79,13 +85,13 @@ while n < 2400:
         continue
     if r < 0.83:    # saturation by temperature
         T = random.uniform(273.16, 640.0); x = random.uniform(0, 1)
-        st = IAPWS97(T=T, x=x)
-        if st.status:
+        st = make(T=T, x=x)
+        if st is not None and st.status:
             emit("TX", T, x, st); n += 1
     else:           # saturation by pressure
         P = math.exp(random.uniform(math.log(700.0), math.log(20e6))); x = random.uniform(0, 1)
-        st = IAPWS97(P=P/1e6, x=x)
-        if st.status:
+        st = make(P=P/1e6, x=x)
+        if st is not None and st.status:
             emit("PX", P, x, st); n += 1
 for line in out: print(line)
 )PY";
@@ -105,7 +111,7 @@ double rel(double a, double b) { return std::fabs(a - b) / std::max(std::fabs(b)
 }  // namespace
 
 TEST(If97AgainstIapws, RandomStatesAllRegionsAndInputPairs) {
-    const std::string out = testing::runPython(kScript);
+    const std::string out = heatchain::testing::runPython(kScript);
     std::istringstream in(out);
     std::vector<Row> rows;
     for (std::string line; std::getline(in, line);) {
@@ -117,6 +123,7 @@ TEST(If97AgainstIapws, RandomStatesAllRegionsAndInputPairs) {
     auto m = water();
     double worst[3] = {0, 0, 0};
     std::string worstAt[3];
+    double worst3 = 0;
     int count = 0;
     for (const auto& r : rows) {
         Result<State> s = makeError("unset");
@@ -132,6 +139,27 @@ TEST(If97AgainstIapws, RandomStatesAllRegionsAndInputPairs) {
         const double ds = std::fabs(s->s - r.s) / std::max(std::fabs(r.s), 1.0);
         const double dv = rel(s->v, r.v);
         const double d[3] = {dh, ds, dv};
+        const bool region3Saturation = (r.kind == "TX" || r.kind == "PX") && s->T > if97::T13;
+        if (region3Saturation) {
+            // Saturation inside region 3 (above 623.15 K): IF97 defines the
+            // saturated densities as the roots of eq. 28 at p = ps(T). Ours
+            // meet that to 1e-9; python3-iapws's do not (run live, its
+            // saturated liquid at 624.1 K gives p3(rho, T) 2.4e-6 above
+            // ps(T), as from a backward v(p,T) estimate), so here the
+            // comparison is looser and the forward equation is checked instead.
+            for (double f : {0.0, 1.0}) {
+                auto end = r.kind == "TX" ? m->stateOnLineT(Transition::Boiling, r.a, f)
+                                          : m->stateOnLineP(Transition::Boiling, r.a, f);
+                ASSERT_TRUE(end.ok());
+                const auto fwd = if97::region3(1.0 / end->v, end->T);
+                EXPECT_NEAR(fwd.P, if97::saturationPressure(end->T), 1e-9 * fwd.P);
+            }
+            worst3 = std::max({worst3, dh, ds, dv});
+            EXPECT_LT(dh, 1e-4) << r.kind << " " << r.a << " " << r.b;
+            EXPECT_LT(ds, 1e-4) << r.kind << " " << r.a << " " << r.b;
+            EXPECT_LT(dv, 1e-4) << r.kind << " " << r.a << " " << r.b;
+            continue;
+        }
         for (int k = 0; k < 3; ++k) {
             if (d[k] > worst[k]) {
                 worst[k] = d[k];
@@ -145,10 +173,11 @@ TEST(If97AgainstIapws, RandomStatesAllRegionsAndInputPairs) {
     }
     std::printf("compared %d states; largest relative deviation h %.3g (%s), s %.3g (%s), v %.3g (%s)\n", count,
                 worst[0], worstAt[0].c_str(), worst[1], worstAt[1].c_str(), worst[2], worstAt[2].c_str());
+    std::printf("saturation inside region 3: largest relative deviation %.3g\n", worst3);
 }
 
 TEST(IceAgainstIapws, RandomStates) {
-    const std::string out = testing::runPython(kIceScript);
+    const std::string out = heatchain::testing::runPython(kIceScript);
     std::istringstream in(out);
     auto m = water();
     int n = 0;
