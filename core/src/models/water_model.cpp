@@ -363,7 +363,12 @@ struct SpanList {
 Result<State> solveSpan(const Span& sp, Property which, double value, double fa, double fb) {
     double lo = sp.a, hi = sp.b;
     double T = sp.seed ? sp.seed(value) : lo + (hi - lo) * (value - fa) / (fb - fa);
-    if (!(T > lo && T < hi)) T = lo + (hi - lo) * std::clamp((value - fa) / (fb - fa), 0.0, 1.0);
+    if (!(T > lo && T < hi)) {
+        // No usable start: interpolate between the span ends (the middle when
+        // the lower end was not evaluated).
+        const double f = std::isfinite(fa) ? std::clamp((value - fa) / (fb - fa), 0.0, 1.0) : 0.5;
+        T = lo + (hi - lo) * f;
+    }
     const double tol = 1e-13 * std::max(std::fabs(value), which == Property::Entropy ? 1.0 : 1e3);
     std::optional<State> best;
     for (int it = 0; it < 60; ++it) {
@@ -441,10 +446,15 @@ Result<State> WaterReferenceModel::fluidOnIsobar(double P, Property which, doubl
         if (!sb) return sb.error();
         const double fb = prop(*sb);
         if (value > fb) continue;
-        auto sa = sp.at(sp.a);
-        if (!sa) return sa.error();
-        const double fa = prop(*sa);
-        if (value < fa && i == 0) break;  // below the lowest fluid state
+        // The lower end is only needed below the lowest fluid state or when
+        // the span has no backward equation to start from.
+        double fa = std::numeric_limits<double>::quiet_NaN();
+        if (i == 0 || !sp.seed) {
+            auto sa = sp.at(sp.a);
+            if (!sa) return sa.error();
+            fa = prop(*sa);
+            if (value < fa && i == 0) break;  // below the lowest fluid state
+        }
         return solveSpan(sp, which, value, fa, fb);
     }
     return makeError("no state of water at " + fmt(P) + " Pa has " + (H ? "specific enthalpy " : "specific entropy ") +
