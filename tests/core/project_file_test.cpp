@@ -607,6 +607,27 @@ TEST(ProjectFile, MalformedInputNeverCrashes) {
     }
 }
 
+TEST(ProjectFile, SampleProjectsReadAndWriteBackStably) {
+    // The demo worksheets shipped with Heatchain must load, and a save of an
+    // unchanged worksheet must be a fixed point.
+    const fs::path folder = fs::path(HEATCHAIN_SOURCE_DIR) / "sample-projects";
+    int count = 0;
+    for (const auto& entry : fs::directory_iterator(folder)) {
+        if (entry.path().extension() != ".hchain") continue;
+        ++count;
+        SCOPED_TRACE(entry.path().filename().string());
+        auto p = loadProject(entry.path());
+        EXPECT_TRUE(p.ok()) << p.error().text();
+        if (!p.ok()) continue;
+        EXPECT_FALSE(p->steps.empty());
+        const std::string written = writeProject(*p);
+        auto again = parseProject(written);
+        EXPECT_TRUE(again.ok()) << again.error().text();
+        if (again.ok()) EXPECT_EQ(writeProject(*again), written);
+    }
+    EXPECT_GT(count, 0);
+}
+
 // ---- Files ------------------------------------------------------------------
 
 class ProjectFileOnDisk : public ::testing::Test {
