@@ -1,0 +1,281 @@
+// heatchain-cli: compute, report, check, state and substances, per the
+// command-line contract in the design notes. Exit status: 0 done; 2 usage
+// error; 3 invalid input; 4 cannot compute. Messages on stderr.
+#include <cmath>
+#include <cstdio>
+#include <fstream>
+#include <iostream>
+#include <map>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "heatchain/project_file.hpp"
+#include "heatchain/property_model.hpp"
+#include "heatchain/results_json.hpp"
+#include "heatchain/solver.hpp"
+#include "heatchain/substance.hpp"
+#include "heatchain/units.hpp"
+#include "ledger_text.hpp"
+
+#ifdef HEATCHAIN_HAVE_REPORT
+#include "heatchain/report.hpp"
+#endif
+
+namespace {
+
+using namespace heatchain;
+
+constexpr int kDone = 0, kUsage = 2, kInvalid = 3, kCannotCompute = 4;
+
+const char* kUsageText =
+    "usage:\n"
+    "  heatchain-cli compute PROJECT [--json | --csv] [-o FILE]\n"
+    "  heatchain-cli report  PROJECT -o REPORT.pdf\n"
+    "  heatchain-cli check   PROJECT\n"
+    "  heatchain-cli state   SUBSTANCE T=<q> P=<q> | P=<q> h=<q> | P=<q> s=<q> | T=<q> quality=<x> | P=<q> quality=<x>"
+    "  [--model M] [--json]\n"
+    "  heatchain-cli substances [--json]\n";
+
+int usage(const std::string& why) {
+    std::cerr << "heatchain-cli: " << why << "\n" << kUsageText;
+    return kUsage;
+}
+
+// Writes to -o FILE atomically, or to stdout.
+int emit(const std::string& text, const std::optional<std::string>& out) {
+    if (!out) {
+        std::cout << text;
+        return kDone;
+    }
+    auto st = writeFileAtomically(*out, text, /*keepBackup=*/false);
+    if (!st) {
+        std::cerr << "heatchain-cli: " << st.error().text() << "\n";
+        return kCannotCompute;
+    }
+    return kDone;
+}
+
+struct Args {
+    std::vector<std::string> positional;
+    std::map<std::string, std::string> options;  // --json → "", -o → value
+};
+
+Result<Args> parseArgs(int argc, char** argv, int from) {
+    Args a;
+    for (int i = from; i < argc; ++i) {
+        std::string s = argv[i];
+        if (s == "-o" || s == "--output" || s == "--model") {
+            if (i + 1 >= argc) return makeError(s + " needs a value");
+            a.options[s == "--output" ? "-o" : s] = argv[++i];
+        } else if (s.rfind("--", 0) == 0) {
+            a.options[s] = "";
+        } else {
+            a.positional.push_back(s);
+        }
+    }
+    return a;
+}
+
+int compute(const Args& a, bool checkOnly) {
+    if (a.positional.size() != 1) return usage("expected one PROJECT file");
+    const bool json = a.options.count("--json"), csv = a.options.count("--csv");
+    for (const auto& [k, v] : a.options)
+        if (k != "--json" && k != "--csv" && k != "-o") return usage("unknown option " + k);
+    if (json && csv) return usage("--json and --csv exclude each other");
+    if (checkOnly && (json || csv || a.options.count("-o"))) return usage("check takes no output options");
+    auto project = loadProject(a.positional[0]);
+    if (!project) {
+        std::cerr << "heatchain-cli: " << project.error().text() << "\n";
+        return kInvalid;
+    }
+    const auto result = solve(*project);
+    const Error* err = result.firstError();
+    if (checkOnly) {
+        if (err) {
+            std::cerr << "heatchain-cli: " << a.positional[0] << ": " << err->text() << "\n";
+            return kCannotCompute;
+        }
+        std::size_t warnings = 0;
+        for (const auto& s : result.steps) warnings += s.warnings.size();
+        std::cout << a.positional[0] << ": valid; " << result.steps.size() << " steps computed, " << warnings
+                  << " warning" << (warnings == 1 ? "" : "s") << "\n";
+        return kDone;
+    }
+    std::optional<std::string> out;
+    if (auto it = a.options.find("-o"); it != a.options.end()) out = it->second;
+    std::string text;
+    if (json) text = resultsToJson(*project, result).dump(2) + "\n";
+    else if (csv) text = resultsToCsv(*project, result);
+    else text = cli::ledgerText(*project, result);
+    int rc = emit(text, out);
+    if (err) {
+        std::cerr << "heatchain-cli: " << a.positional[0] << ": " << err->text() << "\n";
+        return kCannotCompute;
+    }
+    return rc;
+}
+
+int report(const Args& a) {
+    if (a.positional.size() != 1 || !a.options.count("-o")) return usage("report needs PROJECT and -o REPORT.pdf");
+#ifdef HEATCHAIN_HAVE_REPORT
+    auto project = loadProject(a.positional[0]);
+    if (!project) {
+        std::cerr << "heatchain-cli: " << project.error().text() << "\n";
+        return kInvalid;
+    }
+    const auto result = solve(*project);
+    auto st = writeReportPdf(*project, result, a.positional[0], a.options.at("-o"));
+    if (!st) {
+        std::cerr << "heatchain-cli: " << st.error().text() << "\n";
+        return kCannotCompute;
+    }
+    if (const Error* err = result.firstError()) {
+        std::cerr << "heatchain-cli: report written, but " << err->text() << "\n";
+        return kCannotCompute;
+    }
+    return kDone;
+#else
+    return usage("report is not available in this build (it needs the Qt report library)");
+#endif
+}
+
+int state(const Args& a) {
+    if (a.positional.size() != 3) return usage("state needs a SUBSTANCE and two properties, e.g. water T=180degC P=10bar");
+    for (const auto& [k, v] : a.options)
+        if (k != "--json" && k != "--model") return usage("unknown option " + k);
+    const Substance* sub = SubstanceLibrary::builtin().find(a.positional[0]);
+    if (!sub) {
+        std::string known;
+        for (const auto& s : SubstanceLibrary::builtin().all()) known += (known.empty() ? "" : ", ") + s.id;
+        std::cerr << "heatchain-cli: unknown substance \"" << a.positional[0] << "\"; known: " << known << "\n";
+        return kInvalid;
+    }
+    ModelKind kind = ModelKind::Reference;
+    if (auto it = a.options.find("--model"); it != a.options.end()) {
+        auto k = parseModelKind(it->second);
+        if (!k) return usage(k.error().message);
+        kind = *k;
+    }
+    std::map<std::string, std::string> props;
+    for (std::size_t i = 1; i < 3; ++i) {
+        const auto& p = a.positional[i];
+        const auto eq = p.find('=');
+        if (eq == std::string::npos) return usage("expected NAME=VALUE, got \"" + p + "\"");
+        props[p.substr(0, eq)] = p.substr(eq + 1);
+    }
+    auto model = makeModel(kind, *sub);
+    if (!model) {
+        std::cerr << "heatchain-cli: " << model.error().text() << "\n";
+        return kCannotCompute;
+    }
+    const PropertyModel& m = **model;
+    auto q = [&](const std::string& name, Dimension d) -> Result<double> {
+        auto v = parseQuantity(props.at(name), d);
+        if (!v) return makeError(v.error().message, name);
+        return v;
+    };
+    auto has = [&](const char* a1, const char* a2) { return props.size() == 2 && props.count(a1) && props.count(a2); };
+    Result<State> st = makeError("");
+    Result<double> x1 = makeError(""), x2 = makeError("");
+    if (has("T", "P")) {
+        x1 = q("T", Dimension::Temperature); x2 = q("P", Dimension::Pressure);
+        if (x1 && x2) st = m.stateTP(*x1, *x2);
+    } else if (has("P", "h")) {
+        x1 = q("P", Dimension::Pressure); x2 = q("h", Dimension::SpecificEnergy);
+        if (x1 && x2) st = m.statePH(*x1, *x2);
+    } else if (has("P", "s")) {
+        x1 = q("P", Dimension::Pressure); x2 = q("s", Dimension::SpecificEntropy);
+        if (x1 && x2) st = m.statePS(*x1, *x2);
+    } else if (has("T", "quality")) {
+        x1 = q("T", Dimension::Temperature); x2 = q("quality", Dimension::Dimensionless);
+        if (x1 && x2) st = m.stateOnLineT(Transition::Boiling, *x1, *x2);
+    } else if (has("P", "quality")) {
+        x1 = q("P", Dimension::Pressure); x2 = q("quality", Dimension::Dimensionless);
+        if (x1 && x2) st = m.stateOnLineP(Transition::Boiling, *x1, *x2);
+    } else {
+        return usage("give T and P, P and h, P and s, T and quality, or P and quality");
+    }
+    if (!x1 || !x2) {
+        std::cerr << "heatchain-cli: " << (!x1 ? x1.error() : x2.error()).text() << "\n";
+        return kInvalid;
+    }
+    if (!st) {
+        std::cerr << "heatchain-cli: " << st.error().text() << "\n";
+        return kCannotCompute;
+    }
+    const std::string warnings = describeWarnings(st->warnings);
+    if (a.options.count("--json")) {
+        Json j = stateToJson(*st);
+        j["model"] = std::string(m.name());
+        j["source"] = std::string(st->source);
+        j["warnings"] = warnings.empty() ? Json::array() : Json::array({warnings});
+        std::cout << j.dump(2) << "\n";
+        return kDone;
+    }
+    auto line = [](const char* name, double v, const char* unit) {
+        std::printf("  %-14s %.10g %s\n", name, v, unit);
+    };
+    std::printf("%s, %s (%s)\n", sub->name.c_str(), std::string(m.name()).c_str(), std::string(st->source).c_str());
+    std::printf("  %-14s %s\n", "phase", std::string(phaseLabel(st->phase)).c_str());
+    line("T", st->T, "K");
+    line("P", st->P, "Pa");
+    if (st->quality) line("quality", *st->quality, "");
+    if (st->meltFraction) line("melt fraction", *st->meltFraction, "");
+    line("h", st->h, "J/kg");
+    line("s", st->s, "J/(kg K)");
+    line("u", st->u, "J/kg");
+    line("v", st->v, "m3/kg");
+    if (std::isfinite(st->cp)) line("cp", st->cp, "J/(kg K)");
+    if (std::isfinite(st->w)) line("speed of sound", st->w, "m/s");
+    if (!warnings.empty()) std::printf("  warning: %s\n", warnings.c_str());
+    return kDone;
+}
+
+int substances(const Args& a) {
+    for (const auto& [k, v] : a.options)
+        if (k != "--json") return usage("unknown option " + k);
+    if (!a.positional.empty()) return usage("substances takes no arguments");
+    const auto& lib = SubstanceLibrary::builtin();
+    if (a.options.count("--json")) {
+        Json arr = Json::array();
+        for (const auto& s : lib.all()) {
+            Json j = {{"id", s.id}, {"name", s.name}, {"formula", s.formula}, {"molarMass_kg_per_mol", s.molarMass}};
+            if (s.critical) j["critical"] = {{"T_K", s.critical->T}, {"P_Pa", s.critical->P}, {"acentricFactor", s.critical->acentricFactor}};
+            if (s.boiling) j["boiling"] = {{"T_K", s.boiling->T}, {"P_Pa", s.boiling->P}, {"enthalpy_J_per_kg", s.boiling->enthalpy}};
+            if (s.melting) j["melting"] = {{"T_K", s.melting->T}, {"P_Pa", s.melting->P}, {"enthalpy_J_per_kg", s.melting->enthalpy}};
+            Json src = Json::array();
+            for (const auto& n : s.sources) src.push_back({{"field", n.field}, {"source", n.text}});
+            j["sources"] = src;
+            arr.push_back(j);
+        }
+        std::cout << arr.dump(2) << "\n";
+        return kDone;
+    }
+    std::printf("%-18s %-34s %-8s %10s %10s %10s\n", "id", "name", "formula", "M [g/mol]", "Tb [K]", "Tc [K]");
+    for (const auto& s : lib.all()) {
+        std::printf("%-18s %-34s %-8s %10.4f %10s %10s\n", s.id.c_str(), s.name.c_str(), s.formula.c_str(),
+                    s.molarMass * 1000, s.boiling ? std::to_string(s.boiling->T).substr(0, 7).c_str() : "–",
+                    s.critical ? std::to_string(s.critical->T).substr(0, 7).c_str() : "–");
+    }
+    return kDone;
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+    if (argc < 2) return usage("no command given");
+    const std::string verb = argv[1];
+    if (verb == "--help" || verb == "-h" || verb == "help") {
+        std::cout << kUsageText;
+        return kDone;
+    }
+    auto args = parseArgs(argc, argv, 2);
+    if (!args) return usage(args.error().message);
+    if (verb == "compute") return compute(*args, false);
+    if (verb == "check") return compute(*args, true);
+    if (verb == "report") return report(*args);
+    if (verb == "state") return state(*args);
+    if (verb == "substances") return substances(*args);
+    return usage("unknown command \"" + verb + "\"");
+}

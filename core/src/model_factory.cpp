@@ -1,0 +1,26 @@
+// Chooses the property model for a substance. "reference" means the best the
+// substance has: IAPWS-IF97 with ice Ih for water, Peng–Robinson for every
+// other substance with critical constants, else temperature-dependent cp.
+#include "heatchain/models/peng_robinson.hpp"
+#include "heatchain/models/simple_model.hpp"
+#include "heatchain/models/water_model.hpp"
+#include "heatchain/property_model.hpp"
+
+namespace heatchain {
+
+Result<std::shared_ptr<const PropertyModel>> makeModel(ModelKind kind, const Substance& substance) {
+    switch (kind) {
+        case ModelKind::ConstantCp:
+        case ModelKind::TemperatureDependentCp:
+            return makeSimpleModel(substance, kind);
+        case ModelKind::RealFluid:
+            return makePengRobinsonModel(substance);
+        case ModelKind::Reference:
+            if (substance.id == "water" && !substance.custom) return makeWaterReferenceModel(substance);
+            if (substance.critical && substance.cpVapor) return makePengRobinsonModel(substance);
+            return makeSimpleModel(substance, ModelKind::TemperatureDependentCp);
+    }
+    return makeError("unknown model kind");
+}
+
+}  // namespace heatchain

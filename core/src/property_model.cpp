@@ -1,0 +1,292 @@
+// The derived state calculations of the PropertyModel base class: every input
+// pair other than (T, P) is found from a model's single-phase states and its
+// phase-change lines, so each model is written once in its natural variables.
+#include "heatchain/property_model.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <string>
+
+#include "numerics/root.hpp"
+
+namespace heatchain {
+
+namespace {
+
+std::string fmt(double v) {
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.6g", v);
+    return buf;
+}
+
+const char* propertyName(Property p) {
+    switch (p) {
+        case Property::Enthalpy: return "specific enthalpy";
+        case Property::Entropy: return "specific entropy";
+        case Property::InternalEnergy: return "specific internal energy";
+        case Property::Volume: return "specific volume";
+    }
+    return "property";
+}
+
+const char* propertyUnit(Property p) {
+    switch (p) {
+        case Property::Enthalpy:
+        case Property::InternalEnergy: return "J/kg";
+        case Property::Entropy: return "J/(kg K)";
+        case Property::Volume: return "m3/kg";
+    }
+    return "";
+}
+
+}  // namespace
+
+std::string_view modelId(ModelKind k) {
+    switch (k) {
+        case ModelKind::ConstantCp: return "constant-cp";
+        case ModelKind::TemperatureDependentCp: return "temperature-dependent-cp";
+        case ModelKind::RealFluid: return "real-fluid";
+        case ModelKind::Reference: return "reference";
+    }
+    return "reference";
+}
+
+Result<ModelKind> parseModelKind(std::string_view id) {
+    for (ModelKind k : {ModelKind::ConstantCp, ModelKind::TemperatureDependentCp,
+                        ModelKind::RealFluid, ModelKind::Reference}) {
+        if (modelId(k) == id) return k;
+    }
+    return makeError("unknown model \"" + std::string(id) +
+                     "\"; valid: constant-cp, temperature-dependent-cp, real-fluid, reference");
+}
+
+std::string_view transitionLabel(Transition t) {
+    switch (t) {
+        case Transition::Melting: return "melting";
+        case Transition::Boiling: return "boiling";
+        case Transition::Sublimation: return "sublimation";
+    }
+    return "";
+}
+
+Phase lowerPhase(Transition t) { return t == Transition::Boiling ? Phase::Liquid : Phase::Solid; }
+Phase upperPhase(Transition t) { return t == Transition::Melting ? Phase::Liquid : Phase::Vapor; }
+Phase mixturePhase(Transition t) {
+    switch (t) {
+        case Transition::Melting: return Phase::SolidLiquid;
+        case Transition::Boiling: return Phase::LiquidVapor;
+        case Transition::Sublimation: return Phase::SolidVapor;
+    }
+    return Phase::LiquidVapor;
+}
+
+double PropertyModel::propertyOf(const State& s, Property which) {
+    switch (which) {
+        case Property::Enthalpy: return s.h;
+        case Property::Entropy: return s.s;
+        case Property::InternalEnergy: return s.u;
+        case Property::Volume: return s.v;
+    }
+    return s.h;
+}
+
+State PropertyModel::mix(const State& lower, const State& upper, Transition t, double f) {
+    State m = lower;
+    const double g = 1.0 - f;
+    m.phase = mixturePhase(t);
+    m.h = g * lower.h + f * upper.h;
+    m.s = g * lower.s + f * upper.s;
+    m.u = g * lower.u + f * upper.u;
+    m.v = g * lower.v + f * upper.v;
+    m.cp = m.cv = m.w = std::numeric_limits<double>::quiet_NaN();
+    if (t == Transition::Melting) {
+        m.meltFraction = f;
+        m.quality.reset();
+    } else {
+        m.quality = f;
+        m.meltFraction.reset();
+    }
+    m.source = f < 0.5 ? lower.source : upper.source;
+    m.warnings = lower.warnings | upper.warnings;
+    return m;
+}
+
+Result<State> PropertyModel::stateTP(double T, double P) const {
+    auto phase = stablePhase(T, P);
+    if (!phase) return phase.error();
+    return phaseState(*phase, T, P);
+}
+
+Result<State> PropertyModel::stateOnLineP(Transition t, double P, double fraction) const {
+    if (!(fraction >= 0.0 && fraction <= 1.0))
+        return makeError("phase fraction " + fmt(fraction) + " is outside 0–1");
+    auto T = transitionTemperature(t, P);
+    if (!T) return T.error();
+    auto lo = phaseState(lowerPhase(t), *T, P);
+    if (!lo) return lo.error();
+    auto up = phaseState(upperPhase(t), *T, P);
+    if (!up) return up.error();
+    return mix(*lo, *up, t, fraction);
+}
+
+Result<State> PropertyModel::stateOnLineT(Transition t, double T, double fraction) const {
+    if (!(fraction >= 0.0 && fraction <= 1.0))
+        return makeError("phase fraction " + fmt(fraction) + " is outside 0–1");
+    auto P = transitionPressure(t, T);
+    if (!P) return P.error();
+    auto lo = phaseState(lowerPhase(t), T, *P);
+    if (!lo) return lo.error();
+    auto up = phaseState(upperPhase(t), T, *P);
+    if (!up) return up.error();
+    return mix(*lo, *up, t, fraction);
+}
+
+TransitionsAtPressure PropertyModel::transitionsAt(double P) const {
+    TransitionsAtPressure out;
+    auto add = [&](Transition t) {
+        auto T = transitionTemperature(t, P);
+        if (T && out.count < 2) out.entries[out.count++] = {t, *T};
+    };
+    const auto triple = triplePoint();
+    if (triple && P < triple->second) {
+        add(Transition::Sublimation);
+    } else {
+        add(Transition::Melting);
+        add(Transition::Boiling);
+    }
+    if (out.count == 2 && out.entries[0].T > out.entries[1].T) std::swap(out.entries[0], out.entries[1]);
+    return out;
+}
+
+std::optional<std::pair<double, double>> PropertyModel::criticalPoint() const {
+    const auto& c = substance().critical;
+    if (!c) return std::nullopt;
+    return std::make_pair(c->T, c->P);
+}
+
+std::optional<std::pair<double, double>> PropertyModel::triplePoint() const {
+    const auto& t = substance().triple;
+    if (!t) return std::nullopt;
+    return std::make_pair(t->T, t->P);
+}
+
+Result<State> PropertyModel::stateP(double P, Property which, double value) const {
+    if (!(P > 0) || !std::isfinite(P)) return makeError("pressure must be positive, got " + fmt(P) + " Pa");
+    if (!std::isfinite(value)) return makeError(std::string(propertyName(which)) + " is not a finite number");
+
+    // Walk the isobar from the lowest temperature upward: single-phase spans
+    // separated by the phase changes the isobar crosses. Along an isobar h, s
+    // and u rise with T; v mostly does (the liquid-water density maximum is
+    // handled because each span is searched by bracketing, not by slope).
+    const auto tr = transitionsAt(P);
+    double Tlo = minTemperature();
+    auto evalPhase = [&](Phase ph, double T) -> std::optional<State> {
+        auto st = phaseState(ph, T, P);
+        if (!st) return std::nullopt;
+        return *st;
+    };
+    auto spanPhase = [&](double T) -> std::optional<Phase> {
+        auto ph = stablePhase(T, P);
+        if (!ph) return std::nullopt;
+        return *ph;
+    };
+    auto solveSpan = [&](double a, double b) -> std::optional<State> {
+        // Sample the span at its ends (nudged inside) and solve by Brent.
+        const double ea = a + 1e-9 * std::max(1.0, a);
+        const double eb = b - 1e-9 * std::max(1.0, b);
+        if (!(eb > ea)) return std::nullopt;
+        auto pa = spanPhase(0.5 * (ea + eb));
+        if (!pa) return std::nullopt;
+        // For a span without a phase change inside it the phase is fixed, except
+        // above the critical pressure where liquid turns supercritical smoothly.
+        auto stateAt = [&](double T) -> std::optional<State> {
+            auto ph = spanPhase(T);
+            return evalPhase(ph ? *ph : *pa, T);
+        };
+        auto sa = stateAt(ea);
+        auto sb = stateAt(eb);
+        if (!sa || !sb) return std::nullopt;
+        const double fa = propertyOf(*sa, which) - value;
+        const double fb = propertyOf(*sb, which) - value;
+        if ((fa > 0) == (fb > 0) && fa != 0 && fb != 0) return std::nullopt;
+        auto f = [&](double T) {
+            auto s = stateAt(T);
+            return s ? propertyOf(*s, which) - value : std::numeric_limits<double>::quiet_NaN();
+        };
+        auto T = detail::brent(f, ea, eb, fa, fb, {1e-13, 1e-10, 200});
+        if (!T) return std::nullopt;
+        return stateAt(*T);
+    };
+
+    for (int i = 0; i <= tr.count; ++i) {
+        const double Thi = i < tr.count ? tr.entries[i].T : maxTemperature();
+        if (Thi > Tlo) {
+            if (auto st = solveSpan(Tlo, Thi)) return *st;
+        }
+        if (i == tr.count) break;
+        const auto t = tr.entries[i].kind;
+        auto lo = phaseState(lowerPhase(t), tr.entries[i].T, P);
+        auto up = phaseState(upperPhase(t), tr.entries[i].T, P);
+        if (lo && up) {
+            const double a = propertyOf(*lo, which), b = propertyOf(*up, which);
+            const double mn = std::min(a, b), mx = std::max(a, b);
+            if (value >= mn && value <= mx && b != a) {
+                const double f = std::clamp((value - a) / (b - a), 0.0, 1.0);
+                return mix(*lo, *up, t, f);
+            }
+        }
+        Tlo = tr.entries[i].T;
+    }
+    return makeError("no state of " + substance().name + " at " + fmt(P) + " Pa has " +
+                     propertyName(which) + " " + fmt(value) + " " + propertyUnit(which) +
+                     " within the " + std::string(name()) + " range (" + rangeText() + ")");
+}
+
+Result<State> PropertyModel::stateTV(double T, double v) const {
+    if (!(T > 0) || !(v > 0)) return makeError("temperature and specific volume must be positive");
+    const double Pmin = minPressure(), Pmax = maxPressure();
+    auto vAt = [&](Phase ph, double lnP) -> double {
+        auto s = phaseState(ph, T, std::exp(lnP));
+        return s ? s->v - v : std::numeric_limits<double>::quiet_NaN();
+    };
+    auto solveP = [&](Phase ph, double Pa, double Pb) -> std::optional<State> {
+        const double a = std::log(Pa), b = std::log(Pb);
+        auto f = [&](double x) { return vAt(ph, x); };
+        auto x = detail::brent(f, a, b, f(a), f(b), {1e-14, 1e-12, 200});
+        if (!x) return std::nullopt;
+        auto ph2 = stablePhase(T, std::exp(*x));
+        auto st = phaseState(ph2 ? *ph2 : ph, T, std::exp(*x));
+        if (!st) return std::nullopt;
+        return *st;
+    };
+    // Below the triple point the vessel holds solid and vapour; between the
+    // triple and critical points liquid and vapour share the saturation line.
+    const auto trip = triplePoint();
+    const Transition line = (trip && T < trip->first) ? Transition::Sublimation : Transition::Boiling;
+    auto Psat = transitionPressure(line, T);
+    if (Psat) {
+        auto lo = phaseState(lowerPhase(line), T, *Psat);
+        auto up = phaseState(upperPhase(line), T, *Psat);
+        if (lo && up) {
+            if (v >= lo->v && v <= up->v) {
+                return mix(*lo, *up, line, (v - lo->v) / (up->v - lo->v));
+            }
+            if (v > up->v) {
+                if (auto st = solveP(upperPhase(line), Pmin, *Psat)) return *st;
+            } else if (auto st = solveP(lowerPhase(line), *Psat, Pmax)) {
+                return *st;
+            }
+            return makeError("no state of " + substance().name + " at " + fmt(T) + " K has specific volume " +
+                             fmt(v) + " m3/kg within the " + std::string(name()) +
+                             " model (a condensed phase it treats as incompressible cannot be compressed further)");
+        }
+    }
+    // Supercritical temperature (or no saturation line): one fluid phase.
+    for (Phase ph : {Phase::Supercritical, Phase::Vapor, Phase::Liquid}) {
+        if (auto st = solveP(ph, Pmin, Pmax)) return *st;
+    }
+    return makeError("no state of " + substance().name + " at " + fmt(T) + " K has specific volume " + fmt(v) +
+                     " m3/kg within the " + std::string(name()) + " range (" + rangeText() + ")");
+}
+
+}  // namespace heatchain
