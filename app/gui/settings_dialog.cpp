@@ -13,7 +13,6 @@ namespace heatchain::gui {
 
 namespace {
 QString qs(const std::string& s) { return QString::fromStdString(s); }
-QString qs(std::string_view s) { return QString::fromUtf8(s.data(), qsizetype(s.size())); }
 QString numText(const std::optional<Number>& n) { return n ? qs(n->raw.dump()) : QString(); }
 }  // namespace
 

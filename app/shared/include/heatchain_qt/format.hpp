@@ -3,6 +3,7 @@
 // unit symbols as an engineer writes them, phase and step-kind labels. Only
 // presentation; every number comes from core.
 #include <QString>
+#include <QStringList>
 
 #include "heatchain/project.hpp"
 #include "heatchain/solver.hpp"
