@@ -19,14 +19,14 @@ constexpr double R_universal = 8.314462618;  // J/(mol K), CODATA 2018 (exact)
 
 // A made-up test substance with constant heat capacities: test data, not a
 // real material. Its closed forms are exact under the constant-cp model.
-const char* kTestSubstance = R"({
+const char* kTestSubstance = R"json({
   "id": "test-fluid", "name": "Test fluid", "molarMass": "0.030 kg/mol",
   "source": "invented test data",
   "phases": { "solid": { "cp": "2.0 kJ/(kg K)" }, "liquid": { "cp": "4.0 kJ/(kg K)" },
               "vapor": { "cp": "1.5 kJ/(kg K)" } },
   "melting": { "T": "250 K", "enthalpy": "300 kJ/kg" },
   "boiling": { "T": "350 K", "P": "1 atm", "enthalpy": "1200 kJ/kg" }
-})";
+})json";
 
 std::string projectText(const std::string& system, const std::string& basis, const std::string& start,
                         const std::string& steps, const std::string& model = "constant-cp",

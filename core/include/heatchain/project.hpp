@@ -89,6 +89,7 @@ struct StartSpec {
 struct Basis {
     enum class Kind { Mass, Amount, MassFlow, MolarFlow } kind = Kind::Mass;
     Quantity amount;  // SI: kg, mol, kg/s or mol/s
+    Json extra = Json::object();  // unknown fields, kept
 };
 
 struct Meta {

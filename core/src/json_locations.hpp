@@ -1,0 +1,58 @@
+#pragma once
+// Where things are in JSON text. nlohmann/json gives values but not their
+// positions; error messages need "line:column", so this small scanner walks
+// the text once more. It is iterative (an explicit stack, no recursion),
+// every loop advances through the text, and it tolerates malformed input
+// (nlohmann/json reports the syntax errors; this only locates).
+#include <cstddef>
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace heatchain::detail {
+
+struct TextPosition {
+    int line = 1;    // 1-based
+    int column = 1;  // 1-based, in characters (UTF-8 code points)
+};
+
+// Position of a byte offset (clamped to the text).
+TextPosition positionOfOffset(std::string_view text, std::size_t offset);
+
+// One step of a path: an object key, or an array index (index >= 0).
+struct JsonPathElement {
+    std::string key;
+    long index = -1;
+};
+using JsonPath = std::vector<JsonPathElement>;
+
+JsonPath pathOf(std::initializer_list<JsonPathElement> elements);
+JsonPath child(const JsonPath& parent, std::string key);
+JsonPath child(const JsonPath& parent, long index);
+// "steps[2].to.T"; keys that are not plain names are written ["like this"].
+std::string formatJsonPath(const JsonPath& path);
+// Reads "substance.phases.liquid.cp[2]" back (the form parseSubstance uses).
+JsonPath parseDottedPath(std::string_view text);
+
+// What nlohmann/json's parser does not check, found before it runs: nesting
+// deeper than maxDepth (refused before any recursive code sees it), a key
+// repeated within one object (the parser would keep only the last), a number
+// beyond the range of a double (the parser throws without a position).
+struct JsonProblem {
+    std::string message;
+    JsonPath path;
+    std::size_t offset = 0;
+};
+struct PrescanResult {
+    std::optional<JsonProblem> tooDeep;
+    std::optional<JsonProblem> duplicateKey;
+    std::optional<JsonProblem> numberOutOfRange;
+};
+PrescanResult prescanJson(std::string_view text, int maxDepth);
+
+// Byte offset of the value at `path`, or of its deepest ancestor present in
+// the text (the whole document's start when nothing matches).
+std::size_t locateJsonValue(std::string_view text, const JsonPath& path);
+
+}  // namespace heatchain::detail

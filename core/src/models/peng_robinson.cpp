@@ -1,0 +1,893 @@
+// Peng–Robinson real-fluid model. Molar quantities inside the equation-of-
+// state helpers, per-kilogram values in every State. Everything the model
+// needs is computed once in the factory; afterwards the object is immutable,
+// so const calls may run from several threads at once.
+#include "heatchain/models/peng_robinson.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <numbers>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "heatchain/constants.hpp"
+#include "models/cubic.hpp"
+
+namespace heatchain {
+
+namespace {
+
+constexpr double kR = kGasConstant;
+constexpr double kSqrt2 = std::numbers::sqrt2;
+// Peng & Robinson (1976), eqs. (9)–(10): a_c = Ωa R²Tc²/Pc, b = Ωb R Tc/Pc,
+// with Ωa ≈ 0.45724 and Ωb ≈ 0.07780. They are computed here to full double
+// precision from their definition (the cubic in Z is (Z - Zc)^3 at Tc, Pc)
+// because the printed 8-digit values perturb the triple root by ~1e-9, which
+// moves the critical roots by ~(1e-9)^(1/3) ~ 1e-3.
+struct CriticalOmegas {
+    double a, b;
+};
+const CriticalOmegas& criticalOmegas() {
+    static const CriticalOmegas k = [] {
+        // Matching Z^3 - (1-B) Z^2 + (A - 3B^2 - 2B) Z - (AB - B^2 - B^3) with
+        // (Z - Zc)^3: Zc = (1-B)/3, A = 3Zc^2 + 3B^2 + 2B, and
+        // F(B) = AB - B^2 - B^3 - Zc^3 = 0, solved by Newton from 0.0778.
+        auto F = [](double B) {
+            const double Zc = (1.0 - B) / 3.0;
+            const double A = 3.0 * Zc * Zc + 3.0 * B * B + 2.0 * B;
+            return A * B - B * B - B * B * B - Zc * Zc * Zc;
+        };
+        double B = 0.0778;
+        for (int i = 0; i < 50; ++i) {
+            const double h = 1e-7;
+            const double step = F(B) / ((F(B + h) - F(B - h)) / (2 * h));
+            B -= step;
+            if (std::abs(step) < 1e-17) break;
+        }
+        const double Zc = (1.0 - B) / 3.0;
+        return CriticalOmegas{3.0 * Zc * Zc + 3.0 * B * B + 2.0 * B, B};
+    }();
+    return k;
+}
+// Reference pressure of the ideal-gas entropy; any value works because the
+// entropy offset absorbs it.
+constexpr double kP0 = 1e5;
+// Above this distance from the melting anchor pressure the pressure-
+// independent melting temperature is flagged (common practice: melting
+// temperatures move by roughly 0.01–0.3 K/MPa).
+constexpr double kMeltingFlagPressure = 5e6;
+
+constexpr std::string_view kName = "Peng–Robinson (1978)";
+constexpr std::string_view kSrcLiquid = "Peng–Robinson (1978), liquid root";
+constexpr std::string_view kSrcVapor = "Peng–Robinson (1978), vapour root";
+constexpr std::string_view kSrcSuper = "Peng–Robinson (1978), supercritical root";
+constexpr std::string_view kSrcSolid = "Peng–Robinson (1978) with a solid from cp(solid) and the enthalpy of fusion";
+
+struct AlphaTerm {
+    double a;    // a(T) = a_c alpha(T), J m3/mol2
+    double da;   // da/dT
+    double d2a;  // d2a/dT2
+};
+
+// One admissible root of the cubic evaluated into residual properties
+// (molar, relative to the ideal gas at the same T and P).
+struct RootEval {
+    double Z = 0;
+    double vm = 0;     // molar volume before translation, m3/mol
+    double hRes = 0;   // J/mol
+    double sRes = 0;   // J/(mol K)
+    double lnPhi = 0;  // ln fugacity coefficient
+    double cvRes = 0;  // J/(mol K)
+    double dPdT = 0;   // (dP/dT)_v, Pa/K
+    double dPdv = 0;   // (dP/dv)_T, Pa mol/m3
+};
+
+struct Roots {
+    double liquid = 0;  // smallest admissible Z
+    double vapor = 0;   // largest admissible Z
+    bool two = false;   // liquid and vapour are distinct roots
+    bool single = false;
+    bool singleIsLiquidLike = false;  // for a single root: left of the inflection
+    double A = 0, B = 0;
+};
+
+class PengRobinsonModel final : public PropertyModel {
+public:
+    explicit PengRobinsonModel(Substance s) : sub_(std::move(s)) {}
+
+    // The factory's second step; returns an error when the substance data
+    // cannot make a working model (for instance no liquid at the anchor).
+    Status init();
+
+    ModelKind kind() const override { return ModelKind::RealFluid; }
+    std::string_view name() const override { return kName; }
+    std::string rangeText() const override;
+    const Substance& substance() const override { return sub_; }
+    std::string sourceText() const override;
+
+    Result<State> phaseState(Phase phase, double T, double P) const override;
+    Result<Phase> stablePhase(double T, double P) const override;
+    Result<double> transitionTemperature(Transition t, double P) const override;
+    Result<double> transitionPressure(Transition t, double T) const override;
+
+    Result<State> stateTP(double T, double P) const override;
+    Result<State> stateOnLineP(Transition t, double P, double fraction) const override;
+    Result<State> stateOnLineT(Transition t, double T, double fraction) const override;
+    Result<State> stateP(double P, Property which, double value) const override;
+    TransitionsAtPressure transitionsAt(double P) const override;
+
+    std::optional<std::pair<double, double>> criticalPoint() const override {
+        return std::make_pair(Tc_, Pc_);
+    }
+    std::optional<std::pair<double, double>> triplePoint() const override {
+        if (!hasLowerLimit_) return std::nullopt;
+        return std::make_pair(Ttp_, Ptp_);
+    }
+
+    double minTemperature() const override { return Tmin_; }
+    double maxTemperature() const override { return Tmax_; }
+    double maxPressure() const override { return 10.0 * Pc_; }
+
+private:
+    struct Saturation {
+        double P = 0;
+        RootEval liquid, vapor;
+    };
+
+    AlphaTerm alpha(double T) const;
+    Roots roots(double T, double P, const AlphaTerm& al) const;
+    RootEval evalRoot(double T, double P, double Z, const AlphaTerm& al, bool full) const;
+    State fluidState(double T, double P, const RootEval& r, Phase label, std::string_view src,
+                     std::uint32_t warnings) const;
+    std::uint32_t rangeWarnings(double T, double P) const;
+
+    // Saturation pressure at T with both ends; pStart is an optional guess.
+    Result<Saturation> saturation(double T, double pStart = 0) const;
+    Result<double> boilingTemperature(double P) const;
+    Result<double> sublimationPressure(double T) const;
+    Result<double> sublimationTemperature(double P) const;
+
+    // Solid: values per kg.
+    Result<State> solidState(double T, double P) const;
+    // Gibbs energy per kg of the vapour root (nullopt when there is no
+    // vapour-like root) and its volume.
+    struct GibbsV {
+        double g, v, h;
+    };
+    std::optional<GibbsV> vaporGibbs(double T, double P) const;
+    Result<GibbsV> solidGibbs(double T, double P) const;
+
+    Result<State> solveInPhase(Phase ph, double P, Property which, double value, double Ta, double Tb,
+                               const State& sa, const State& sb) const;
+
+    std::string who() const { return sub_.id.empty() ? sub_.name : sub_.id; }
+
+    Substance sub_;
+    HeatCapacity cp0_;
+    double M_ = 0, Tc_ = 0, Pc_ = 0, omega_ = 0;
+    double ac_ = 0, b_ = 0, kappa_ = 0;
+    bool twu_ = false;
+    double twuL_ = 0, twuM_ = 0, twuN_ = 0;
+    double shift_ = 0;  // Péneloux c, m3/mol
+    double hOff_ = 0, sOff_ = 0;
+
+    // Solid phase, anchored at the melting point.
+    bool hasSolid_ = false;
+    bool hasMelting_ = false;
+    HeatCapacity cpS_;
+    double Tm_ = 0, Pm_ = 0, dhFus_ = 0;
+    double hLm_ = 0, sLm_ = 0;  // liquid at (Tm, Pm), per kg, after offsets
+
+    // Lower end of the liquid–vapour line (model triple point).
+    bool hasLowerLimit_ = false;
+    double Ttp_ = 0, Ptp_ = 0;
+
+    double Tmin_ = 0, Tmax_ = 0;
+};
+
+// ---------------------------------------------------------------- EOS core
+
+AlphaTerm PengRobinsonModel::alpha(double T) const {
+    if (twu_) {
+        // Twu et al. (1991): alpha = Tr^(N(M-1)) exp(L (1 - Tr^(N M))).
+        const double Tr = T / Tc_;
+        const double nm = twuN_ * twuM_;
+        const double trnm = std::pow(Tr, nm);
+        const double lnA = twuN_ * (twuM_ - 1.0) * std::log(Tr) + twuL_ * (1.0 - trnm);
+        const double al = std::exp(lnA);
+        const double g = (twuN_ * (twuM_ - 1.0) - twuL_ * nm * trnm) / T;            // d ln(alpha)/dT
+        const double dg = (-twuN_ * (twuM_ - 1.0) - twuL_ * nm * (nm - 1.0) * trnm) / (T * T);
+        return {ac_ * al, ac_ * al * g, ac_ * al * (g * g + dg)};
+    }
+    // Peng–Robinson (1976) eq. (12): alpha = [1 + kappa (1 - sqrt(Tr))]^2.
+    const double sT = std::sqrt(T);
+    const double sTc = std::sqrt(Tc_);
+    const double m = 1.0 + kappa_ * (1.0 - sT / sTc);
+    const double dm = -kappa_ / (2.0 * sT * sTc);
+    const double d2m = kappa_ / (4.0 * sTc * T * sT);
+    return {ac_ * m * m, ac_ * 2.0 * m * dm, ac_ * 2.0 * (dm * dm + m * d2m)};
+}
+
+Roots PengRobinsonModel::roots(double T, double P, const AlphaTerm& al) const {
+    Roots r;
+    const double RT = kR * T;
+    r.A = al.a * P / (RT * RT);
+    r.B = b_ * P / RT;
+    const double A = r.A, B = r.B;
+    // Peng & Robinson (1976) eq. (5): Z^3 - (1-B) Z^2 + (A - 3B^2 - 2B) Z - (AB - B^2 - B^3) = 0.
+    const detail::CubicRoots c = detail::solveCubic(-(1.0 - B), A - 3.0 * B * B - 2.0 * B, -(A * B - B * B - B * B * B));
+    // Admissible roots have v > b, i.e. Z > B.
+    double lo = std::numeric_limits<double>::infinity(), hi = -lo;
+    int n = 0;
+    for (int i = 0; i < c.count; ++i) {
+        if (c.z[i] > B) {
+            lo = std::min(lo, c.z[i]);
+            hi = std::max(hi, c.z[i]);
+            ++n;
+        }
+    }
+    if (n == 0) {  // cannot happen for P > 0 (the cubic is negative at Z = B); guard anyway
+        lo = hi = std::max(c.z[c.count - 1], B * (1 + 1e-12));
+        n = 1;
+    }
+    r.liquid = lo;
+    r.vapor = hi;
+    r.two = (n >= 2) && (hi - lo > 1e-12 * hi);
+    r.single = !r.two;
+    // A lone real root lies left of the complex pair's real part exactly when
+    // it is below the inflection point (1 - B)/3 of the cubic.
+    r.singleIsLiquidLike = r.single && lo < (1.0 - B) / 3.0;
+    return r;
+}
+
+RootEval PengRobinsonModel::evalRoot(double T, double P, double Z, const AlphaTerm& al, bool full) const {
+    RootEval e;
+    const double RT = kR * T;
+    const double B = b_ * P / RT;
+    const double A = al.a * P / (RT * RT);
+    e.Z = Z;
+    e.vm = Z * RT / P;
+    // L = ln[(Z + (1+√2)B) / (Z + (1-√2)B)], the integral of the attractive term.
+    const double L = std::log((Z + (1.0 + kSqrt2) * B) / (Z + (1.0 - kSqrt2) * B));
+    const double lnZB = std::log(Z - B);
+    // Peng & Robinson (1976) eq. (15) for the fugacity coefficient.
+    e.lnPhi = Z - 1.0 - lnZB - A / (2.0 * kSqrt2 * B) * L;
+    // Departures at fixed (T, P) from the residual Helmholtz energy
+    // A_res(T,v) = RT ln(v/(v-b)) - a/(2√2 b) L:
+    //   h_res = RT(Z-1) + (T a' - a)/(2√2 b) L,   s_res = R ln(Z-B) + a'/(2√2 b) L.
+    const double k = L / (2.0 * kSqrt2 * b_);
+    e.hRes = RT * (Z - 1.0) + (T * al.da - al.a) * k;
+    e.sRes = kR * lnZB + al.da * k;
+    if (full) {
+        const double v = e.vm;
+        const double den = v * v + 2.0 * b_ * v - b_ * b_;
+        e.cvRes = T * al.d2a * k;
+        e.dPdT = kR / (v - b_) - al.da / den;
+        e.dPdv = -RT / ((v - b_) * (v - b_)) + al.a * (2.0 * v + 2.0 * b_) / (den * den);
+    }
+    return e;
+}
+
+std::uint32_t PengRobinsonModel::rangeWarnings(double T, double P) const {
+    std::uint32_t w = WarnNone;
+    if (T < Tmin_) w |= WarnBelowTemperatureRange;
+    if (T > Tmax_) w |= WarnAboveTemperatureRange;
+    if (P > maxPressure()) w |= WarnAbovePressureRange;
+    if (P < minPressure()) w |= WarnBelowPressureRange;
+    // Cubic equations are least accurate around the critical point (common practice).
+    if (std::abs(T / Tc_ - 1.0) < 0.03 && std::abs(P / Pc_ - 1.0) < 0.3) w |= WarnNearCritical;
+    return w;
+}
+
+State PengRobinsonModel::fluidState(double T, double P, const RootEval& r, Phase label, std::string_view src,
+                                    std::uint32_t warnings) const {
+    State s;
+    s.T = T;
+    s.P = P;
+    s.phase = label;
+    // Péneloux translation: v = v_PR - c. With c constant, g shifts by -P c,
+    // so h shifts by -P c while s and u are unchanged, and both phases'
+    // fugacities shift alike: the saturation line does not move.
+    const double vm = r.vm - shift_;
+    s.v = vm / M_;
+    s.h = cp0_.enthalpy(T) + (r.hRes - P * shift_) / M_ + hOff_;
+    s.s = cp0_.entropy(T) - kR / M_ * std::log(P / kP0) + r.sRes / M_ + sOff_;
+    s.u = s.h - P * s.v;
+    const double cp0m = cp0_.cp(T) * M_;
+    const double cv = cp0m - kR + r.cvRes;
+    if (r.dPdv < 0) {
+        const double cp = cv - T * r.dPdT * r.dPdT / r.dPdv;
+        s.cp = cp / M_;
+        s.cv = cv / M_;
+        // w^2 = -(v^2/M) (cp/cv) (dP/dv)_T with the untranslated molar volume.
+        s.w = std::sqrt(-(r.vm * r.vm / M_) * (cp / cv) * r.dPdv);
+    }
+    s.source = src;
+    s.warnings = warnings | rangeWarnings(T, P);
+    if (!cp0_.inRange(T)) s.warnings |= WarnCpExtrapolated;
+    return s;
+}
+
+// ---------------------------------------------------------------- phases
+
+Result<State> PengRobinsonModel::phaseState(Phase phase, double T, double P) const {
+    if (!(T > 0) || !(P > 0) || !std::isfinite(T) || !std::isfinite(P))
+        return makeError("the real-fluid model needs T > 0 and P > 0 (got T = " + std::to_string(T) +
+                         " K, P = " + std::to_string(P) + " Pa)");
+    if (isTwoPhase(phase))
+        return makeError("phaseState needs a single phase, not " + std::string(phaseId(phase)));
+    if (phase == Phase::Solid) return solidState(T, P);
+
+    const AlphaTerm al = alpha(T);
+    const Roots r = roots(T, P, al);
+    std::uint32_t warn = WarnNone;
+    if (T >= Tc_) {
+        // Above Tc the isotherm is monotonic: one root, no liquid/vapour distinction.
+        const RootEval e = evalRoot(T, P, r.vapor, al, true);
+        const bool superc = P >= Pc_;
+        if (phase == Phase::Liquid && !superc) warn |= WarnCubicFallback;
+        return fluidState(T, P, e, superc ? Phase::Supercritical : Phase::Vapor, superc ? kSrcSuper : kSrcVapor, warn);
+    }
+    bool wantLiquid = phase == Phase::Liquid;
+    if (phase == Phase::Supercritical) {  // below Tc: take the stable root
+        wantLiquid = r.two ? false : r.singleIsLiquidLike;
+        if (r.two) {
+            const RootEval l = evalRoot(T, P, r.liquid, al, false);
+            const RootEval v = evalRoot(T, P, r.vapor, al, false);
+            wantLiquid = l.lnPhi <= v.lnPhi;
+        }
+    }
+    double Z;
+    Phase label;
+    if (r.two) {
+        Z = wantLiquid ? r.liquid : r.vapor;
+        label = wantLiquid ? Phase::Liquid : Phase::Vapor;
+        const double Zo = wantLiquid ? r.vapor : r.liquid;
+        const RootEval e = evalRoot(T, P, Z, al, true);
+        const RootEval o = evalRoot(T, P, Zo, al, false);
+        if (e.lnPhi > o.lnPhi + 1e-9) warn |= WarnMetastable;
+        return fluidState(T, P, e, label, wantLiquid ? kSrcLiquid : kSrcVapor, warn);
+    }
+    Z = r.liquid;
+    const bool liquidLike = r.singleIsLiquidLike || P >= Pc_;
+    label = liquidLike ? Phase::Liquid : Phase::Vapor;
+    if (liquidLike != wantLiquid && phase != Phase::Supercritical) warn |= WarnCubicFallback;
+    const RootEval e = evalRoot(T, P, Z, al, true);
+    return fluidState(T, P, e, label, liquidLike ? kSrcLiquid : kSrcVapor, warn);
+}
+
+std::optional<PengRobinsonModel::GibbsV> PengRobinsonModel::vaporGibbs(double T, double P) const {
+    const AlphaTerm al = alpha(T);
+    const Roots r = roots(T, P, al);
+    if (r.single && r.singleIsLiquidLike && T < Tc_) return std::nullopt;
+    const RootEval e = evalRoot(T, P, r.vapor, al, false);
+    const double h = cp0_.enthalpy(T) + (e.hRes - P * shift_) / M_ + hOff_;
+    const double s = cp0_.entropy(T) - kR / M_ * std::log(P / kP0) + e.sRes / M_ + sOff_;
+    return GibbsV{h - T * s, (e.vm - shift_) / M_, h};
+}
+
+// The solid. Its temperature dependence is the solid cp integrated from the
+// melting anchor, where it lies below the liquid by the enthalpy of fusion:
+//   h_s0(T) = h_l(Tm,Pm) - Δh_fus + ∫_Tm^T cp_s dT,
+//   s_s0(T) = s_l(Tm,Pm) - Δh_fus/Tm + ∫_Tm^T cp_s/T dT.
+// Its pressure dependence is taken from the PR liquid at Tm:
+//   h_s(T,P) = h_s0(T) + [h_l(Tm,P) - h_l(Tm,Pm)],  s_s likewise.
+// Then g_s(Tm,P) = g_l(Tm,P) at every P, so the melting temperature is
+// exactly pressure-independent and melting is exactly reversible
+// (Δs = Δh/Tm) at any pressure; the implied solid volume is
+//   v_s = ∂g_s/∂P = v_l(Tm,P) + (T - Tm) (∂v_l/∂T)_P at Tm.
+// The price is that the solid's density is the liquid's (documented, and
+// states far from the anchor pressure carry WarnMeltingLineApprox).
+Result<State> PengRobinsonModel::solidState(double T, double P) const {
+    if (!hasMelting_)
+        return makeError(who() + " has no melting data in the library; the real-fluid model needs it for a solid");
+    if (!hasSolid_)
+        return makeError(who() + " has no solid heat capacity (cp.solid) in the library; the real-fluid model needs it for a solid");
+    const AlphaTerm al = alpha(Tm_);
+    const Roots r = roots(Tm_, P, al);
+    std::uint32_t warn = WarnNone;
+    if (r.single && !r.singleIsLiquidLike) warn |= WarnCubicFallback;
+    const RootEval e = evalRoot(Tm_, P, r.liquid, al, true);
+    const double hl = cp0_.enthalpy(Tm_) + (e.hRes - P * shift_) / M_ + hOff_;
+    const double sl = cp0_.entropy(Tm_) - kR / M_ * std::log(P / kP0) + e.sRes / M_ + sOff_;
+    const double vl = (e.vm - shift_) / M_;
+    const double dvdT = -(e.dPdT / e.dPdv) / M_;  // (∂v/∂T)_P per kg
+    State s;
+    s.T = T;
+    s.P = P;
+    s.phase = Phase::Solid;
+    s.h = hLm_ - dhFus_ + (cpS_.enthalpy(T) - cpS_.enthalpy(Tm_)) + (hl - hLm_);
+    s.s = sLm_ - dhFus_ / Tm_ + (cpS_.entropy(T) - cpS_.entropy(Tm_)) + (sl - sLm_);
+    s.v = vl + (T - Tm_) * dvdT;
+    s.u = s.h - s.P * s.v;
+    s.cp = cpS_.cp(T);
+    s.source = kSrcSolid;
+    s.warnings = warn;
+    if (T < Tmin_) s.warnings |= WarnBelowTemperatureRange;
+    if (T > Tm_ + 1e-9) s.warnings |= WarnMetastable;
+    if (P > maxPressure()) s.warnings |= WarnAbovePressureRange;
+    if (!cpS_.inRange(T)) s.warnings |= WarnCpExtrapolated;
+    if (std::abs(P - Pm_) > kMeltingFlagPressure) s.warnings |= WarnMeltingLineApprox;
+    return s;
+}
+
+Result<PengRobinsonModel::GibbsV> PengRobinsonModel::solidGibbs(double T, double P) const {
+    auto s = solidState(T, P);
+    if (!s) return s.error();
+    return GibbsV{s->h - T * s->s, s->v, s->h};
+}
+
+Result<Phase> PengRobinsonModel::stablePhase(double T, double P) const {
+    if (!(T > 0) || !(P > 0)) return makeError("the real-fluid model needs T > 0 and P > 0");
+    if (hasSolid_ && T <= Tm_) {
+        // Below the melting temperature the model's liquid is never stable:
+        // solid or vapour, whichever has the lower Gibbs energy.
+        const auto gv = vaporGibbs(T, P);
+        if (!gv) return Phase::Solid;
+        const auto gs = solidGibbs(T, P);
+        if (!gs) return gs.error();
+        return gs->g <= gv->g ? Phase::Solid : Phase::Vapor;
+    }
+    if (T >= Tc_) return P >= Pc_ ? Phase::Supercritical : Phase::Vapor;
+    const AlphaTerm al = alpha(T);
+    const Roots r = roots(T, P, al);
+    if (r.two) {
+        const RootEval l = evalRoot(T, P, r.liquid, al, false);
+        const RootEval v = evalRoot(T, P, r.vapor, al, false);
+        return l.lnPhi <= v.lnPhi ? Phase::Liquid : Phase::Vapor;
+    }
+    return (r.singleIsLiquidLike || P >= Pc_) ? Phase::Liquid : Phase::Vapor;
+}
+
+Result<State> PengRobinsonModel::stateTP(double T, double P) const {
+    auto ph = stablePhase(T, P);
+    if (!ph) return ph.error();
+    return phaseState(*ph, T, P);
+}
+
+// ---------------------------------------------------------------- lines
+
+Result<PengRobinsonModel::Saturation> PengRobinsonModel::saturation(double T, double pStart) const {
+    if (T > Tc_)
+        return makeError("no boiling above the critical temperature Tc = " + std::to_string(Tc_) + " K of " + who() +
+                         " (T = " + std::to_string(T) + " K)");
+    if (hasLowerLimit_ && T < Ttp_ * (1 - 1e-12))
+        return makeError("no liquid–vapour line below the triple-point temperature " + std::to_string(Ttp_) + " K of " +
+                         who() + " (T = " + std::to_string(T) + " K)");
+    const AlphaTerm al = alpha(T);
+    Saturation out;
+    if (Tc_ - T < 1e-7 * Tc_) {  // the two roots merge; the critical point of PR is (Tc, Pc) by construction
+        const Roots r = roots(T, Pc_, al);
+        out.P = Pc_;
+        out.liquid = evalRoot(T, Pc_, r.liquid, al, true);
+        out.vapor = evalRoot(T, Pc_, r.vapor, al, true);
+        return out;
+    }
+    // Start: Wilson's correlation (ln Pr = 5.373 (1 + ω)(1 - 1/Tr)), from memory.
+    double P = pStart > 0 ? pStart : Pc_ * std::exp(5.373 * (1.0 + omega_) * (1.0 - Tc_ / T));
+    P = std::min(P, Pc_ * 0.999999);
+    double lo = 0, hi = Pc_;  // bracket on P
+    // Equal fugacities: f(lnP) = lnφ_L - lnφ_V, with df/dlnP = Z_L - Z_V exactly.
+    for (int it = 0; it < 200; ++it) {
+        const Roots r = roots(T, P, al);
+        double next;
+        if (r.two) {
+            const RootEval l = evalRoot(T, P, r.liquid, al, false);
+            const RootEval v = evalRoot(T, P, r.vapor, al, false);
+            const double f = l.lnPhi - v.lnPhi;
+            if (f > 0) lo = P; else hi = P;
+            const double step = -f / (l.Z - v.Z);
+            next = P * std::exp(std::clamp(step, -2.0, 2.0));
+            if (std::abs(step) < 1e-12 || f == 0) {
+                out.P = P;
+                out.liquid = evalRoot(T, P, r.liquid, al, true);
+                out.vapor = evalRoot(T, P, r.vapor, al, true);
+                return out;
+            }
+        } else {
+            // One root: vapour-like means P is below the liquid spinodal (too low).
+            if (r.singleIsLiquidLike) hi = P; else lo = P;
+            next = -1;
+        }
+        if (!(next > lo && next < hi)) next = lo > 0 ? std::sqrt(lo * hi) : 0.1 * hi;
+        if (hi - lo < 1e-14 * hi) {  // bracket collapsed onto a merged-root region
+            next = 0.5 * (lo + hi);
+            const Roots rr = roots(T, next, al);
+            out.P = next;
+            out.liquid = evalRoot(T, next, rr.liquid, al, true);
+            out.vapor = evalRoot(T, next, rr.vapor, al, true);
+            return out;
+        }
+        P = next;
+    }
+    return makeError("the saturation pressure of " + who() + " at " + std::to_string(T) + " K did not converge");
+}
+
+Result<double> PengRobinsonModel::boilingTemperature(double P) const {
+    if (P > Pc_)
+        return makeError("no boiling above the critical pressure Pc = " + std::to_string(Pc_) + " Pa of " + who() +
+                         " (Tc = " + std::to_string(Tc_) + " K)");
+    if (P == Pc_) return Tc_;
+    if (hasLowerLimit_ && P < Ptp_)
+        return makeError("no boiling below the triple-point pressure " + std::to_string(Ptp_) + " Pa of " + who() +
+                         "; the solid sublimates instead");
+    double lo = hasLowerLimit_ ? Ttp_ : 0.2 * Tc_, hi = Tc_;
+    // Start: Wilson's correlation inverted.
+    double T = Tc_ / (1.0 - std::log(P / Pc_) / (5.373 * (1.0 + omega_)));
+    T = std::clamp(T, lo, hi * (1 - 1e-9));
+    double pGuess = P;
+    for (int it = 0; it < 100; ++it) {
+        auto sat = saturation(T, pGuess);
+        if (!sat) return sat.error();
+        const double g = std::log(sat->P / P);
+        if (std::abs(g) < 1e-12) return T;
+        if (g > 0) hi = T; else lo = T;
+        // Clapeyron: dlnPsat/dT = Δh/(R T^2 ΔZ).
+        const double dZ = sat->vapor.Z - sat->liquid.Z;
+        const double slope = (sat->vapor.hRes - sat->liquid.hRes) / (kR * T * T * dZ);
+        double next = (dZ > 0 && slope > 0) ? T - g / slope : -1;
+        if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+        if (std::abs(next - T) < 1e-12 * T) return next;
+        pGuess = sat->P;
+        T = next;
+    }
+    return makeError("the boiling temperature of " + who() + " at " + std::to_string(P) + " Pa did not converge");
+}
+
+// Sublimation by equal Gibbs energies of the PR vapour and the solid. This is
+// the exact integral of the Clapeyron equation with Δh_sub = h_v - h_s along
+// the model's own line, so s_v - s_s = Δh/T there.
+Result<double> PengRobinsonModel::sublimationPressure(double T) const {
+    if (!hasSolid_) return makeError(who() + " has no solid in the real-fluid model (needs melting data and cp.solid)");
+    if (T > Ttp_ * (1 + 1e-12))
+        return makeError("no sublimation above the triple-point temperature " + std::to_string(Ttp_) + " K of " + who());
+    if (T >= Ttp_) return Ptp_;
+    const double Rs = kR / M_;
+    // Start: Clausius–Clapeyron from the triple point with Δh_sub there.
+    auto gv0 = vaporGibbs(Ttp_, Ptp_);
+    auto gs0 = solidGibbs(Ttp_, Ptp_);
+    if (!gs0) return gs0.error();
+    const double dh = gv0 ? gv0->h - gs0->h : dhFus_;
+    double P = Ptp_ * std::exp(-dh / Rs * (1.0 / T - 1.0 / Ttp_));
+    double lo = 0, hi = Ptp_;
+    for (int it = 0; it < 200; ++it) {
+        P = std::clamp(P, 1e-300, Ptp_);
+        const auto gv = vaporGibbs(T, P);
+        double next = -1;
+        if (!gv) {
+            hi = P;
+        } else {
+            const auto gs = solidGibbs(T, P);
+            if (!gs) return gs.error();
+            const double f = (gv->g - gs->g) / (Rs * T);  // > 0: solid favoured, P too high
+            if (f > 0) hi = P; else lo = P;
+            const double df = P * (gv->v - gs->v) / (Rs * T);  // df/dlnP
+            const double step = -f / df;
+            if (std::abs(step) < 1e-12) return P;
+            next = P * std::exp(std::clamp(step, -5.0, 5.0));
+        }
+        if (!(next > lo && next < hi)) next = lo > 0 ? std::sqrt(lo * hi) : 1e-3 * hi;
+        if (hi - lo < 1e-14 * hi) return P;
+        P = next;
+    }
+    return makeError("the sublimation pressure of " + who() + " at " + std::to_string(T) + " K did not converge");
+}
+
+Result<double> PengRobinsonModel::sublimationTemperature(double P) const {
+    if (!hasSolid_) return makeError(who() + " has no solid in the real-fluid model (needs melting data and cp.solid)");
+    if (P > Ptp_ * (1 + 1e-12))
+        return makeError("no sublimation above the triple-point pressure " + std::to_string(Ptp_) + " Pa of " + who());
+    if (P >= Ptp_) return Ttp_;
+    const double Rs = kR / M_;
+    auto gv0 = vaporGibbs(Ttp_, Ptp_);
+    auto gs0 = solidGibbs(Ttp_, Ptp_);
+    if (!gs0) return gs0.error();
+    const double dh0 = gv0 ? gv0->h - gs0->h : dhFus_;
+    double T = 1.0 / (1.0 / Ttp_ - Rs / dh0 * std::log(P / Ptp_));
+    double lo = std::max(1.0, 0.05 * Ttp_), hi = Ttp_;
+    for (int it = 0; it < 200; ++it) {
+        T = std::clamp(T, lo, hi);
+        const auto gv = vaporGibbs(T, P);
+        double next = -1;
+        if (!gv) {
+            lo = T;  // no vapour root: too cold for vapour at this P
+        } else {
+            const auto gs = solidGibbs(T, P);
+            if (!gs) return gs.error();
+            const double f = (gv->g - gs->g) / (Rs * T);  // falls with T
+            if (f > 0) lo = T; else hi = T;
+            // d[(g_v - g_s)/(R T)]/dT = -(h_v - h_s)/(R T^2) (Gibbs–Helmholtz).
+            const double df = -(gv->h - gs->h) / (Rs * T * T);
+            if (df < 0) next = T - f / df;
+            if (df < 0 && std::abs(f / df) < 1e-12 * T) return next;
+        }
+        if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+        if (hi - lo < 1e-13 * hi) return T;
+        T = next;
+    }
+    return makeError("the sublimation temperature of " + who() + " at " + std::to_string(P) + " Pa did not converge");
+}
+
+Result<double> PengRobinsonModel::transitionTemperature(Transition t, double P) const {
+    if (!(P > 0)) return makeError("the real-fluid model needs P > 0");
+    switch (t) {
+        case Transition::Boiling: return boilingTemperature(P);
+        case Transition::Sublimation: return sublimationTemperature(P);
+        case Transition::Melting:
+            if (!hasSolid_) return makeError(who() + " has no solid in the real-fluid model (needs melting data and cp.solid)");
+            if (P < Ptp_ * (1 - 1e-12))
+                return makeError("no melting below the triple-point pressure " + std::to_string(Ptp_) + " Pa of " + who() +
+                                 "; the solid sublimates instead");
+            return Tm_;
+    }
+    return makeError("unknown transition");
+}
+
+Result<double> PengRobinsonModel::transitionPressure(Transition t, double T) const {
+    if (!(T > 0)) return makeError("the real-fluid model needs T > 0");
+    switch (t) {
+        case Transition::Boiling: {
+            auto s = saturation(T);
+            if (!s) return s.error();
+            return s->P;
+        }
+        case Transition::Sublimation: return sublimationPressure(T);
+        case Transition::Melting:
+            // The model's melting line is vertical at Tm; at Tm the anchor
+            // pressure stands for it.
+            if (!hasSolid_) return makeError(who() + " has no solid in the real-fluid model (needs melting data and cp.solid)");
+            if (std::abs(T - Tm_) > 1e-9 * Tm_)
+                return makeError("the model melts " + who() + " only at " + std::to_string(Tm_) +
+                                 " K (pressure-independent melting temperature)");
+            return Pm_;
+    }
+    return makeError("unknown transition");
+}
+
+TransitionsAtPressure PengRobinsonModel::transitionsAt(double P) const {
+    TransitionsAtPressure out;
+    auto add = [&](Transition k, double T) { out.entries[out.count++] = {k, T}; };
+    if (hasSolid_ && P < Ptp_) {
+        if (auto T = sublimationTemperature(P)) add(Transition::Sublimation, *T);
+        return out;
+    }
+    if (hasSolid_) add(Transition::Melting, Tm_);
+    if (P < Pc_ && (!hasLowerLimit_ || P >= Ptp_))
+        if (auto T = boilingTemperature(P)) add(Transition::Boiling, *T);
+    return out;
+}
+
+Result<State> PengRobinsonModel::stateOnLineP(Transition t, double P, double fraction) const {
+    if (!(fraction >= 0.0 && fraction <= 1.0)) return makeError("the phase fraction must lie between 0 and 1");
+    auto T = transitionTemperature(t, P);
+    if (!T) return T.error();
+    auto lo = phaseState(lowerPhase(t), *T, P);
+    if (!lo) return lo.error();
+    auto hi = phaseState(upperPhase(t), *T, P);
+    if (!hi) return hi.error();
+    return mix(*lo, *hi, t, fraction);
+}
+
+Result<State> PengRobinsonModel::stateOnLineT(Transition t, double T, double fraction) const {
+    if (!(fraction >= 0.0 && fraction <= 1.0)) return makeError("the phase fraction must lie between 0 and 1");
+    auto P = transitionPressure(t, T);
+    if (!P) return P.error();
+    auto lo = phaseState(lowerPhase(t), T, *P);
+    if (!lo) return lo.error();
+    auto hi = phaseState(upperPhase(t), T, *P);
+    if (!hi) return hi.error();
+    return mix(*lo, *hi, t, fraction);
+}
+
+// ---------------------------------------------------------------- (P, x)
+
+Result<State> PengRobinsonModel::solveInPhase(Phase ph, double P, Property which, double value, double Ta, double Tb,
+                                              const State& sa, const State& sb) const {
+    // Safeguarded Newton on T: for h and s the slope is cp and cp/T; for u
+    // and v a secant slope. The bracket [Ta, Tb] always holds the root.
+    double fa = propertyOf(sa, which) - value, fb = propertyOf(sb, which) - value;
+    if (fa == 0) return sa;
+    if (fb == 0) return sb;
+    double T = Ta - fa * (Tb - Ta) / (fb - fa);
+    double lastT = Ta, lastF = fa;
+    for (int it = 0; it < 100; ++it) {
+        if (!(T > Ta && T < Tb)) T = 0.5 * (Ta + Tb);
+        auto st = phaseState(ph, T, P);
+        if (!st) return st.error();
+        const double f = propertyOf(*st, which) - value;
+        if (f == 0 || (Tb - Ta) < 1e-12 * Tb) return *st;
+        if ((f < 0) == (fa < 0)) { Ta = T; fa = f; } else { Tb = T; fb = f; }
+        double slope = std::numeric_limits<double>::quiet_NaN();
+        if (which == Property::Enthalpy) slope = st->cp;
+        else if (which == Property::Entropy) slope = st->cp / T;
+        if (!(slope > 0) || !std::isfinite(slope)) slope = (f - lastF) / (T - lastT);
+        double next = T - f / slope;
+        if (std::abs(next - T) < 1e-11 * T) {
+            if (next > Ta && next < Tb) {
+                auto fin = phaseState(ph, next, P);
+                if (fin) return fin;
+            }
+            return *st;
+        }
+        // Halve the bracket when Newton leaves it or crawls.
+        if (!(next > Ta && next < Tb)) next = 0.5 * (Ta + Tb);
+        lastT = T;
+        lastF = f;
+        T = next;
+    }
+    return makeError("the real-fluid state at P = " + std::to_string(P) + " Pa did not converge");
+}
+
+Result<State> PengRobinsonModel::stateP(double P, Property which, double value) const {
+    if (!(P > 0) || !std::isfinite(value)) return makeError("the real-fluid model needs P > 0 and a finite value");
+    const TransitionsAtPressure tr = transitionsAt(P);
+    // The isobar as alternating single-phase segments and transitions, in
+    // rising temperature. Properties rise with T along it, so the first
+    // place where `value` fits is the answer.
+    double Ta = Tmin_;
+    Phase phA;
+    if (tr.count > 0) phA = lowerPhase(tr.entries[0].kind);
+    else {
+        auto p = stablePhase(Ta, P);
+        if (!p) return p.error();
+        phA = *p;
+    }
+    if (phA == Phase::Solid && !hasSolid_) phA = Phase::Liquid;
+    auto sa = phaseState(phA, Ta, P);
+    if (!sa) return sa.error();
+    if (propertyOf(*sa, which) > value)
+        return makeError("the value lies below the real-fluid model's range at " + std::to_string(P) +
+                         " Pa (lowest temperature " + std::to_string(Tmin_) + " K)");
+    for (int i = 0; i <= tr.count; ++i) {
+        const bool last = i == tr.count;
+        const double Tb = last ? Tmax_ : tr.entries[i].T;
+        if (Tb <= Ta) {  // segment empty (e.g. Tmin above a line)
+            if (last) break;
+        }
+        Phase ph = phA;
+        if (last && tr.count > 0) ph = upperPhase(tr.entries[tr.count - 1].kind);
+        if (last && P >= Pc_ && Tb >= Tc_ && ph != Phase::Solid) ph = Phase::Supercritical;
+        auto sb = phaseState(ph, Tb, P);
+        if (!sb) return sb.error();
+        if (Tb > Ta && propertyOf(*sb, which) >= value) {
+            auto s0 = phaseState(ph, Ta, P);
+            if (!s0) return s0.error();
+            return solveInPhase(ph, P, which, value, Ta, Tb, *s0, *sb);
+        }
+        if (last) break;
+        const Transition k = tr.entries[i].kind;
+        auto up = phaseState(upperPhase(k), Tb, P);
+        if (!up) return up.error();
+        const double lo = propertyOf(*sb, which), hi = propertyOf(*up, which);
+        if (value <= hi) {
+            if (!(hi > lo))
+                return makeError("the " + std::string(transitionLabel(k)) + " of " + who() +
+                                 " does not change this property in the real-fluid model; give another one");
+            return mix(*sb, *up, k, (value - lo) / (hi - lo));
+        }
+        Ta = Tb;
+        phA = upperPhase(k);
+    }
+    return makeError("the value lies above the real-fluid model's range at " + std::to_string(P) +
+                     " Pa (highest temperature " + std::to_string(Tmax_) + " K)");
+}
+
+// ---------------------------------------------------------------- text
+
+std::string PengRobinsonModel::rangeText() const {
+    return "Peng–Robinson real fluid for " + (sub_.name.empty() ? who() : sub_.name) + ": " + std::to_string(Tmin_) +
+           " K to " + std::to_string(Tmax_) + " K, up to " + std::to_string(maxPressure() / 1e6) +
+           " MPa; least accurate near the critical point and for liquid densities "
+           "(few percent) unless a volume shift is given";
+}
+
+std::string PengRobinsonModel::sourceText() const {
+    std::string s =
+        "D.-Y. Peng and D. B. Robinson, Ind. Eng. Chem. Fundam. 15 (1976) 59–64; "
+        "D. B. Robinson and D.-Y. Peng, GPA Research Report RR-28 (1978)";
+    if (twu_) s += "; C. H. Twu et al., Fluid Phase Equilib. 69 (1991) 33–50 (alpha function)";
+    if (shift_ != 0) s += "; A. Péneloux, E. Rauzy and R. Fréze, Fluid Phase Equilib. 8 (1982) 7–23 (volume translation)";
+    return s;
+}
+
+// ---------------------------------------------------------------- set-up
+
+Status PengRobinsonModel::init() {
+    const CriticalPoint& c = *sub_.critical;
+    Tc_ = c.T;
+    Pc_ = c.P;
+    omega_ = c.acentricFactor;
+    M_ = sub_.molarMass;
+    cp0_ = *sub_.cpVapor;
+    ac_ = criticalOmegas().a * kR * kR * Tc_ * Tc_ / Pc_;
+    b_ = criticalOmegas().b * kR * Tc_ / Pc_;
+    // kappa: Peng & Robinson (1976) eq. (13) for ω ≤ 0.491; Robinson & Peng
+    // (1978) polynomial above (coefficients from memory).
+    const double w = omega_;
+    kappa_ = w <= 0.491 ? 0.37464 + 1.54226 * w - 0.26992 * w * w
+                        : 0.379642 + 1.48503 * w - 0.164423 * w * w + 0.016666 * w * w * w;
+    if (sub_.pengRobinson) {
+        const auto& pr = *sub_.pengRobinson;
+        if (pr.twuL && pr.twuM && pr.twuN) {
+            twu_ = true;
+            twuL_ = *pr.twuL;
+            twuM_ = *pr.twuM;
+            twuN_ = *pr.twuN;
+        }
+        if (pr.volumeShift) shift_ = *pr.volumeShift;
+    }
+
+    hasMelting_ = sub_.melting.has_value() && sub_.melting->T > 0 && sub_.melting->T < Tc_;
+    hasSolid_ = hasMelting_ && sub_.cpSolid.has_value();
+    if (hasMelting_) {
+        Tm_ = sub_.melting->T;
+        Pm_ = sub_.melting->P > 0 ? sub_.melting->P : 101325.0;
+        dhFus_ = sub_.melting->enthalpy;
+        if (hasSolid_) cpS_ = *sub_.cpSolid;
+        hasLowerLimit_ = true;
+        Ttp_ = Tm_;
+    } else if (sub_.triple && sub_.triple->T > 0 && sub_.triple->T < Tc_) {
+        hasLowerLimit_ = true;
+        Ttp_ = sub_.triple->T;
+    }
+    Tmin_ = hasSolid_ ? std::max(cpS_.Tmin(), 0.5 * Tm_) : (hasLowerLimit_ ? Ttp_ : 0.3 * Tc_);
+    Tmax_ = std::isfinite(cp0_.Tmax()) ? std::max(cp0_.Tmax(), Tc_ * 1.05) : 3.0 * Tc_;
+    if (hasLowerLimit_) {
+        auto s = saturation(Ttp_);
+        if (!s) return s.error();
+        Ptp_ = s->P;
+    }
+
+    // Reference state: liquid at the melting anchor, else the saturated
+    // liquid at the normal boiling temperature, else at the triple point,
+    // else at 0.7 Tc; h = 0 and s = 0 there.
+    double T0, P0;
+    if (hasMelting_) {
+        T0 = Tm_;
+        P0 = Pm_;
+    } else {
+        T0 = (sub_.boiling && sub_.boiling->T > 0 && sub_.boiling->T < Tc_) ? sub_.boiling->T
+             : hasLowerLimit_                                                 ? Ttp_
+                                                                              : 0.7 * Tc_;
+        auto s = saturation(T0);
+        if (!s) return s.error();
+        P0 = s->P;
+    }
+    auto ref = phaseState(Phase::Liquid, T0, P0);
+    if (!ref) return ref.error();
+    if (ref->warnings & WarnCubicFallback)
+        return makeError("the Peng–Robinson cubic of " + who() + " has no liquid root at the reference point " +
+                         std::to_string(T0) + " K");
+    hOff_ = -ref->h;
+    sOff_ = -ref->s;
+    if (hasMelting_) {
+        hLm_ = 0;
+        sLm_ = 0;
+    }
+    return Ok{};
+}
+
+}  // namespace
+
+Result<std::shared_ptr<const PropertyModel>> makePengRobinsonModel(const Substance& substance) {
+    const std::string who = substance.id.empty() ? substance.name : substance.id;
+    if (!substance.critical)
+        return makeError(who + " has no critical point in the library; the real-fluid model needs it");
+    if (!(substance.critical->T > 0) || !(substance.critical->P > 0))
+        return makeError(who + " has a critical point without a positive temperature and pressure; the real-fluid model needs both");
+    if (!(substance.molarMass > 0))
+        return makeError(who + " has no molar mass in the library; the real-fluid model needs it");
+    if (!substance.cpVapor)
+        return makeError(who + " has no ideal-gas heat capacity (cp.vapor) in the library; the real-fluid model needs it");
+    if (substance.pengRobinson && (substance.pengRobinson->twuL || substance.pengRobinson->twuM ||
+                                   substance.pengRobinson->twuN) &&
+        !(substance.pengRobinson->twuL && substance.pengRobinson->twuM && substance.pengRobinson->twuN))
+        return makeError(who + " gives only some of the Twu alpha parameters L, M, N; the real-fluid model needs all three or none");
+    auto model = std::make_shared<PengRobinsonModel>(substance);
+    auto st = model->init();
+    if (!st) return st.error();
+    return std::shared_ptr<const PropertyModel>(std::move(model));
+}
+
+}  // namespace heatchain

@@ -1,0 +1,614 @@
+// Reading substance definitions: the library's JSON files (resources/
+// substances/<id>.json) and a project file's custom substance object share one
+// parser, so both spellings stay the same. Every error names its JSON path.
+#include "heatchain/substance.hpp"
+
+#include <algorithm>
+#include <array>
+#include <cmath>
+#include <initializer_list>
+#include <string>
+
+#include "heatchain/constants.hpp"
+#include "heatchain/embedded_resources.hpp"
+#include "heatchain/latent_heat.hpp"
+
+namespace heatchain {
+namespace {
+
+using Json = nlohmann::ordered_json;
+
+std::string join(std::string_view where, std::string_view key) {
+    if (where.empty()) return std::string(key);
+    return std::string(where) + "." + std::string(key);
+}
+std::string index(std::string_view where, std::size_t i) {
+    return std::string(where) + "[" + std::to_string(i) + "]";
+}
+
+// Free-text keys allowed in any object beside the ones it defines.
+bool isNoteKey(std::string_view k) { return k == "notes" || k == "note" || k == "comment"; }
+
+// Unknown keys are errors: a misspelt "enthalpy" would otherwise drop data silently.
+Status checkKeys(const Json& obj, std::string_view where, std::initializer_list<std::string_view> known) {
+    for (auto it = obj.begin(); it != obj.end(); ++it) {
+        const std::string& k = it.key();
+        if (isNoteKey(k)) continue;
+        if (std::find(known.begin(), known.end(), k) != known.end()) continue;
+        std::string list;
+        for (auto kk : known) list += (list.empty() ? "" : ", ") + std::string(kk);
+        return makeError("unknown field \"" + k + "\"; expected one of: " + list, join(where, k));
+    }
+    return Ok{};
+}
+
+Result<const Json*> objectAt(const Json& parent, std::string_view key, std::string_view where, bool required) {
+    auto it = parent.find(key);
+    if (it == parent.end()) {
+        if (required) return makeError("missing", join(where, key));
+        return static_cast<const Json*>(nullptr);
+    }
+    if (!it->is_object()) return makeError("must be an object", join(where, key));
+    return &*it;
+}
+
+Result<std::string> stringAt(const Json& parent, std::string_view key, std::string_view where, bool required) {
+    auto it = parent.find(key);
+    if (it == parent.end()) {
+        if (required) return makeError("missing", join(where, key));
+        return std::string();
+    }
+    if (!it->is_string()) return makeError("must be a string", join(where, key));
+    return it->get<std::string>();
+}
+
+// A quantity string "<number> <unit>", or a JSON number for dimensionless fields.
+Result<double> quantityOf(const Json& value, Dimension d, const std::string& path, const UnitContext& uc) {
+    if (value.is_number() && d == Dimension::Dimensionless) return value.get<double>();
+    if (!value.is_string()) {
+        if (value.is_number())
+            return makeError("a bare number needs a unit here: write it as \"<number> <unit>\" (a " +
+                                 std::string(dimensionName(d)) + ")",
+                             path);
+        return makeError("must be a quantity string \"<number> <unit>\" (a " + std::string(dimensionName(d)) + ")",
+                         path);
+    }
+    auto r = parseQuantity(value.get<std::string>(), d, uc);
+    if (!r) return makeError(r.error().message, path);
+    return *r;
+}
+
+Result<std::optional<double>> optionalQuantity(const Json& parent, std::string_view key, Dimension d,
+                                               std::string_view where, const UnitContext& uc) {
+    auto it = parent.find(key);
+    if (it == parent.end()) return std::optional<double>();
+    auto r = quantityOf(*it, d, join(where, key), uc);
+    if (!r) return r.error();
+    return std::optional<double>(*r);
+}
+
+Result<double> requiredQuantity(const Json& parent, std::string_view key, Dimension d, std::string_view where,
+                                const UnitContext& uc) {
+    auto it = parent.find(key);
+    if (it == parent.end()) return makeError("missing (a " + std::string(dimensionName(d)) + ")", join(where, key));
+    return quantityOf(*it, d, join(where, key), uc);
+}
+
+Result<double> positive(Result<double> r, const std::string& path) {
+    if (!r) return r;
+    if (!(*r > 0)) return makeError("must be positive", path);
+    return r;
+}
+
+Result<double> coefficientOf(const Json& value, const std::string& path) {
+    if (!value.is_number()) return makeError("must be a number", path);
+    const double x = value.get<double>();
+    if (!std::isfinite(x)) return makeError("must be a finite number", path);
+    return x;
+}
+
+// A heat capacity as a quantity: per kilogram, or per mole and divided by M.
+Result<double> heatCapacityOf(const Json& value, const std::string& path, double M, const UnitContext& uc) {
+    if (value.is_string()) {
+        auto perMass = parseQuantity(value.get<std::string>(), Dimension::SpecificEntropy, uc);
+        if (perMass) return positive(*perMass, path);
+        auto perMole = parseQuantity(value.get<std::string>(), Dimension::MolarEntropy, uc);
+        if (perMole) return positive(*perMole / M, path);
+        return makeError(perMass.error().message + " (a heat capacity per kilogram, e.g. \"4.18 kJ/(kg K)\", or per "
+                                                    "mole, e.g. \"75.3 J/(mol K)\")",
+                         path);
+    }
+    return quantityOf(value, Dimension::SpecificEntropy, path, uc);
+}
+
+// Factor from a polynomial's declared unit to J/(kg K).
+Result<double> cpUnitFactor(const Json& parent, std::string_view where, double M, const UnitContext& uc) {
+    auto unit = stringAt(parent, "unit", where, true);
+    if (!unit) return unit.error();
+    if (auto f = toSI(1.0, *unit, Dimension::SpecificEntropy, uc)) return *f;
+    if (auto f = toSI(1.0, *unit, Dimension::MolarEntropy, uc)) return *f / M;
+    return makeError("unknown heat-capacity unit \"" + *unit +
+                         "\"; valid: J/(kmol K), J/(mol K), J/(kg K), kJ/(kg K)",
+                     join(where, "unit"));
+}
+
+Result<double> temperatureAt(const Json& parent, std::string_view key, std::string_view where, const UnitContext& uc) {
+    return requiredQuantity(parent, key, Dimension::Temperature, where, uc);
+}
+
+Result<HeatCapacity> parseTable(const Json& cp, const std::string& path, double M, const UnitContext& uc) {
+    if (auto ok = checkKeys(cp, path, {"T", "cp", "degree"}); !ok) return ok.error();
+    auto Ts = cp.find("T");
+    auto cs = cp.find("cp");
+    if (Ts == cp.end() || !Ts->is_array()) return makeError("missing or not an array of temperatures", join(path, "T"));
+    if (cs == cp.end() || !cs->is_array()) return makeError("missing or not an array of heat capacities", join(path, "cp"));
+    if (Ts->size() != cs->size())
+        return makeError("has " + std::to_string(cs->size()) + " values but T has " + std::to_string(Ts->size()),
+                         join(path, "cp"));
+    if (Ts->empty()) return makeError("the table is empty", join(path, "T"));
+    std::vector<double> T, c;
+    for (std::size_t i = 0; i < Ts->size(); ++i) {
+        auto t = quantityOf((*Ts)[i], Dimension::Temperature, index(join(path, "T"), i), uc);
+        if (!t) return t.error();
+        if (!(*t > 0)) return makeError("must be above absolute zero", index(join(path, "T"), i));
+        auto v = heatCapacityOf((*cs)[i], index(join(path, "cp"), i), M, uc);
+        if (!v) return v.error();
+        T.push_back(*t);
+        c.push_back(*v);
+    }
+    int degree = 2;
+    if (auto d = cp.find("degree"); d != cp.end()) {
+        if (!d->is_number_integer() || d->get<int>() < 0 || d->get<int>() > 4)
+            return makeError("must be an integer from 0 to 4", join(path, "degree"));
+        degree = d->get<int>();
+    }
+    auto hc = HeatCapacity::fitTable(T, c, degree);
+    if (!hc) return makeError(hc.error().message, path);
+    return hc;
+}
+
+Result<HeatCapacity> parseCorrelation(const Json& cp, const std::string& path, double M, const UnitContext& uc) {
+    auto form = stringAt(cp, "form", path, true);
+    if (!form) return form.error();
+    const bool shomate = *form == "shomate";
+    if (!shomate && *form != "polynomial")
+        return makeError("unknown form \"" + *form + "\"; valid: shomate, polynomial", join(path, "form"));
+
+    std::vector<HeatCapacity::Piece> pieces;
+    if (shomate) {
+        // NIST WebBook / NIST-JANAF convention: J/(mol K), t = T / 1000 K.
+        if (auto ok = checkKeys(cp, path, {"form", "pieces"}); !ok) return ok.error();
+        auto ps = cp.find("pieces");
+        if (ps == cp.end() || !ps->is_array() || ps->empty())
+            return makeError("missing or not a non-empty array", join(path, "pieces"));
+        for (std::size_t i = 0; i < ps->size(); ++i) {
+            const std::string pp = index(join(path, "pieces"), i);
+            const Json& pj = (*ps)[i];
+            if (!pj.is_object()) return makeError("must be an object", pp);
+            if (auto ok = checkKeys(pj, pp, {"Tmin", "Tmax", "A", "B", "C", "D", "E"}); !ok) return ok.error();
+            HeatCapacity::Piece p;
+            p.form = HeatCapacity::Form::Shomate;
+            auto lo = temperatureAt(pj, "Tmin", pp, uc);
+            if (!lo) return lo.error();
+            auto hi = temperatureAt(pj, "Tmax", pp, uc);
+            if (!hi) return hi.error();
+            p.Tmin = *lo;
+            p.Tmax = *hi;
+            for (const char* k : {"A", "B", "C", "D", "E"}) {
+                auto it = pj.find(k);
+                if (it == pj.end()) return makeError("missing", join(pp, k));
+                auto x = coefficientOf(*it, join(pp, k));
+                if (!x) return x.error();
+                p.c.push_back(*x / M);
+            }
+            pieces.push_back(std::move(p));
+        }
+    } else {
+        // Powers of T in kelvin; one piece inline or several under "pieces".
+        if (auto ok = checkKeys(cp, path, {"form", "unit", "Tmin", "Tmax", "coefficients", "pieces"}); !ok)
+            return ok.error();
+        auto factor = cpUnitFactor(cp, path, M, uc);
+        if (!factor) return factor.error();
+        auto readPiece = [&](const Json& pj, const std::string& pp) -> Result<HeatCapacity::Piece> {
+            HeatCapacity::Piece p;
+            p.form = HeatCapacity::Form::Polynomial;
+            auto lo = temperatureAt(pj, "Tmin", pp, uc);
+            if (!lo) return lo.error();
+            auto hi = temperatureAt(pj, "Tmax", pp, uc);
+            if (!hi) return hi.error();
+            p.Tmin = *lo;
+            p.Tmax = *hi;
+            auto cs = pj.find("coefficients");
+            if (cs == pj.end() || !cs->is_array() || cs->empty())
+                return makeError("missing or not a non-empty array of numbers", join(pp, "coefficients"));
+            for (std::size_t k = 0; k < cs->size(); ++k) {
+                auto x = coefficientOf((*cs)[k], index(join(pp, "coefficients"), k));
+                if (!x) return x.error();
+                p.c.push_back(*x * *factor);
+            }
+            return p;
+        };
+        if (auto ps = cp.find("pieces"); ps != cp.end()) {
+            if (cp.contains("coefficients"))
+                return makeError("give either coefficients or pieces, not both", join(path, "coefficients"));
+            if (!ps->is_array() || ps->empty()) return makeError("must be a non-empty array", join(path, "pieces"));
+            for (std::size_t i = 0; i < ps->size(); ++i) {
+                const std::string pp = index(join(path, "pieces"), i);
+                if (!(*ps)[i].is_object()) return makeError("must be an object", pp);
+                if (auto ok = checkKeys((*ps)[i], pp, {"Tmin", "Tmax", "coefficients"}); !ok) return ok.error();
+                auto p = readPiece((*ps)[i], pp);
+                if (!p) return p.error();
+                pieces.push_back(std::move(*p));
+            }
+        } else {
+            auto p = readPiece(cp, path);
+            if (!p) return p.error();
+            pieces.push_back(std::move(*p));
+        }
+    }
+    auto hc = HeatCapacity::fromPieces(std::move(pieces));
+    if (!hc) {
+        // fromPieces names "pieces[i]"; put it under this cp's path.
+        const auto& e = hc.error();
+        return makeError(e.message, e.where.empty() ? path : join(path, e.where));
+    }
+    return hc;
+}
+
+Result<HeatCapacity> parseHeatCapacity(const Json& cp, const std::string& path, double M, const UnitContext& uc) {
+    if (cp.is_string()) {
+        auto v = heatCapacityOf(cp, path, M, uc);
+        if (!v) return v.error();
+        return HeatCapacity::constant(*v);
+    }
+    if (!cp.is_object())
+        return makeError("must be a quantity (\"1.04 kJ/(kg K)\"), a table {\"T\": [...], \"cp\": [...]}, or a "
+                         "correlation {\"form\": \"shomate\" | \"polynomial\", ...}",
+                         path);
+    if (cp.contains("form")) return parseCorrelation(cp, path, M, uc);
+    return parseTable(cp, path, M, uc);
+}
+
+void addSource(Substance& s, const Json& block, std::string_view field, std::string_view where, Status& st) {
+    auto src = stringAt(block, "source", where, false);
+    if (!src) {
+        st = src.error();
+        return;
+    }
+    if (!src->empty()) s.sources.push_back({std::string(field), *src});
+}
+
+Result<PhaseChangeData> parsePhaseChange(const Json& block, const std::string& path, bool allowEnthalpyAt,
+                                         const std::optional<CriticalPoint>& critical, const UnitContext& uc) {
+    if (allowEnthalpyAt) {
+        if (auto ok = checkKeys(block, path, {"T", "P", "enthalpy", "enthalpyAt", "source"}); !ok) return ok.error();
+    } else if (auto ok = checkKeys(block, path, {"T", "P", "enthalpy", "source"}); !ok) {
+        return ok.error();
+    }
+    PhaseChangeData d;
+    auto T = positive(temperatureAt(block, "T", path, uc), join(path, "T"));
+    if (!T) return T.error();
+    d.T = *T;
+    auto P = optionalQuantity(block, "P", Dimension::Pressure, path, uc);
+    if (!P) return P.error();
+    d.P = P->value_or(kStandardAtmosphere);
+    if (!(d.P > 0)) return makeError("must be positive", join(path, "P"));
+    auto h = positive(requiredQuantity(block, "enthalpy", Dimension::SpecificEnergy, path, uc), join(path, "enthalpy"));
+    if (!h) return h.error();
+    d.enthalpy = *h;
+    if (block.contains("enthalpyAt")) {
+        // The latent heat was measured at another temperature: carry it to the
+        // anchor by the Watson relation (latent_heat.hpp).
+        auto T1 = positive(temperatureAt(block, "enthalpyAt", path, uc), join(path, "enthalpyAt"));
+        if (!T1) return T1.error();
+        if (!critical)
+            return makeError("converting the latent heat to the anchor temperature needs the critical temperature "
+                             "(critical block)",
+                             join(path, "enthalpyAt"));
+        if (!(*T1 < critical->T) || !(d.T < critical->T))
+            return makeError("both temperatures must lie below the critical temperature", join(path, "enthalpyAt"));
+        d.enthalpy = watsonLatentHeat(d.enthalpy, *T1, d.T, critical->T);
+    }
+    return d;
+}
+
+// Library molar volumes ("-3.6e-6 m3/mol"): the volume and amount units are
+// converted by units.cpp separately, as there is no molar-volume dimension.
+Result<double> molarVolumeOf(const Json& value, const std::string& path, const UnitContext& uc) {
+    if (!value.is_string()) return makeError("must be a quantity string such as \"-3.6e-6 m3/mol\"", path);
+    const std::string text = value.get<std::string>();
+    const auto slash = text.rfind('/');
+    if (slash == std::string::npos) return makeError("needs a volume per amount unit, e.g. m3/mol or cm3/mol", path);
+    std::string volumeText = text.substr(0, slash);
+    const std::string amountUnit = text.substr(slash + 1);
+    // "cm3" is not a volume unit of units.cpp; it is 1e-6 m3 exactly (SI prefix).
+    double scale = 1.0;
+    if (auto pos = volumeText.rfind("cm3"); pos != std::string::npos && pos + 3 == volumeText.size()) {
+        volumeText.replace(pos, 3, "m3");
+        scale = 1e-6;
+    }
+    auto vol = parseQuantity(volumeText, Dimension::Volume, uc);
+    if (!vol) return makeError(vol.error().message + " (a molar volume, e.g. \"-3.6e-6 m3/mol\")", path);
+    auto amount = toSI(1.0, amountUnit, Dimension::Amount, uc);
+    if (!amount) return makeError("unknown amount unit \"" + amountUnit + "\"; valid: mol, kmol", path);
+    return *vol * scale / *amount;
+}
+
+Result<Substance> parseImpl(const Json& j, std::string_view where, const UnitContext& uc) {
+    if (!j.is_object()) return makeError("a substance must be a JSON object", std::string(where));
+    if (auto ok = checkKeys(j, where,
+                            {"id", "name", "formula", "cas", "molarMass", "critical", "triple", "melting", "boiling",
+                             "sublimation", "phases", "pengRobinson", "source"});
+        !ok)
+        return ok.error();
+    Substance s;
+    s.custom = true;  // the library loader marks its own substances
+    Status st = Ok{};
+
+    auto id = stringAt(j, "id", where, true);
+    if (!id) return id.error();
+    if (id->empty() || !std::all_of(id->begin(), id->end(), [](char c) {
+            return (c >= 'a' && c <= 'z') || (c >= '0' && c <= '9') || c == '-';
+        }))
+        return makeError("\"" + *id + "\" is not a valid id: use lower-case letters, digits and hyphens (\"n-hexane\")",
+                         join(where, "id"));
+    s.id = *id;
+    auto name = stringAt(j, "name", where, true);
+    if (!name) return name.error();
+    if (name->empty()) return makeError("must not be empty", join(where, "name"));
+    s.name = *name;
+    auto formula = stringAt(j, "formula", where, false);
+    if (!formula) return formula.error();
+    s.formula = *formula;
+    auto cas = stringAt(j, "cas", where, false);
+    if (!cas) return cas.error();
+    s.casNumber = *cas;
+    addSource(s, j, "substance", where, st);
+    if (!st) return st.error();
+
+    // Molar mass: "28.0134 g/mol" or { "value": ..., "source": ... }.
+    {
+        auto it = j.find("molarMass");
+        const std::string path = join(where, "molarMass");
+        if (it == j.end()) return makeError("missing (a molar mass such as \"18.015 g/mol\")", path);
+        Result<double> M = makeError("", path);
+        if (it->is_object()) {
+            if (auto ok = checkKeys(*it, path, {"value", "source"}); !ok) return ok.error();
+            auto v = it->find("value");
+            if (v == it->end()) return makeError("missing", join(path, "value"));
+            M = positive(quantityOf(*v, Dimension::MolarMass, join(path, "value"), uc), join(path, "value"));
+            addSource(s, *it, "molarMass", path, st);
+            if (!st) return st.error();
+        } else {
+            M = positive(quantityOf(*it, Dimension::MolarMass, path, uc), path);
+        }
+        if (!M) return M.error();
+        s.molarMass = *M;
+    }
+
+    if (auto c = objectAt(j, "critical", where, false); !c) {
+        return c.error();
+    } else if (*c) {
+        const Json& b = **c;
+        const std::string path = join(where, "critical");
+        if (auto ok = checkKeys(b, path, {"T", "P", "acentricFactor", "rho", "source"}); !ok) return ok.error();
+        CriticalPoint cp;
+        auto T = positive(temperatureAt(b, "T", path, uc), join(path, "T"));
+        if (!T) return T.error();
+        auto P = positive(requiredQuantity(b, "P", Dimension::Pressure, path, uc), join(path, "P"));
+        if (!P) return P.error();
+        cp.T = *T;
+        cp.P = *P;
+        auto w = optionalQuantity(b, "acentricFactor", Dimension::Dimensionless, path, uc);
+        if (!w) return w.error();
+        cp.acentricFactor = w->value_or(0.0);
+        auto rho = optionalQuantity(b, "rho", Dimension::Density, path, uc);
+        if (!rho) return rho.error();
+        if (*rho && !(**rho > 0)) return makeError("must be positive", join(path, "rho"));
+        cp.rho = *rho;
+        s.critical = cp;
+        addSource(s, b, "critical", path, st);
+        if (!st) return st.error();
+    }
+
+    if (auto c = objectAt(j, "triple", where, false); !c) {
+        return c.error();
+    } else if (*c) {
+        const Json& b = **c;
+        const std::string path = join(where, "triple");
+        if (auto ok = checkKeys(b, path, {"T", "P", "source"}); !ok) return ok.error();
+        auto T = positive(temperatureAt(b, "T", path, uc), join(path, "T"));
+        if (!T) return T.error();
+        auto P = positive(requiredQuantity(b, "P", Dimension::Pressure, path, uc), join(path, "P"));
+        if (!P) return P.error();
+        s.triple = TriplePoint{*T, *P};
+        addSource(s, b, "triple", path, st);
+        if (!st) return st.error();
+    }
+
+    struct ChangeBlock {
+        const char* key;
+        std::optional<PhaseChangeData>* target;
+        bool enthalpyAt;
+    };
+    for (const ChangeBlock& cb : {ChangeBlock{"melting", &s.melting, false}, ChangeBlock{"boiling", &s.boiling, true},
+                                  ChangeBlock{"sublimation", &s.sublimation, false}}) {
+        auto c = objectAt(j, cb.key, where, false);
+        if (!c) return c.error();
+        if (!*c) continue;
+        const std::string path = join(where, cb.key);
+        auto d = parsePhaseChange(**c, path, cb.enthalpyAt, s.critical, uc);
+        if (!d) return d.error();
+        *cb.target = *d;
+        addSource(s, **c, cb.key, path, st);
+        if (!st) return st.error();
+    }
+
+    if (auto c = objectAt(j, "phases", where, false); !c) {
+        return c.error();
+    } else if (*c) {
+        const Json& phases = **c;
+        const std::string path = join(where, "phases");
+        if (auto ok = checkKeys(phases, path, {"solid", "liquid", "vapor"}); !ok) return ok.error();
+        struct PhaseBlock {
+            const char* key;
+            std::optional<HeatCapacity>* cp;
+            std::optional<double>* density;
+        };
+        for (const PhaseBlock& pb : {PhaseBlock{"solid", &s.cpSolid, &s.solidDensity},
+                                     PhaseBlock{"liquid", &s.cpLiquid, &s.liquidDensity},
+                                     PhaseBlock{"vapor", &s.cpVapor, nullptr}}) {
+            auto b = objectAt(phases, pb.key, path, false);
+            if (!b) return b.error();
+            if (!*b) continue;
+            const std::string pp = join(path, pb.key);
+            if (pb.density) {
+                if (auto ok = checkKeys(**b, pp, {"cp", "density", "source"}); !ok) return ok.error();
+            } else if (auto ok = checkKeys(**b, pp, {"cp", "source"}); !ok) {
+                return ok.error();
+            }
+            if (auto cpj = (*b)->find("cp"); cpj != (*b)->end()) {
+                auto hc = parseHeatCapacity(*cpj, join(pp, "cp"), s.molarMass, uc);
+                if (!hc) return hc.error();
+                *pb.cp = std::move(*hc);
+            }
+            if (pb.density) {
+                auto rho = optionalQuantity(**b, "density", Dimension::Density, pp, uc);
+                if (!rho) return rho.error();
+                if (*rho && !(**rho > 0)) return makeError("must be positive", join(pp, "density"));
+                *pb.density = *rho;
+            }
+            addSource(s, **b, "phases." + std::string(pb.key), pp, st);
+            if (!st) return st.error();
+        }
+    }
+
+    if (auto c = objectAt(j, "pengRobinson", where, false); !c) {
+        return c.error();
+    } else if (*c) {
+        const Json& b = **c;
+        const std::string path = join(where, "pengRobinson");
+        if (auto ok = checkKeys(b, path, {"twu", "volumeShift", "source"}); !ok) return ok.error();
+        PengRobinsonData pr;
+        auto twu = objectAt(b, "twu", path, false);
+        if (!twu) return twu.error();
+        if (*twu) {
+            const std::string tp = join(path, "twu");
+            if (auto ok = checkKeys(**twu, tp, {"L", "M", "N"}); !ok) return ok.error();
+            std::optional<double>* out[3] = {&pr.twuL, &pr.twuM, &pr.twuN};
+            const char* keys[3] = {"L", "M", "N"};
+            for (int i = 0; i < 3; ++i) {
+                auto it = (*twu)->find(keys[i]);
+                if (it == (*twu)->end()) return makeError("missing (Twu alpha needs L, M and N)", join(tp, keys[i]));
+                auto x = coefficientOf(*it, join(tp, keys[i]));
+                if (!x) return x.error();
+                *out[i] = *x;
+            }
+        }
+        if (auto it = b.find("volumeShift"); it != b.end()) {
+            auto c2 = molarVolumeOf(*it, join(path, "volumeShift"), uc);
+            if (!c2) return c2.error();
+            pr.volumeShift = *c2;
+        }
+        s.pengRobinson = pr;
+        addSource(s, b, "pengRobinson", path, st);
+        if (!st) return st.error();
+    }
+
+    // Cross-checks between blocks that a typing slip would break.
+    if (s.melting && s.boiling && !(s.melting->T < s.boiling->T))
+        return makeError("the melting temperature must lie below the boiling temperature", join(where, "boiling.T"));
+    if (s.critical && s.boiling && !(s.boiling->T < s.critical->T))
+        return makeError("the boiling temperature must lie below the critical temperature", join(where, "boiling.T"));
+    return s;
+}
+
+// Line and column of a byte offset, for JSON syntax errors.
+void locate(std::string_view text, std::size_t byte, int& line, int& column) {
+    line = 1;
+    column = 1;
+    for (std::size_t i = 0; i < byte && i < text.size(); ++i) {
+        if (text[i] == '\n') {
+            ++line;
+            column = 1;
+        } else {
+            ++column;
+        }
+    }
+}
+
+Result<Substance> parseText(std::string_view text, const std::string& name) {
+    Json j;
+    try {
+        j = Json::parse(text);
+    } catch (const Json::parse_error& e) {
+        Error err = makeError("not valid JSON: " + std::string(e.what()), name);
+        locate(text, e.byte > 0 ? e.byte - 1 : 0, err.line, err.column);
+        return err;
+    }
+    std::string where = name;
+    if (j.is_object())
+        if (auto it = j.find("id"); it != j.end() && it->is_string()) where = it->get<std::string>();
+    auto s = parseImpl(j, where, UnitContext{});
+    if (!s) return s;
+    s->custom = false;
+    return s;
+}
+
+}  // namespace
+
+double Substance::gasConstant() const { return kGasConstant / molarMass; }
+
+Result<Substance> parseSubstance(const nlohmann::ordered_json& j, std::string_view where, const UnitContext& context) {
+    // Nothing may escape core: nlohmann throws on a few type mismatches that the
+    // checks above are meant to prevent; a slip there still becomes an error value.
+    try {
+        return parseImpl(j, where, context);
+    } catch (const std::exception& e) {
+        return makeError(std::string("cannot read the substance: ") + e.what(), std::string(where));
+    }
+}
+
+Result<SubstanceLibrary> SubstanceLibrary::fromJsonTexts(std::span<const std::string_view> texts) {
+    SubstanceLibrary lib;
+    for (std::size_t i = 0; i < texts.size(); ++i) {
+        Result<Substance> s = makeError("");
+        try {
+            s = parseText(texts[i], "texts[" + std::to_string(i) + "]");
+        } catch (const std::exception& e) {
+            return makeError(std::string("cannot read the substance: ") + e.what(), "texts[" + std::to_string(i) + "]");
+        }
+        if (!s) return s.error();
+        if (lib.find(s->id)) return makeError("the id \"" + s->id + "\" appears twice", s->id);
+        lib.substances_.push_back(std::move(*s));
+    }
+    return lib;
+}
+
+const SubstanceLibrary& SubstanceLibrary::builtin() {
+    static const SubstanceLibrary lib = [] {
+        SubstanceLibrary out;
+        for (const auto& f : resources::embeddedFiles()) {
+            if (!f.path.starts_with("substances/") || !f.path.ends_with(".json")) continue;
+            // A broken embedded file is a build defect that the tests report
+            // (substance_test.cpp); here it is left out rather than abort.
+            Result<Substance> s = makeError("");
+            try {
+                s = parseText(f.content, std::string(f.path));
+            } catch (const std::exception&) {
+                continue;
+            }
+            if (s && !out.find(s->id)) out.substances_.push_back(std::move(*s));
+        }
+        return out;
+    }();
+    return lib;
+}
+
+const Substance* SubstanceLibrary::find(std::string_view id) const {
+    for (const auto& s : substances_)
+        if (s.id == id) return &s;
+    return nullptr;
+}
+
+}  // namespace heatchain
