@@ -218,22 +218,35 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
         QPen pen(r.colour, r.step == selected_ ? 2.2 : 1.4, Qt::DashLine);
         p.setPen(pen);
         p.drawLine(a, b);
-        p.setPen(r.colour.darker(120));
-        p.drawText(QPointF(std::min(a.x(), b.x()) + 2, a.y() - 3),
-                   r.source ? QStringLiteral("source") : QStringLiteral("sink"));
+        // Words on every line would bury a long sheet: label the selected
+        // step's line, or all of them on a short sheet.
+        if (reservoirs_.size() <= 12 || r.step == selected_) {
+            p.setPen(r.colour.darker(120));
+            p.drawText(QPointF(std::min(a.x(), b.x()) + 2, a.y() - 3),
+                       r.source ? QStringLiteral("source") : QStringLiteral("sink"));
+        }
     }
 
     // Unselected steps first, the selected one on top with a halo.
     auto drawSeries = [&](const Series& s, bool selected) {
+        // Points closer than a pixel to the last one kept add nothing but
+        // stroking work (a 100-step sheet carries 6,400 points).
         QPolygonF line;
-        for (QPointF v : s.pts) line << f.map(v);
+        line.reserve(qsizetype(s.pts.size()));
+        for (std::size_t i = 0; i < s.pts.size(); ++i) {
+            const QPointF m = f.map(s.pts[i]);
+            if (!line.isEmpty() && i + 1 < s.pts.size() && (m - line.back()).manhattanLength() < 1.5)
+                continue;
+            line << m;
+        }
         if (selected) {
             p.setPen(QPen(QColor(255, 235, 150), 7, Qt::SolidLine, Qt::RoundCap, Qt::RoundJoin));
             p.drawPolyline(line);
         }
         QColor c = s.colour;
         if (selected_ >= 0 && !selected) c.setAlpha(150);
-        p.setPen(QPen(c, selected ? 3.0 : 1.8, Qt::SolidLine, Qt::RoundCap, Qt::RoundJoin));
+        // Bevel joins: round joins cost a trigonometric arc at every vertex.
+        p.setPen(QPen(c, selected ? 3.0 : 1.8, Qt::SolidLine, Qt::FlatCap, Qt::BevelJoin));
         p.drawPolyline(line);
     };
     for (const Series& s : series_)
@@ -241,11 +254,14 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
     for (const Series& s : series_)
         if (s.step == selected_) drawSeries(s, true);
 
-    // State points: the ends of each step.
+    // State points: the ends of each step (on long sheets only the selected
+    // step's, where dozens of dots would hide the paths).
     int lastStep = -2;
+    const bool allMarkers = series_.empty() || series_.back().step < 40;
     for (std::size_t k = 0; k < series_.size(); ++k) {
         const Series& s = series_[k];
         if (s.pts.empty()) continue;
+        if (!allMarkers && s.step != selected_) continue;
         const bool lastOfStep = k + 1 == series_.size() || series_[k + 1].step != s.step;
         if (s.step != lastStep) {
             p.setPen(QPen(ink::text(), 1));
