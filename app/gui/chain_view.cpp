@@ -571,7 +571,10 @@ void ChainView::resetZoom() {
 
 void ChainView::resizeEvent(QResizeEvent* e) {
     QGraphicsView::resizeEvent(e);
-    if (columns() != cols_) layoutCards();
+    if (columns() != cols_) {
+        layoutCards();
+        updateSelection();
+    }
 }
 
 }  // namespace heatchain::gui

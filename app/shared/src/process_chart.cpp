@@ -20,6 +20,17 @@ double niceTickStep(double span, int count) {
     return 10.0 * mag;
 }
 
+// Decimals a tick label needs to tell neighbouring ticks apart (2.5 → 1).
+static int decimalsFor(double tickStep) {
+    int d = 0;
+    double v = tickStep;
+    while (d < 6 && std::fabs(v - std::round(v)) > 1e-6 * std::max(1.0, std::fabs(v))) {
+        v *= 10;
+        ++d;
+    }
+    return d;
+}
+
 QPointF ProcessChart::Frame::map(QPointF v) const {
     const double fx = (v.x() - x0) / (x1 - x0);
     const double fy = (v.y() - y0) / (y1 - y0);
@@ -156,14 +167,15 @@ ProcessChart::Frame ProcessChart::frame(const QRectF& rect) const {
 void ProcessChart::drawAxes(QPainter& p, const Frame& f) const {
     const QFontMetricsF fm(p.font());
     const double xs = niceTickStep(f.x1 - f.x0, std::max(2, int(f.plot.width() / 90)));
-    const double ys = niceTickStep(f.y1 - f.y0, std::max(2, int(f.plot.height() / 40)));
+    const double ys = niceTickStep(f.y1 - f.y0, std::max(3, int(f.plot.height() / 34)));
     p.setPen(QPen(ink::grid(), 1));
     for (double x = std::ceil(f.x0 / xs) * xs; x <= f.x1 + 1e-9 * xs; x += xs) {
         const QPointF a = f.map({x, f.y0});
         p.setPen(QPen(ink::grid(), 1));
         p.drawLine(QPointF(a.x(), f.plot.top()), QPointF(a.x(), f.plot.bottom()));
         p.setPen(ink::muted());
-        const QString t = formatNumber(std::fabs(x) < xs * 1e-6 ? 0.0 : x, 6, 3);
+        const QString t = QString::number(std::fabs(x) < xs * 1e-6 ? 0.0 : x, 'f', decimalsFor(xs))
+                              .replace(QLatin1Char('-'), QChar(0x2212));
         p.drawText(QRectF(a.x() - 50, f.plot.bottom() + 3, 100, fm.height()), Qt::AlignHCenter, t);
     }
     for (double y = std::ceil(f.y0 / ys) * ys; y <= f.y1 + 1e-9 * ys; y += ys) {
@@ -171,7 +183,8 @@ void ProcessChart::drawAxes(QPainter& p, const Frame& f) const {
         p.setPen(QPen(ink::grid(), 1));
         p.drawLine(QPointF(f.plot.left(), a.y()), QPointF(f.plot.right(), a.y()));
         p.setPen(ink::muted());
-        const QString t = formatNumber(std::fabs(y) < ys * 1e-6 ? 0.0 : y, 6, 2);
+        const QString t = QString::number(std::fabs(y) < ys * 1e-6 ? 0.0 : y, 'f', decimalsFor(ys))
+                              .replace(QLatin1Char('-'), QChar(0x2212));
         p.drawText(QRectF(f.plot.left() - 60, a.y() - fm.height() / 2, 55, fm.height()),
                    Qt::AlignRight | Qt::AlignVCenter, t);
     }
@@ -210,7 +223,7 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
         const QPointF top = *std::max_element(poly.begin(), poly.end(),
                                               [](QPointF a, QPointF b) { return a.y() > b.y(); });
         p.setPen(ink::muted());
-        p.drawText(top + QPointF(6, -4), QStringLiteral("saturation"));
+        p.drawText(top + QPointF(8, 14), QStringLiteral("saturation"));
     }
 
     for (const ReservoirLine& r : reservoirs_) {
