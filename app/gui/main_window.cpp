@@ -143,7 +143,7 @@ void MainWindow::buildDocks() {
     auto* editorDock = new QDockWidget(tr("Step"), this);
     editorDock->setObjectName(QStringLiteral("stepDock"));
     editorDock->setWidget(editorScroll);
-    editorDock->setMinimumWidth(360);
+    editorDock->setMinimumWidth(430);
     addDockWidget(Qt::LeftDockWidgetArea, editorDock);
 
     ts_ = new ChartWidget(&doc_, ProcessChart::Kind::TemperatureEntropy, this);
@@ -172,7 +172,7 @@ void MainWindow::buildDocks() {
         msgDock->setWindowTitle(e + w == 0 ? tr("Messages") : tr("Messages — %1 error(s), %2 warning(s)").arg(e).arg(w));
     });
     resizeDocks({ledgerDock, msgDock}, {215, 64}, Qt::Vertical);
-    resizeDocks({editorDock, chartDock}, {370, 520}, Qt::Horizontal);
+    resizeDocks({editorDock, chartDock}, {440, 520}, Qt::Horizontal);
     viewMenu_ = new QMenu(tr("&View"), this);
     viewMenu_->addAction(editorDock->toggleViewAction());
     viewMenu_->addAction(chartDock->toggleViewAction());

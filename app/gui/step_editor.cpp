@@ -383,7 +383,7 @@ void StepEditor::refresh() {
             auto row = [&](const QString& name, const QString& a, const QString& b = {}) {
                 return QStringLiteral("<tr><td style='color:#555;padding-right:10px'>%1</td>"
                                       "<td align='right'>%2</td><td align='right' "
-                                      "style='padding-left:12px'>%3</td></tr>")
+                                      "style='padding-left:8px'>%3</td></tr>")
                     .arg(name, a, b);
             };
             html = QStringLiteral("<table cellspacing='0' cellpadding='1'>");
@@ -392,7 +392,9 @@ void StepEditor::refresh() {
                         formatWithUnit(sr.end.T, Dimension::Temperature, u, ctx));
             html += row(tr("P"), formatWithUnit(sr.start.P, Dimension::Pressure, u, ctx),
                         formatWithUnit(sr.end.P, Dimension::Pressure, u, ctx));
-            html += row(tr("phase"), phaseText(sr.start), phaseText(sr.end));
+            // Two-line phase text keeps the start/end columns inside the dock.
+            auto phase2 = [](QString t) { return t.toHtmlEscaped().replace(QStringLiteral(", "), QStringLiteral("<br/>")); };
+            html += row(tr("phase"), phase2(phaseText(sr.start)), phase2(phaseText(sr.end)));
             html += row(tr("h"), formatWithUnit(sr.start.h, Dimension::SpecificEnergy, u, ctx),
                         formatWithUnit(sr.end.h, Dimension::SpecificEnergy, u, ctx));
             html += row(tr("s"), formatWithUnit(sr.start.s, Dimension::SpecificEntropy, u, ctx),
