@@ -82,8 +82,9 @@ std::string ledgerText(const Project& p, const SequenceResult& r) {
     const bool closed = p.system == SystemKind::Closed;
     const Dimension dE = closed ? Dimension::Energy : Dimension::Power;
     const Dimension dS = closed ? Dimension::Entropy : Dimension::EntropyRate;
-    const std::string uT(displayUnit(Dimension::Temperature, us)), uP(displayUnit(Dimension::Pressure, us));
-    const std::string uE(displayUnit(dE, us)), uS(displayUnit(dS, us));
+    const std::string uT = unitLabel(displayUnit(Dimension::Temperature, us));
+    const std::string uP = unitLabel(displayUnit(Dimension::Pressure, us));
+    const std::string uE = unitLabel(displayUnit(dE, us)), uS = unitLabel(displayUnit(dS, us));
     auto T = [&](double v) { return toDisplay(v, Dimension::Temperature, us, ctx); };
     auto P = [&](double v) { return toDisplay(v, Dimension::Pressure, us, ctx); };
     auto E = [&](double v) { return toDisplay(v, dE, us, ctx); };

@@ -321,6 +321,13 @@ Result<double> molarVolumeOf(const Json& value, const std::string& path, const U
     if (slash == std::string::npos) return makeError("needs a volume per amount unit, e.g. m3/mol or cm3/mol", path);
     std::string volumeText = text.substr(0, slash);
     const std::string amountUnit = text.substr(slash + 1);
+    // A volume shift may be negative; units.cpp refuses negative volumes, so
+    // the sign is taken off first.
+    double sign = 1.0;
+    if (auto first = volumeText.find_first_not_of(" \t"); first != std::string::npos && volumeText[first] == '-') {
+        volumeText.erase(0, first + 1);
+        sign = -1.0;
+    }
     // "cm3" is not a volume unit of units.cpp; it is 1e-6 m3 exactly (SI prefix).
     double scale = 1.0;
     if (auto pos = volumeText.rfind("cm3"); pos != std::string::npos && pos + 3 == volumeText.size()) {
@@ -331,7 +338,7 @@ Result<double> molarVolumeOf(const Json& value, const std::string& path, const U
     if (!vol) return makeError(vol.error().message + " (a molar volume, e.g. \"-3.6e-6 m3/mol\")", path);
     auto amount = toSI(1.0, amountUnit, Dimension::Amount, uc);
     if (!amount) return makeError("unknown amount unit \"" + amountUnit + "\"; valid: mol, kmol", path);
-    return *vol * scale / *amount;
+    return sign * *vol * scale / *amount;
 }
 
 Result<Substance> parseImpl(const Json& j, std::string_view where, const UnitContext& uc) {
@@ -516,8 +523,9 @@ Result<Substance> parseImpl(const Json& j, std::string_view where, const UnitCon
     }
 
     // Cross-checks between blocks that a typing slip would break.
-    if (s.melting && s.boiling && !(s.melting->T < s.boiling->T))
-        return makeError("the melting temperature must lie below the boiling temperature", join(where, "boiling.T"));
+    // Equal is allowed: a boiling anchor may be the triple point (carbon dioxide).
+    if (s.melting && s.boiling && !(s.melting->T <= s.boiling->T))
+        return makeError("the melting temperature must not lie above the boiling temperature", join(where, "boiling.T"));
     if (s.critical && s.boiling && !(s.boiling->T < s.critical->T))
         return makeError("the boiling temperature must lie below the critical temperature", join(where, "boiling.T"));
     return s;

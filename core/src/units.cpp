@@ -476,7 +476,7 @@ std::string_view displayUnit(Dimension d, UnitSystem system) {
         case D::Amount: return pick("mol", "kmol", "lbmol");
         case D::MassFlow: return pick("kg/s", "t/h", "lb/h");
         case D::MolarFlow: return pick("mol/s", "kmol/h", "lbmol/h");
-        case D::Energy: return pick("kJ", "kJ", "Btu");
+        case D::Energy: return pick("kJ", "MJ", "Btu");
         case D::Power: return pick("kW", "kW", "Btu/h");
         case D::Entropy: return pick("kJ/K", "kJ/K", "Btu/degR");
         case D::EntropyRate: return pick("kW/K", "kW/K", "Btu/(h degR)");
@@ -491,6 +491,21 @@ std::string_view displayUnit(Dimension d, UnitSystem system) {
         case D::VolumeFlow: return pick("m3/s", "m3/h", "ft3/min");
     }
     return "";
+}
+
+std::string unitLabel(std::string_view symbol) {
+    // Typographic spellings for people; the ASCII symbols stay the ones parsed and saved.
+    static constexpr std::pair<std::string_view, std::string_view> swaps[] = {
+        {"delta_degF", "°F"}, {"degC", "°C"}, {"degF", "°F"}, {"degR", "°R"},
+        {"m3", "m³"}, {"(kg K)", "(kg·K)"}, {"(mol K)", "(mol·K)"}, {"(kmol K)", "(kmol·K)"},
+        {"(lb degF)", "(lb·°F)"}, {"(lbmol degF)", "(lbmol·°F)"}, {"(h degR)", "(h·°R)"}, {"ft3", "ft³"},
+    };
+    std::string out(symbol);
+    for (const auto& [from, to] : swaps) {
+        for (auto pos = out.find(from); pos != std::string::npos; pos = out.find(from, pos + to.size()))
+            out.replace(pos, from.size(), to);
+    }
+    return out;
 }
 
 double toDisplay(double si, Dimension d, UnitSystem system, const UnitContext& context) {

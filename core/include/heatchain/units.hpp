@@ -79,6 +79,9 @@ Result<double> toSI(double value, std::string_view unit, Dimension dimension,
 // metric-engineering, "degF" and "psia" in US customary, "K" and "kPa" in SI).
 std::string_view displayUnit(Dimension d, UnitSystem system);
 
+// The unit as people read it: "degC" → "°C", "m3" → "m³", "kJ/(kg K)" → "kJ/(kg·K)".
+std::string unitLabel(std::string_view symbol);
+
 // Formats an SI value in the display system, with a sensible number of
 // significant digits, e.g. "180.0 degC", "4.2 t/h" → "1.1667 kg/s" in SI.
 std::string formatQuantity(double si, Dimension d, UnitSystem system,

@@ -1,0 +1,141 @@
+// IF97 region 3 (near-critical): Helmholtz free energy f(rho, T), eq. 28 of
+// IAPWS R7-97(2012), and its density root at given (T, P) found on the
+// forward equation (no backward v(p,T) equations are used).
+#include <algorithm>
+#include <cmath>
+#include <initializer_list>
+
+#include "models/if97_detail.hpp"
+
+namespace heatchain::if97 {
+namespace {
+using detail::Term;
+
+// IAPWS R7-97(2012), Table 30: n_1 (the ln delta term) and I_i, J_i, n_i,
+// i = 2…40, of eq. 28. Verified by Table 33.
+constexpr double kN1 = 0.10658070028513e1;
+constexpr Term kRegion3[39] = {
+    {0, 0, -0.15732845290239e2},  {0, 1, 0.20944396974307e2},   {0, 2, -0.76867707878716e1},
+    {0, 7, 0.26185947787954e1},   {0, 10, -0.28080781148620e1}, {0, 12, 0.12053369696517e1},
+    {0, 23, -0.84566812812502e-2}, {1, 2, -0.12654315477714e1}, {1, 6, -0.11524407806681e1},
+    {1, 15, 0.88521043984318},    {1, 17, -0.64207765181607},   {2, 0, 0.38493460186671},
+    {2, 2, -0.85214708824206},    {2, 6, 0.48972281541877e1},   {2, 7, -0.30502617256965e1},
+    {2, 22, 0.39420536879154e-1}, {2, 26, 0.12558408424308},    {3, 0, -0.27999329698710},
+    {3, 2, 0.13899799569460e1},   {3, 4, -0.20189915023570e1},  {3, 16, -0.82147637173963e-2},
+    {3, 26, -0.47596035734923},   {4, 0, 0.43984074473500e-1},  {4, 2, -0.44476435428739},
+    {4, 4, 0.90572070719733},     {4, 26, 0.70522450087967},    {5, 1, 0.10770512626332},
+    {5, 3, -0.32913623258954},    {5, 26, -0.50871062041158},   {6, 0, -0.22175400873096e-1},
+    {6, 2, 0.94260751665092e-1},  {6, 26, 0.16436278447961},    {7, 2, -0.13503372241348e-1},
+    {8, 26, -0.14834345352472e-1}, {9, 2, 0.57922953628084e-3}, {9, 26, 0.32308904703711e-2},
+    {10, 0, 0.80964802996215e-4}, {10, 1, -0.16557679795037e-3}, {11, 26, -0.44923899061815e-4},
+};
+
+// Dimensionless Helmholtz function phi(delta, tau) and derivatives.
+struct Phi {
+    double f = 0, fd = 0, fdd = 0, ft = 0, ftt = 0, fdt = 0;
+};
+
+Phi phi(double delta, double tau) {
+    const detail::PowTable<0, 11> pd(delta);
+    const detail::PowTable<0, 26> pt(tau);
+    double S = 0, SI = 0, SII = 0, SJ = 0, SJJ = 0, SIJ = 0;
+    for (const Term& t : kRegion3) {
+        const double v = t.n * pd[t.I] * pt[t.J];
+        S += v;
+        SI += t.I * v;
+        SII += t.I * (t.I - 1) * v;
+        SJ += t.J * v;
+        SJJ += t.J * (t.J - 1) * v;
+        SIJ += t.I * t.J * v;
+    }
+    Phi p;
+    p.f = kN1 * std::log(delta) + S;
+    p.fd = kN1 / delta + SI / delta;
+    p.fdd = -kN1 / (delta * delta) + SII / (delta * delta);
+    p.ft = SJ / tau;
+    p.ftt = SJJ / (tau * tau);
+    p.fdt = SIJ / (delta * tau);
+    return p;
+}
+
+// Pressure and its density derivative on an isotherm (eq. 28, Table 31).
+void pressureAndSlope(double rho, double T, double& P, double& dPdrho) {
+    const double delta = rho / rhoc;
+    const double tau = Tc / T;
+    const Phi f = phi(delta, tau);
+    P = rho * R * T * delta * f.fd;
+    dPdrho = R * T * (2 * delta * f.fd + delta * delta * f.fdd);
+}
+
+}  // namespace
+
+Props region3(double rho, double T) {
+    const double delta = rho / rhoc;
+    const double tau = Tc / T;
+    const Phi f = phi(delta, tau);
+    Props r;
+    r.T = T;
+    r.v = 1.0 / rho;
+    r.P = rho * R * T * delta * f.fd;
+    r.u = R * T * tau * f.ft;
+    r.s = R * (tau * f.ft - f.f);
+    r.h = R * T * (tau * f.ft + delta * f.fd);
+    r.cv = -R * tau * tau * f.ftt;
+    const double a = delta * f.fd - delta * tau * f.fdt;
+    const double b = 2 * delta * f.fd + delta * delta * f.fdd;
+    r.cp = R * (-tau * tau * f.ftt + a * a / b);
+    const double w2 = R * T * (b - a * a / (tau * tau * f.ftt));
+    r.w = w2 > 0 ? std::sqrt(w2) : std::numeric_limits<double>::quiet_NaN();
+    return r;
+}
+
+bool region3Density(double T, double P, Branch branch, double& rho) {
+    // Newton on p(rho) = P from the side where the isotherm bends away from
+    // the root (from above on the dense branch, where p(rho) is convex; from
+    // below on the dilute branch, where it is concave), so that steps never
+    // jump into the two-phase loop. A bisection bracket guards every step.
+    const bool dense = branch == Branch::Liquid;
+    // Region 3 ends near 760 kg/m3 (623.15 K, 100 MPa); the polynomial turns
+    // over somewhat beyond that, so the dense start is the first density
+    // above the root where the isotherm still rises.
+    double lo = 1e-3, hi = 0;
+    for (double cand : {760.0, 850.0, 950.0}) {
+        double p, dp;
+        pressureAndSlope(cand, T, p, dp);
+        if (p > P && dp > 0) {
+            hi = cand;
+            break;
+        }
+    }
+    if (hi == 0) return false;
+    double x = dense ? hi : std::min(P / (R * T), 0.5 * hi);
+    for (int it = 0; it < 200; ++it) {
+        double p, dp;
+        pressureAndSlope(x, T, p, dp);
+        const double f = p - P;
+        if (std::fabs(f) <= 1e-12 * P) {
+            if (dp <= 0) return false;  // stopped on the unstable part of the loop
+            // Below Tc each branch lies on its own side of the critical density.
+            if (T < Tc && (dense ? x < rhoc : x > rhoc)) return false;
+            rho = x;
+            return true;
+        }
+        if (dp > 0) {
+            if (f > 0) hi = std::min(hi, x); else lo = std::max(lo, x);
+        } else {
+            // Inside the spinodal: step back toward the side we came from.
+            if (dense) lo = std::max(lo, x); else hi = std::min(hi, x);
+        }
+        double next = dp > 0 ? x - f / dp : 0.5 * (lo + hi);
+        if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+        if (hi - lo <= 1e-14 * hi) {
+            rho = 0.5 * (lo + hi);
+            pressureAndSlope(rho, T, p, dp);
+            return dp > 0 && std::fabs(p - P) <= 1e-9 * P;
+        }
+        x = next;
+    }
+    return false;
+}
+
+}  // namespace heatchain::if97

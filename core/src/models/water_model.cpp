@@ -1,0 +1,515 @@
+// The reference model of water. IF97 regions by (T, P) for the fluid, ice Ih
+// below the melting and sublimation curves, region 4 on the boiling line.
+// (P, h) and (P, s) start from IF97's backward equations and are refined with
+// Newton steps on the forward equations, so the state found reproduces the
+// given h or s to ~1e-12 relative.
+#include "heatchain/models/water_model.hpp"
+
+#include <algorithm>
+#include <array>
+#include <cmath>
+#include <cstdio>
+#include <functional>
+#include <limits>
+#include <string>
+
+#include "heatchain/models/ice_ih.hpp"
+#include "heatchain/models/if97.hpp"
+
+namespace heatchain {
+namespace {
+
+namespace w = if97;
+
+constexpr std::string_view kSrc1 = "IAPWS-IF97 region 1";
+constexpr std::string_view kSrc2 = "IAPWS-IF97 region 2";
+constexpr std::string_view kSrc2m = "IAPWS-IF97 region 2 (metastable vapour, eq. 18)";
+constexpr std::string_view kSrc3 = "IAPWS-IF97 region 3";
+constexpr std::string_view kSrc5 = "IAPWS-IF97 region 5";
+constexpr std::string_view kSrc4 = "IAPWS-IF97 region 4 (saturation)";
+constexpr std::string_view kSrcIce = "IAPWS R10-06 ice Ih";
+constexpr std::string_view kSrcMelt = "IAPWS R14-08 melting curve (ice Ih, IAPWS-IF97 region 1)";
+constexpr std::string_view kSrcSubl = "IAPWS R14-08 sublimation curve (ice Ih, IAPWS-IF97 region 2)";
+
+// Relative slack when comparing a pressure with a phase line, so that a state
+// computed on the line (Tsat(P), P) is never called metastable by round-off.
+constexpr double kLineSlack = 1e-9;
+
+// How far the fluid equations are used outside IF97's stated range (with a
+// warning flag); beyond this a state is an error, not a number.
+constexpr double kFluidTmin = 200.0;   // supercooled liquid / cold vapour
+constexpr double kFluidTmax = 2500.0;
+constexpr double kFluidPmax = ice::kMaxPressure;  // the liquid side of the ice Ih melting line
+constexpr double kMetastableVapourPmax = 10e6;    // R7-97(2012), Sec. 6.2: eq. 18 for p ≤ 10 MPa
+constexpr double kIceTmaxMetastable = 300.0;      // superheated ice, flagged
+
+std::string fmt(double v) {
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.6g", v);
+    return buf;
+}
+
+State fromIf97(const w::Props& p, Phase phase, std::string_view src) {
+    State s;
+    s.T = p.T;
+    s.P = p.P;
+    s.phase = phase;
+    s.h = p.h;
+    s.s = p.s;
+    s.u = p.u;
+    s.v = p.v;
+    s.cp = p.cp;
+    s.cv = p.cv;
+    s.w = p.w;
+    s.source = src;
+    return s;
+}
+
+State fromIce(const ice::Props& p) {
+    State s;
+    s.T = p.T;
+    s.P = p.P;
+    s.phase = Phase::Solid;
+    s.h = p.h;
+    s.s = p.s;
+    s.u = p.u;
+    s.v = p.v;
+    s.cp = p.cp;
+    s.cv = p.cv;
+    s.w = p.w;
+    s.source = kSrcIce;
+    return s;
+}
+
+// IF97's range flags for a fluid state (R7-97(2012), Sec. 4).
+std::uint32_t fluidRangeFlags(double T, double P) {
+    std::uint32_t f = WarnNone;
+    if (T < w::Tmin) f |= WarnBelowTemperatureRange;
+    if (T > w::Tmax) f |= WarnAboveTemperatureRange;
+    if (P > (T > w::T25 ? w::Pmax5 : w::Pmax)) f |= WarnAbovePressureRange;
+    return f;
+}
+
+// The equilibrium fluid phase label at (T, P).
+Phase fluidPhase(double T, double P) {
+    if (T >= w::Tc) return P >= w::Pc ? Phase::Supercritical : Phase::Vapor;
+    if (P > w::Pc) return Phase::Liquid;
+    return P >= w::saturationPressure(T) ? Phase::Liquid : Phase::Vapor;
+}
+
+class WaterReferenceModel final : public PropertyModel {
+public:
+    explicit WaterReferenceModel(Substance s) : substance_(std::move(s)) {}
+
+    ModelKind kind() const override { return ModelKind::Reference; }
+    std::string_view name() const override { return "IAPWS-IF97 + ice Ih (IAPWS R10-06)"; }
+    std::string rangeText() const override {
+        return "fluid 273.15–1073.15 K at up to 100 MPa and 1073.15–2273.15 K at up to 50 MPa "
+               "(IAPWS-IF97; outside with a warning down to 200 K and up to 2500 K and 210 MPa); "
+               "ice Ih up to 273.16 K and 210 MPa; melting line 251.165–273.16 K "
+               "(611.657 Pa–208.566 MPa); sublimation line 50–273.16 K";
+    }
+    std::string sourceText() const override {
+        return "IAPWS R7-97(2012), Revised Release on the IAPWS Industrial Formulation 1997 for the "
+               "Thermodynamic Properties of Water and Steam; IAPWS R10-06(2009), Revised Release on the "
+               "Equation of State 2006 for H2O Ice Ih; IAPWS R14-08(2011), Revised Release on the "
+               "Pressure along the Melting and Sublimation Curves of Ordinary Water Substance";
+    }
+    const Substance& substance() const override { return substance_; }
+
+    std::optional<std::pair<double, double>> criticalPoint() const override {
+        return std::make_pair(w::Tc, w::Pc);  // R7-97(2012), eqs. 2 and 3
+    }
+    std::optional<std::pair<double, double>> triplePoint() const override {
+        return std::make_pair(w::Tt, w::Pt);  // R7-97(2012), Sec. 2.2
+    }
+    double minTemperature() const override { return ice::kSublTmin; }
+    double maxTemperature() const override { return w::Tmax; }
+    double maxPressure() const override { return w::Pmax; }
+
+    Result<State> phaseState(Phase phase, double T, double P) const override;
+    Result<Phase> stablePhase(double T, double P) const override;
+    Result<double> transitionTemperature(Transition t, double P) const override;
+    Result<double> transitionPressure(Transition t, double T) const override;
+    Result<State> stateTP(double T, double P) const override;
+    Result<State> stateOnLineP(Transition t, double P, double fraction) const override;
+    Result<State> stateOnLineT(Transition t, double T, double fraction) const override;
+    Result<State> stateP(double P, Property which, double value) const override;
+    TransitionsAtPressure transitionsAt(double P) const override;
+
+private:
+    Result<State> fluidState(Phase requested, double T, double P) const;
+    Result<State> iceState(double T, double P) const;
+    Result<State> fluidOnIsobar(double P, Property which, double value, double Tlow) const;
+    static std::string_view lineSource(Transition t) {
+        return t == Transition::Boiling ? kSrc4 : (t == Transition::Melting ? kSrcMelt : kSrcSubl);
+    }
+
+    Substance substance_;
+};
+
+// ---- (T, P) ----------------------------------------------------------------
+
+Result<State> WaterReferenceModel::iceState(double T, double P) const {
+    if (!(T > 0) || !(P > 0)) return makeError("ice Ih needs a positive temperature and pressure");
+    if (P > ice::kMaxPressure)
+        return makeError("ice Ih (IAPWS R10-06) is defined up to 210 MPa; got " + fmt(P / 1e6) + " MPa");
+    if (T > kIceTmaxMetastable)
+        return makeError("ice Ih above " + fmt(kIceTmaxMetastable) + " K is not modelled (got " + fmt(T) + " K)");
+    State s = fromIce(ice::props(T, P));
+    if (T > w::Tt) s.warnings |= WarnAboveTemperatureRange | WarnMetastable;
+    else if (T < ice::kSublTmin) s.warnings |= WarnBelowTemperatureRange;
+    if (T <= w::Tt && T >= ice::kSublTmin) {
+        const bool belowSubl = P < ice::sublimationPressure(T) * (1 - kLineSlack);
+        const bool aboveMelt = T >= ice::kMeltTmin && P > ice::meltingPressure(T) * (1 + kLineSlack);
+        if (belowSubl || aboveMelt) s.warnings |= WarnMetastable;
+    }
+    return s;
+}
+
+Result<State> WaterReferenceModel::fluidState(Phase requested, double T, double P) const {
+    if (!(P > 0) || !std::isfinite(P) || !std::isfinite(T))
+        return makeError("water needs a finite positive pressure, got " + fmt(P) + " Pa");
+    if (T < kFluidTmin || T > kFluidTmax || P > kFluidPmax)
+        return makeError("(" + fmt(T) + " K, " + fmt(P) + " Pa) is outside what IAPWS-IF97 can be stretched to (" +
+                         fmt(kFluidTmin) + "–" + fmt(kFluidTmax) + " K, up to " + fmt(kFluidPmax / 1e6) + " MPa)");
+    const std::uint32_t flags = fluidRangeFlags(T, P);
+    const Phase eq = fluidPhase(T, P);
+    auto done = [&](const w::Props& p, Phase ph, std::string_view src, std::uint32_t extra = WarnNone) {
+        State s = fromIf97(p, ph, src);
+        s.warnings = flags | extra;
+        if (src == kSrc3 && std::fabs(T / w::Tc - 1) < 0.01 && std::fabs(P / w::Pc - 1) < 0.1)
+            s.warnings |= WarnNearCritical;  // R7-97(2012), Sec. 7: region 3 is least accurate there
+        return s;
+    };
+
+    // High-temperature steam: region 5 (no phase question there).
+    if (T > w::T25) return done(w::region5(T, P), eq, kSrc5);
+
+    const bool wantLiquid = requested == Phase::Liquid;
+    const bool wantVapor = requested == Phase::Vapor;
+
+    if (T <= w::T13) {
+        const double ps = w::saturationPressure(std::max(T, w::Tmin));
+        if (wantVapor && P > ps * (1 + kLineSlack)) {
+            // Subcooled (metastable) vapour: eq. 18 up to 10 MPa only.
+            if (P > kMetastableVapourPmax || T < w::Tmin)
+                return makeError("vapour at " + fmt(T) + " K and " + fmt(P / 1e6) +
+                                 " MPa is beyond IF97's metastable-vapour equation (eq. 18, up to 10 MPa)");
+            return done(w::region2Metastable(T, P), Phase::Vapor, kSrc2m, WarnMetastable);
+        }
+        if (wantLiquid && P < ps * (1 - kLineSlack))
+            return done(w::region1(T, P), Phase::Liquid, kSrc1, WarnMetastable);  // superheated liquid
+        if (wantVapor || (!wantLiquid && eq == Phase::Vapor)) {
+            std::uint32_t extra = WarnNone;
+            // Below the triple point vapour is stable only under the sublimation pressure.
+            if (T < w::Tt && T >= ice::kSublTmin && P > ice::sublimationPressure(T) * (1 + kLineSlack))
+                extra |= WarnMetastable;
+            return done(w::region2(T, P), Phase::Vapor, kSrc2, extra);
+        }
+        std::uint32_t extra = WarnNone;
+        // Liquid below the melting temperature is supercooled.
+        if (T < w::Tt && T >= ice::kMeltTmin && P <= ice::meltingPressure(T) * (1 + kLineSlack) &&
+            P >= ice::sublimationPressure(T) * (1 - kLineSlack))
+            extra |= WarnMetastable;
+        else if (T < ice::kMeltTmin)
+            extra |= WarnMetastable;
+        return done(w::region1(T, P), eq == Phase::Vapor ? Phase::Liquid : eq, kSrc1, extra);
+    }
+
+    // 623.15 K < T ≤ 1073.15 K: region 2 below B23, region 3 above.
+    if (T > w::T23max || P <= w::b23Pressure(T)) {
+        if (wantLiquid && T < w::Tc)
+            return makeError("liquid at " + fmt(T) + " K and " + fmt(P / 1e6) +
+                             " MPa lies in IF97 region 2, which has no liquid branch");
+        return done(w::region2(T, P), eq, kSrc2);
+    }
+    double rho = 0;
+    if (T >= w::Tc) {
+        if (!w::region3Density(T, P, P >= w::Pc ? w::Branch::Liquid : w::Branch::Vapor, rho))
+            return makeError("no IF97 region 3 density at " + fmt(T) + " K, " + fmt(P / 1e6) + " MPa");
+        return done(w::region3(rho, T), eq, kSrc3);
+    }
+    const Phase ph = wantLiquid ? Phase::Liquid : (wantVapor ? Phase::Vapor : eq);
+    const bool meta = ph != eq;
+    if (!w::region3Density(T, P, ph == Phase::Liquid ? w::Branch::Liquid : w::Branch::Vapor, rho))
+        return makeError(std::string(phaseLabel(ph)) + " at " + fmt(T) + " K and " + fmt(P / 1e6) +
+                         " MPa is past the IF97 region 3 spinodal: no such metastable state");
+    return done(w::region3(rho, T), ph, kSrc3, meta ? WarnMetastable : WarnNone);
+}
+
+Result<State> WaterReferenceModel::phaseState(Phase phase, double T, double P) const {
+    if (phase == Phase::Solid) return iceState(T, P);
+    if (isTwoPhase(phase))
+        return makeError("phaseState needs a single phase; " + std::string(phaseLabel(phase)) +
+                         " states come from the phase lines");
+    return fluidState(phase, T, P);
+}
+
+Result<Phase> WaterReferenceModel::stablePhase(double T, double P) const {
+    if (!(T > 0) || !(P > 0)) return makeError("temperature and pressure must be positive");
+    if (T < w::Tt) {
+        if (T < ice::kSublTmin)
+            return makeError("below " + fmt(ice::kSublTmin) + " K the sublimation curve (IAPWS R14-08) is not defined");
+        if (P < ice::sublimationPressure(T)) return Phase::Vapor;
+        if (T >= ice::kMeltTmin) return P > ice::meltingPressure(T) ? Phase::Liquid : Phase::Solid;
+        if (P > ice::meltingPressureMax())
+            return makeError("at " + fmt(T) + " K and " + fmt(P / 1e6) +
+                             " MPa water is a high-pressure ice, which is not modelled (only ice Ih)");
+        return Phase::Solid;
+    }
+    return fluidPhase(T, P);
+}
+
+Result<State> WaterReferenceModel::stateTP(double T, double P) const {
+    auto ph = stablePhase(T, P);
+    if (!ph) return ph.error();
+    return phaseState(*ph, T, P);
+}
+
+// ---- Phase lines --------------------------------------------------------------
+
+Result<double> WaterReferenceModel::transitionTemperature(Transition t, double P) const {
+    switch (t) {
+        case Transition::Boiling:
+            if (!(P >= w::Pt * (1 - kLineSlack) && P <= w::Pc))
+                return makeError("water boils only between the triple point (611.657 Pa) and the critical point "
+                                 "(22.064 MPa); got " + fmt(P) + " Pa");
+            return std::max(w::saturationTemperature(std::max(P, w::Pt)), w::Tt);
+        case Transition::Melting: {
+            const double T = ice::meltingTemperature(P);
+            if (!std::isfinite(T))
+                return makeError("the ice Ih melting curve (IAPWS R14-08) spans 251.165–273.16 K, from the triple "
+                                 "point 611.657 Pa to " + fmt(ice::meltingPressureMax() / 1e6) + " MPa; got " +
+                                 fmt(P) + " Pa");
+            return T;
+        }
+        case Transition::Sublimation: {
+            const double T = ice::sublimationTemperature(P);
+            if (!std::isfinite(T))
+                return makeError("the sublimation curve (IAPWS R14-08) spans 50–273.16 K, up to the triple point "
+                                 "611.657 Pa; got " + fmt(P) + " Pa");
+            return T;
+        }
+    }
+    return makeError("unknown transition");
+}
+
+Result<double> WaterReferenceModel::transitionPressure(Transition t, double T) const {
+    switch (t) {
+        case Transition::Boiling:
+            if (!(T >= w::Tt && T <= w::Tc))
+                return makeError("water boils only between 273.16 K and the critical temperature 647.096 K; got " +
+                                 fmt(T) + " K");
+            return w::saturationPressure(T);
+        case Transition::Melting:
+            if (!(T >= ice::kMeltTmin && T <= w::Tt))
+                return makeError("the ice Ih melting curve (IAPWS R14-08) spans 251.165–273.16 K; got " + fmt(T) + " K");
+            return ice::meltingPressure(T);
+        case Transition::Sublimation:
+            if (!(T >= ice::kSublTmin && T <= w::Tt))
+                return makeError("the sublimation curve (IAPWS R14-08) spans 50–273.16 K; got " + fmt(T) + " K");
+            return ice::sublimationPressure(T);
+    }
+    return makeError("unknown transition");
+}
+
+Result<State> WaterReferenceModel::stateOnLineP(Transition t, double P, double fraction) const {
+    auto s = PropertyModel::stateOnLineP(t, P, fraction);
+    if (s) s->source = lineSource(t);
+    return s;
+}
+
+Result<State> WaterReferenceModel::stateOnLineT(Transition t, double T, double fraction) const {
+    auto s = PropertyModel::stateOnLineT(t, T, fraction);
+    if (s) s->source = lineSource(t);
+    return s;
+}
+
+TransitionsAtPressure WaterReferenceModel::transitionsAt(double P) const {
+    TransitionsAtPressure out;
+    if (P < w::Pt) {
+        if (auto T = transitionTemperature(Transition::Sublimation, P)) out.entries[out.count++] = {Transition::Sublimation, *T};
+        return out;
+    }
+    if (auto T = transitionTemperature(Transition::Melting, P)) out.entries[out.count++] = {Transition::Melting, *T};
+    if (P <= w::Pc)
+        if (auto T = transitionTemperature(Transition::Boiling, P)) out.entries[out.count++] = {Transition::Boiling, *T};
+    return out;
+}
+
+// ---- (P, h) and (P, s) -------------------------------------------------------------
+
+// One single-phase span of an isobar: T in [a, b], a forward evaluation and
+// an optional backward-equation seed.
+struct Span {
+    double a, b;
+    std::function<Result<State>(double)> at;
+    std::function<double(double)> seed;  // value -> T, may be empty
+};
+
+// At most five spans on one isobar (liquid, region 3 liquid, region 3
+// vapour, region 2, region 5); a fixed array keeps the solve allocation-free.
+struct SpanList {
+    std::array<Span, 6> items;
+    std::size_t n = 0;
+    void push_back(Span s) { items[n++] = std::move(s); }
+    std::size_t size() const { return n; }
+    const Span& operator[](std::size_t i) const { return items[i]; }
+};
+
+// Solves prop(T) = value on a span where prop rises with T: Newton steps
+// with d(h)/dT = cp, d(s)/dT = cp/T, kept inside a shrinking bracket.
+Result<State> solveSpan(const Span& sp, Property which, double value, double fa, double fb) {
+    double lo = sp.a, hi = sp.b;
+    double T = sp.seed ? sp.seed(value) : lo + (hi - lo) * (value - fa) / (fb - fa);
+    if (!(T > lo && T < hi)) {
+        // No usable start: interpolate between the span ends (the middle when
+        // the lower end was not evaluated).
+        const double f = std::isfinite(fa) ? std::clamp((value - fa) / (fb - fa), 0.0, 1.0) : 0.5;
+        T = lo + (hi - lo) * f;
+    }
+    const double tol = 1e-13 * std::max(std::fabs(value), which == Property::Entropy ? 1.0 : 1e3);
+    std::optional<State> best;
+    for (int it = 0; it < 60; ++it) {
+        auto s = sp.at(T);
+        if (!s) return s.error();
+        const double x = which == Property::Enthalpy ? s->h : s->s;
+        const double f = x - value;
+        if (std::fabs(f) <= tol) return *s;
+        if (f > 0) hi = T; else lo = T;
+        const double d = which == Property::Enthalpy ? s->cp : s->cp / T;
+        double next = (d > 0 && std::isfinite(d)) ? T - f / d : 0.5 * (lo + hi);
+        if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+        best = *s;
+        if (hi - lo <= 1e-14 * hi || next == T) return *s;
+        T = next;
+    }
+    if (best) return *best;
+    return makeError("no convergence");
+}
+
+Result<State> WaterReferenceModel::fluidOnIsobar(double P, Property which, double value, double Tlow) const {
+    auto prop = [which](const State& s) { return which == Property::Enthalpy ? s.h : s.s; };
+    const bool H = which == Property::Enthalpy;
+    auto liquid = [this, P](double T) { return fluidState(Phase::Liquid, T, P); };
+    auto vapour = [this, P](double T) { return fluidState(Phase::Vapor, T, P); };
+    auto any = [this, P](double T) { return fluidState(Phase::Supercritical, T, P); };
+    std::function<double(double)> seed1 = [P, H](double x) { return H ? w::region1T_ph(P, x) : w::region1T_ps(P, x); };
+    std::function<double(double)> seed2 = [P, H](double x) { return H ? w::region2T_ph(P, x) : w::region2T_ps(P, x); };
+
+    // Build the spans of the isobar in rising temperature, with phase changes.
+    SpanList spans;
+    double Tsat = 0;
+    const bool subcritical = P >= w::Pt && P <= w::Pc;
+    const double p623 = w::saturationPressureAt623();
+    const double top = std::min(w::Tmax, maxTemperature());
+    if (P < w::Pt) {
+        spans.push_back({Tlow, w::T25, vapour, seed2});
+    } else if (subcritical) {
+        Tsat = w::saturationTemperature(P);
+        if (P <= p623) {
+            spans.push_back({Tlow, Tsat, liquid, seed1});
+        } else {
+            spans.push_back({Tlow, w::T13, liquid, seed1});
+            spans.push_back({w::T13, Tsat, liquid, {}});
+        }
+    } else {
+        spans.push_back({Tlow, w::T13, any, seed1});
+        spans.push_back({w::T13, std::min(w::b23Temperature(P), w::T23max), any, {}});
+    }
+    const std::size_t nLow = spans.size();
+    if (subcritical) {
+        if (P > p623) spans.push_back({Tsat, std::min(w::b23Temperature(P), w::T23max), vapour, {}});
+        spans.push_back({P > p623 ? w::b23Temperature(P) : Tsat, w::T25, vapour, seed2});
+    } else if (P >= w::Pt) {
+        spans.push_back({std::min(w::b23Temperature(P), w::T23max), w::T25, any, seed2});
+    }
+    if (P <= w::Pmax5) spans.push_back({w::T25, top, any, {}});
+
+    for (std::size_t i = 0; i < spans.size(); ++i) {
+        const Span& sp = spans[i];
+        if (subcritical && i == nLow) {
+            // The boiling line between the liquid and vapour spans.
+            auto L = fluidState(Phase::Liquid, Tsat, P);
+            auto V = fluidState(Phase::Vapor, Tsat, P);
+            if (!L || !V) return L ? V.error() : L.error();
+            if (value <= prop(*V)) {
+                const double x = std::clamp((value - prop(*L)) / (prop(*V) - prop(*L)), 0.0, 1.0);
+                State m = mix(*L, *V, Transition::Boiling, x);
+                m.source = kSrc4;
+                return m;
+            }
+        }
+        if (!(sp.b > sp.a)) continue;
+        auto sb = sp.at(sp.b);
+        if (!sb) return sb.error();
+        const double fb = prop(*sb);
+        if (value > fb) continue;
+        // The lower end is only needed below the lowest fluid state or when
+        // the span has no backward equation to start from.
+        double fa = std::numeric_limits<double>::quiet_NaN();
+        if (i == 0 || !sp.seed) {
+            auto sa = sp.at(sp.a);
+            if (!sa) return sa.error();
+            fa = prop(*sa);
+            if (value < fa && i == 0) break;  // below the lowest fluid state
+        }
+        return solveSpan(sp, which, value, fa, fb);
+    }
+    return makeError("no state of water at " + fmt(P) + " Pa has " + (H ? "specific enthalpy " : "specific entropy ") +
+                     fmt(value) + (H ? " J/kg" : " J/(kg K)") + " within " + rangeText());
+}
+
+Result<State> WaterReferenceModel::stateP(double P, Property which, double value) const {
+    if (which != Property::Enthalpy && which != Property::Entropy) return PropertyModel::stateP(P, which, value);
+    if (!(P > 0) || !std::isfinite(P)) return makeError("pressure must be positive, got " + fmt(P) + " Pa");
+    if (!std::isfinite(value)) return makeError("the specific enthalpy or entropy is not a finite number");
+    if (P > kFluidPmax) return makeError("pressure " + fmt(P / 1e6) + " MPa is above the model's range (" + rangeText() + ")");
+    auto prop = [which](const State& s) { return which == Property::Enthalpy ? s.h : s.s; };
+
+    // Fast path: clearly above the melting/sublimation line (liquid at
+    // 273.16 K or vapour at the triple-point temperature is the floor).
+    if (P >= w::Pt && P <= ice::meltingPressureMax()) {
+        const w::Props floor = w::region1(w::Tt, P);
+        if (value >= (which == Property::Enthalpy ? floor.h : floor.s)) return fluidOnIsobar(P, which, value, w::Tt);
+    }
+
+    // The low-temperature phase change: melting above the triple-point
+    // pressure, sublimation below it.
+    Transition t;
+    if (P < w::Pt) t = Transition::Sublimation;
+    else if (P <= ice::meltingPressureMax()) t = Transition::Melting;
+    else return fluidOnIsobar(P, which, value, kFluidTmin);
+    auto Ttr = transitionTemperature(t, P);
+    if (!Ttr) return Ttr.error();
+    auto solid = iceState(*Ttr, P);
+    auto fluid = fluidState(upperPhase(t), *Ttr, P);
+    if (!solid || !fluid) return solid ? fluid.error() : solid.error();
+    if (value > prop(*fluid)) return fluidOnIsobar(P, which, value, *Ttr);
+    if (value >= prop(*solid)) {
+        const double f = std::clamp((value - prop(*solid)) / (prop(*fluid) - prop(*solid)), 0.0, 1.0);
+        State m = mix(*solid, *fluid, t, f);
+        m.source = lineSource(t);
+        return m;
+    }
+    // Ice: h and s rise with T along the isobar.
+    Span sp{minTemperature(), *Ttr, [this, P](double T) { return iceState(T, P); }, {}};
+    auto cold = iceState(sp.a, P);
+    if (!cold) return cold.error();
+    if (value < prop(*cold))
+        return makeError("no state of water at " + fmt(P) + " Pa has this " +
+                         (which == Property::Enthalpy ? "enthalpy" : "entropy") + ": it is below ice Ih at " +
+                         fmt(sp.a) + " K");
+    return solveSpan(sp, which, value, prop(*cold), prop(*solid));
+}
+
+}  // namespace
+
+Result<std::shared_ptr<const PropertyModel>> makeWaterReferenceModel(const Substance& water) {
+    if (water.id != "water" || water.custom)
+        return makeError("the IAPWS-IF97 reference model is for water only, not \"" + water.id + "\"");
+    return std::shared_ptr<const PropertyModel>(std::make_shared<WaterReferenceModel>(water));
+}
+
+}  // namespace heatchain
