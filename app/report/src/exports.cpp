@@ -5,6 +5,8 @@
 #include <QImage>
 #include <QPainter>
 #include <QSvgGenerator>
+#include <algorithm>
+#include <cctype>
 
 #include "gui_app.hpp"
 #include "heatchain/project_file.hpp"

@@ -14,8 +14,8 @@ const QString kFamily = QStringLiteral("DejaVu Sans");
 const QString kMonoFamily = QStringLiteral("DejaVu Sans Mono");
 }  // namespace
 
-Layout::Layout(QPdfWriter& writer, QPainter& painter, bool dry, int totalPages, Furniture furniture)
-    : writer_(writer), p_(painter), dry_(dry), total_(totalPages), furn_(std::move(furniture)) {
+Layout::Layout(QPdfWriter& writer, QPainter& painter, bool dry, int totalPages, Furniture furn)
+    : writer_(writer), p_(painter), dry_(dry), total_(totalPages), furn_(std::move(furn)) {
     dpi_ = writer_.resolution();
     page_rect_ = QRectF(0, 0, writer_.width(), writer_.height());
     // Margins: wide enough for binding and for the header and footer lines.

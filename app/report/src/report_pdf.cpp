@@ -121,7 +121,7 @@ QStringList cautionLines(const Project& project, const SequenceResult& r) {
                                 "rules commonly apply to vessels and piping; stored energy is released violently "
                                 "on failure. Relief, design pressure and inspection follow the applicable code.")
                      .arg(view::formatWithUnit(e.Pmax, Dimension::Pressure, us, ctx),
-                          view::formatWithUnit(gauge, Dimension::Pressure, us, ctx)));
+                          view::formatWithUnit(gauge, Dimension::Pressure, us, ctx));
     return lines;
 }
 
