@@ -17,6 +17,11 @@ ProjectDocument::ProjectDocument(QObject* parent) : QObject(parent) {
     recompute();
 }
 
+ProjectDocument::~ProjectDocument() {
+    QObject::disconnect(&undo_, nullptr, this, nullptr);
+    blockSignals(true);
+}
+
 void ProjectDocument::setSelectedStep(int index) {
     if (index < -1 || index >= int(project_.steps.size())) index = -1;
     if (index == selected_) return;

@@ -21,6 +21,9 @@ class ProjectDocument : public QObject {
     Q_OBJECT
 public:
     explicit ProjectDocument(QObject* parent = nullptr);
+    // Quiet on the way out: the undo stack's last cleanChanged must not reach
+    // views that outlive the document by a few instructions.
+    ~ProjectDocument() override;
 
     const Project& project() const { return project_; }
     const SequenceResult& result() const { return result_; }
