@@ -348,11 +348,12 @@ void readStart(const Reader& r, const Json& v, StartSpec& start) {
 
     const int given = (start.T ? 1 : 0) + (start.P ? 1 : 0);
     const int onLine = (start.quality ? 1 : 0) + (start.meltFraction ? 1 : 0);
-    const std::string rule = "the start is T and P, or (on a phase line) T or P with quality or meltFraction";
+    const std::string rule =
+        "the start is T and P, or (on a phase line) T and/or P with quality or meltFraction";
     if (onLine > 1) r.fail(child(path, "meltFraction"), "give quality or meltFraction, not both; " + rule);
-    if (given == 2 && onLine == 1)
-        r.fail(child(path, start.quality ? "quality" : "meltFraction"),
-               "T and P together fix the state; on a phase line give only one of them; " + rule);
+    // T and P with a quality or meltFraction is accepted: on a simple model's
+    // melting line T does not move with P, so both are a natural way to write
+    // it; whether they agree is the solver's check.
     if (given == 0) r.fail(path, "start needs T and P; " + rule);
     if (given == 1 && onLine == 0) r.fail(path, std::string("start needs ") + (start.T ? "P" : "T") + "; " + rule);
 }
@@ -495,35 +496,35 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
         s.fraction = r.bounded(*f, child(path, "fraction"), 0, true, 1, false, "fraction");
 
     if (machine) {
-        const Json* pathKind = member(v, "path");
-        if (!pathKind)
-            r.fail(path, "a " + kindName + " step needs a \"path\": isothermal, isentropic, polytropic (with n) or "
-                                           "adiabatic (with efficiency)");
-        const std::string id2 = r.string(*pathKind, child(path, "path"));
-        bool found = false;
-        for (PathKind pk : {PathKind::Isothermal, PathKind::Isentropic, PathKind::Polytropic, PathKind::Adiabatic})
-            if (pathId(pk) == id2) {
-                s.path = pk;
-                found = true;
-            }
-        if (!found)
-            r.fail(child(path, "path"),
-                   "unknown path " + inQuotes(id2) + "; valid paths are isothermal, isentropic, polytropic, adiabatic");
+        // Without "path": adiabatic when an efficiency is given, else
+        // isentropic (the solver reads a missing path the same way).
         const Json* n = member(v, "n");
         const Json* eff = member(v, "efficiency");
-        if (*s.path == PathKind::Polytropic) {
+        std::string pathName = eff ? "adiabatic" : "isentropic";
+        if (const Json* pathKind = member(v, "path")) {
+            pathName = r.string(*pathKind, child(path, "path"));
+            bool found = false;
+            for (PathKind pk : {PathKind::Isothermal, PathKind::Isentropic, PathKind::Polytropic, PathKind::Adiabatic})
+                if (pathId(pk) == pathName) {
+                    s.path = pk;
+                    found = true;
+                }
+            if (!found)
+                r.fail(child(path, "path"), "unknown path " + inQuotes(pathName) +
+                                                "; valid paths are isothermal, isentropic, polytropic, adiabatic");
+        }
+        const PathKind effective = s.path ? *s.path : (eff ? PathKind::Adiabatic : PathKind::Isentropic);
+        if (effective == PathKind::Polytropic) {
             if (!n) r.fail(path, "a polytropic path needs the exponent \"n\", e.g. 1.3");
             s.n = r.number(*n, child(path, "n"));
         } else if (n) {
-            r.fail(child(path, "n"), "\"n\" belongs to a polytropic path; this path is " + id2);
+            r.fail(child(path, "n"), "\"n\" belongs to a polytropic path; this path is " + pathName);
         }
-        if (*s.path == PathKind::Adiabatic) {
-            if (!eff)
-                r.fail(path, "an adiabatic path needs an isentropic \"efficiency\" in (0, 1], e.g. 0.75 (for a "
-                             "reversible path write \"path\": \"isentropic\")");
+        if (eff) {
+            if (effective != PathKind::Adiabatic)
+                r.fail(child(path, "efficiency"),
+                       "\"efficiency\" belongs to an adiabatic path; this path is " + pathName);
             s.efficiency = r.bounded(*eff, child(path, "efficiency"), 0, true, 1, false, "efficiency");
-        } else if (eff) {
-            r.fail(child(path, "efficiency"), "\"efficiency\" belongs to an adiabatic path; this path is " + id2);
         }
     }
 
