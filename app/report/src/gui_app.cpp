@@ -1,6 +1,7 @@
 #include "gui_app.hpp"
 
 #include <QGuiApplication>
+#include <cstdio>
 
 namespace heatchain::report_detail {
 
@@ -21,8 +22,14 @@ Status ensureGuiApplication() {
     static char* argv[] = {name, nullptr};
     // Deliberately never destroyed: it lives until the process exits, and
     // destroying it during static destruction would outlive Qt's own statics.
+    // Start-up chatter about the session (no XDG_RUNTIME_DIR on a build
+    // machine) is noise on a command line; warnings after start-up pass.
+    const QtMessageHandler previous = qInstallMessageHandler([](QtMsgType type, const QMessageLogContext&, const QString& m) {
+        if (type == QtFatalMsg || type == QtCriticalMsg) fprintf(stderr, "%s\n", qPrintable(m));
+    });
     static QGuiApplication* app = new QGuiApplication(argc, argv);
     (void)app;
+    qInstallMessageHandler(previous);
     return Ok{};
 }
 

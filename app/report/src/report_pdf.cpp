@@ -147,7 +147,6 @@ QString basisText(const Project& p) {
 // The inputs of a step as the user typed them.
 std::vector<std::pair<QString, QString>> stepInputs(const Step& s) {
     std::vector<std::pair<QString, QString>> rows;
-    rows.emplace_back(QStringLiteral("Kind"), view::stepKindTitle(s.kind));
     auto num = [](const Number& n) { return qs(n.raw.is_null() ? std::to_string(n.value) : n.raw.dump()); };
     if (s.hasTo) {
         if (s.to.T) rows.emplace_back(QStringLiteral("Target temperature"), qs(s.to.T->text));
@@ -188,7 +187,20 @@ void writeContent(Layout& L, const Content& c) {
     const UnitSystem us = p.displayUnits;
     const UnitContext ctx = p.unitContext();
     const Dimension E = view::energyDimension(r.system), S = view::entropyDimension(r.system);
-    auto fmt = [&](double v, Dimension d) { return formatDisplay(v, d, us, ctx); };
+    // Round-off noise (a throttle's ΔH of 1e-13 kW) prints as zero: below a
+    // billionth of the largest energy or entropy figure of the sequence.
+    double eScale = 0, sScale = 0;
+    for (const StepResult& st : r.steps) {
+        if (!st.computed) continue;
+        for (double v : {st.Q, st.W, st.dH, st.dU}) eScale = std::max(eScale, std::fabs(v));
+        for (double v : {st.dS, st.Sgen}) sScale = std::max(sScale, std::fabs(v));
+    }
+    auto fmt = [&](double v, Dimension d) {
+        if (d == E && std::fabs(v) < 1e-9 * eScale) v = 0;
+        if ((d == S) && std::fabs(v) < 1e-9 * sScale) v = 0;
+        if (d == Dimension::SpecificVolume) return view::formatNumber(toDisplay(v, d, us, ctx), 5, 9);
+        return formatDisplay(v, d, us, ctx);
+    };
     auto withUnit = [&](double v, Dimension d) { return view::formatWithUnit(v, d, us, ctx); };
     const QFont body = L.font(9), small = L.font(8);
 
@@ -290,7 +302,8 @@ void writeContent(Layout& L, const Content& c) {
             rows.emplace_back(QStringLiteral("Phase"), view::phaseText(s));
             rows.emplace_back(QStringLiteral("Specific enthalpy h"), withUnit(s.h, Dimension::SpecificEnergy));
             rows.emplace_back(QStringLiteral("Specific entropy s"), withUnit(s.s, Dimension::SpecificEntropy));
-            rows.emplace_back(QStringLiteral("Specific volume v"), withUnit(s.v, Dimension::SpecificVolume));
+            rows.emplace_back(QStringLiteral("Specific volume v"),
+                              fmt(s.v, Dimension::SpecificVolume) + QLatin1Char(' ') + unitSymbol(Dimension::SpecificVolume, us));
             if (!s.source.empty()) rows.emplace_back(QStringLiteral("Computed by"), qs(s.source));
             if (s.warnings) rows.emplace_back(QStringLiteral("Warning"), qs(describeWarnings(s.warnings)));
         }
@@ -302,18 +315,18 @@ void writeContent(Layout& L, const Content& c) {
     {
         const QString eu = unitSymbol(E, us), su = unitSymbol(S, us);
         std::vector<TableColumn> cols = {
-            {QStringLiteral("#"), {}, 0.55, Qt::AlignRight},
-            {QStringLiteral("Step"), {}, 2.6},
-            {QStringLiteral("Kind"), {}, 1.45},
-            {QStringLiteral("T end"), unitSymbol(Dimension::Temperature, us), 1.3, Qt::AlignRight},
-            {QStringLiteral("P end"), unitSymbol(Dimension::Pressure, us), 1.3, Qt::AlignRight},
-            {QStringLiteral("Phase at end"), {}, 1.9},
-            {QStringLiteral("Q"), eu, 1.45, Qt::AlignRight},
-            {QStringLiteral("W"), eu, 1.35, Qt::AlignRight},
-            {QStringLiteral("ΔH"), eu, 1.45, Qt::AlignRight},
-            {QStringLiteral("ΔS"), su, 1.3, Qt::AlignRight},
-            {QStringLiteral("S_gen"), su, 1.3, Qt::AlignRight},
-            {QStringLiteral("Exergy destroyed"), eu, 1.45, Qt::AlignRight},
+            {QStringLiteral("#"), {}, 1.0, Qt::AlignRight},
+            {QStringLiteral("Step"), {}, 2.15},
+            {QStringLiteral("Kind"), {}, 1.6},
+            {QStringLiteral("T end"), unitSymbol(Dimension::Temperature, us), 1.15, Qt::AlignRight},
+            {QStringLiteral("P end"), unitSymbol(Dimension::Pressure, us), 1.15, Qt::AlignRight},
+            {QStringLiteral("Phase at end"), {}, 1.6},
+            {QStringLiteral("Q"), eu, 1.4, Qt::AlignRight},
+            {QStringLiteral("W"), eu, 1.3, Qt::AlignRight},
+            {QStringLiteral("ΔH"), eu, 1.4, Qt::AlignRight},
+            {QStringLiteral("ΔS"), su, 1.2, Qt::AlignRight},
+            {QStringLiteral("S_gen"), su, 1.2, Qt::AlignRight},
+            {QStringLiteral("Exergy destroyed"), eu, 1.75, Qt::AlignRight},
         };
         std::vector<TableRow> rows;
         for (std::size_t i = 0; i < r.steps.size(); ++i) {
@@ -338,15 +351,15 @@ void writeContent(Layout& L, const Content& c) {
         rows.push_back({{QString(), QStringLiteral("Total"), QString(), QString(), QString(), QString(), fmt(t.Q, E),
                          fmt(t.W, E), fmt(t.dH, E), fmt(t.dS, S), fmt(t.Sgen, S), fmt(t.exergyDestroyed, E)},
                         TableRow::Style::Total});
-        rows.push_back({{QString(), QStringLiteral("Heating duty"), QStringLiteral("sum of Q > 0"), QString(),
+        rows.push_back({{QString(), QStringLiteral("Heating duty"), QString(), QString(),
                          QString(), QString(), fmt(t.heatingDuty, E)},
                         TableRow::Style::Normal});
-        rows.push_back({{QString(), QStringLiteral("Cooling duty"), QStringLiteral("sum of |Q| for Q < 0"), QString(),
+        rows.push_back({{QString(), QStringLiteral("Cooling duty"), QString(), QString(),
                          QString(), QString(), fmt(t.coolingDuty, E)},
                         TableRow::Style::Normal});
         L.table(cols, rows, 7.5, QStringLiteral("All steps, continued"));
-        L.paragraph(QStringLiteral("⚠ the step carries a warning (see its section). Energies in %1, entropies in %2.")
-                        .arg(eu, su),
+        L.paragraph(QStringLiteral("Heating duty: the sum of Q over the steps with Q > 0; cooling duty: the sum of |Q| "
+                                   "over the steps with Q < 0. ⚠ the step carries a warning (see its section)."),
                     L.font(7.5, false, true), view::ink::muted());
     }
 

@@ -20,6 +20,15 @@ double niceTickStep(double span, int count) {
     return 10.0 * mag;
 }
 
+// Decimals that tell ticks `step` apart and no more: "350", "2.5", "0.25"
+// (a fixed count printed "2.000", which reads as two thousand).
+static int tickDecimals(double step) {
+    if (!(step > 0)) return 0;
+    const double k = std::floor(std::log10(step) + 1e-9);
+    const bool twoAndHalf = std::fabs(step / std::pow(10.0, k) - 2.5) < 1e-9;  // 0.25, 2.5: one digit more
+    return std::clamp(int(-k) + (twoAndHalf ? 1 : 0), 0, 6);
+}
+
 QPointF ProcessChart::Frame::map(QPointF v) const {
     const double fx = (v.x() - x0) / (x1 - x0);
     const double fy = (v.y() - y0) / (y1 - y0);
@@ -163,7 +172,7 @@ void ProcessChart::drawAxes(QPainter& p, const Frame& f) const {
         p.setPen(QPen(ink::grid(), 1));
         p.drawLine(QPointF(a.x(), f.plot.top()), QPointF(a.x(), f.plot.bottom()));
         p.setPen(ink::muted());
-        const QString t = formatNumber(std::fabs(x) < xs * 1e-6 ? 0.0 : x, 6, 3);
+        const QString t = formatNumber(std::fabs(x) < xs * 1e-6 ? 0.0 : x, 12, tickDecimals(xs));
         p.drawText(QRectF(a.x() - 50, f.plot.bottom() + 3, 100, fm.height()), Qt::AlignHCenter, t);
     }
     for (double y = std::ceil(f.y0 / ys) * ys; y <= f.y1 + 1e-9 * ys; y += ys) {
@@ -171,7 +180,7 @@ void ProcessChart::drawAxes(QPainter& p, const Frame& f) const {
         p.setPen(QPen(ink::grid(), 1));
         p.drawLine(QPointF(f.plot.left(), a.y()), QPointF(f.plot.right(), a.y()));
         p.setPen(ink::muted());
-        const QString t = formatNumber(std::fabs(y) < ys * 1e-6 ? 0.0 : y, 6, 2);
+        const QString t = formatNumber(std::fabs(y) < ys * 1e-6 ? 0.0 : y, 12, tickDecimals(ys));
         p.drawText(QRectF(f.plot.left() - 60, a.y() - fm.height() / 2, 55, fm.height()),
                    Qt::AlignRight | Qt::AlignVCenter, t);
     }
