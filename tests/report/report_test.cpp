@@ -220,7 +220,7 @@ TEST(Report, TwoHundredStepsBreakAcrossPagesWithoutClipping) {
     // No clipping: every word lies on its page, and no body text runs into
     // the bottom margin above the footer rule (18 mm body margin, footer rule
     // 12 mm from the edge).
-    const std::string script = R"(
+    const std::string script = R"py(
 import re, subprocess, sys
 html = subprocess.run([sys.argv[1], '-bbox', sys.argv[2], '-'], capture_output=True, text=True).stdout
 bad = 0
@@ -232,7 +232,7 @@ for page in re.finditer(r'<page width="([\d.]+)" height="([\d.]+)">(.*?)</page>'
         if x0 < 0 or y0 < 0 or x1 > w or y1 > h: bad += 1
         if y1 > h - 18 * mm + 0.5 and y0 < h - 12 * mm: bad += 1
 print(bad)
-)";
+)py";
     const fs::path py = scratch("bbox.py");
     std::ofstream(py) << script;
     auto check = runCommand(std::string(HEATCHAIN_PYTHON) + " " + py.string() + " " + HEATCHAIN_PDFTOTEXT + " " + pdf.string());

@@ -12,6 +12,14 @@ namespace heatchain::report_detail {
 namespace {
 const QString kFamily = QStringLiteral("DejaVu Sans");
 const QString kMonoFamily = QStringLiteral("DejaVu Sans Mono");
+
+// No ligatures: text copied or searched in the PDF must read "qualified",
+// not "quali\uFB01ed" (Latin text needs no shaping).
+QFont plain(const QString& family) {
+    QFont f(family);
+    f.setStyleStrategy(QFont::PreferNoShaping);
+    return f;
+}
 }  // namespace
 
 Layout::Layout(QPdfWriter& writer, QPainter& painter, bool dry, int totalPages, Furniture furn)
@@ -25,7 +33,7 @@ Layout::Layout(QPdfWriter& writer, QPainter& painter, bool dry, int totalPages, 
 }
 
 QFont Layout::font(double points, bool bold, bool italic) const {
-    QFont f(kFamily);
+    QFont f = plain(kFamily);
     f.setPointSizeF(points);
     f.setBold(bold);
     f.setItalic(italic);
@@ -33,7 +41,7 @@ QFont Layout::font(double points, bool bold, bool italic) const {
 }
 
 QFont Layout::mono(double points) const {
-    QFont f(kMonoFamily);
+    QFont f = plain(kMonoFamily);
     f.setStyleHint(QFont::Monospace);
     f.setPointSizeF(points);
     return f;
@@ -224,6 +232,40 @@ void Layout::table(const std::vector<TableColumn>& cols, const std::vector<Table
     const bool markers = std::any_of(rows.begin(), rows.end(), [](const TableRow& r) { return r.marker.isValid(); });
     const double markerW = markers ? mm(3) : 0;
 
+    // Numbers never wrap: a right-aligned column gets at least the width of
+    // its widest cell, taken from the wrapping (left-aligned) columns.
+    {
+        const QFontMetricsF fm(f, &writer_), bfm(bf, &writer_), hfm(hf, &writer_);
+        double extra = 0, shrinkable = 0;
+        for (std::size_t c = 0; c < cols.size(); ++c) {
+            if (!(cols[c].align & Qt::AlignRight)) {
+                shrinkable += ws[c];
+                continue;
+            }
+            double needW = 0;
+            for (const TableRow& r : rows)
+                if (c < std::size_t(r.cells.size()))
+                    needW = std::max(needW, (r.style == TableRow::Style::Total ? bfm : fm).horizontalAdvance(r.cells[int(c)]));
+            for (const QString& word : cols[c].title.split(QLatin1Char(' ')))
+                needW = std::max(needW, hfm.horizontalAdvance(word));
+            needW += 2 * pad + (c == 0 ? markerW : 0) + mm(0.3);
+            if (needW > ws[c]) {
+                extra += needW - ws[c];
+                ws[c] = needW;
+            }
+        }
+        if (extra > 0 && shrinkable > extra) {
+            const double k = (shrinkable - extra) / shrinkable;
+            for (std::size_t c = 0; c < cols.size(); ++c)
+                if (!(cols[c].align & Qt::AlignRight)) ws[c] *= k;
+        }
+        double xx = body_.left();
+        for (std::size_t c = 0; c < cols.size(); ++c) {
+            xs[c] = xx;
+            xx += ws[c];
+        }
+    }
+
     double headerH = 0;
     bool anyUnit = false;
     for (std::size_t c = 0; c < cols.size(); ++c) {
@@ -378,7 +420,7 @@ std::vector<LegendEntry> legendEntries(const SequenceResult& r) {
 }
 
 QFont chartFont() {
-    QFont f(kFamily);
+    QFont f = plain(kFamily);
     f.setPixelSize(11);
     return f;
 }
