@@ -298,6 +298,10 @@ std::string projectDiffText(const ProjectDiff& d, const Project& after) {
         return v ? formatQuantity(*v, dim, us, ctx) : std::string("–");
     };
     auto line = [&](const char* name, const Shift& s, Dimension dim, Dimension diffDim) {
+        if (!s.changed(1e-9, 1e-6)) {
+            o << "    " << name << ": " << q(s.after, dim) << " (unchanged)\n";
+            return;
+        }
         o << "    " << name << ": " << q(s.before, dim) << " -> " << q(s.after, dim);
         if (auto dl = s.delta()) o << " (change " << (*dl > 0 ? "+" : "") << formatQuantity(*dl, diffDim, us, ctx) << ")";
         o << "\n";

@@ -199,6 +199,9 @@ void writeContent(Layout& L, const Content& c) {
         if (d == E && std::fabs(v) < 1e-9 * eScale) v = 0;
         if ((d == S) && std::fabs(v) < 1e-9 * sScale) v = 0;
         if (d == Dimension::SpecificVolume) return view::formatNumber(toDisplay(v, d, us, ctx), 5, 9);
+        // Small entropy figures (a pump's S_gen) keep four significant digits
+        // instead of one: the fixed four decimals of the screen would print 0.0008.
+        if (d == S) return view::formatNumber(toDisplay(v, d, us, ctx), 4, 7);
         return formatDisplay(v, d, us, ctx);
     };
     auto withUnit = [&](double v, Dimension d) { return view::formatWithUnit(v, d, us, ctx); };
