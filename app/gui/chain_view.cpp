@@ -35,6 +35,9 @@ public:
         setFlag(ItemSendsGeometryChanges, index >= 0);
         setAcceptHoverEvents(true);
         setCursor(index >= 0 ? Qt::OpenHandCursor : Qt::ArrowCursor);
+        // A card is drawn once into a pixmap and blitted until its text
+        // changes: an edit on a long sheet re-renders only the cards it moved.
+        setCacheMode(DeviceCoordinateCache);
     }
     QRectF boundingRect() const override { return {-2, -2, kCardW + 4, kCardH + 4}; }
 
@@ -235,6 +238,11 @@ protected:
 
 private:
     void finish() {
+        const QString key = heading_ + QChar(1) + title_ + QChar(1) + spec_ + QChar(1) + line1_ +
+                            QChar(1) + line2_ + QChar(1) + line3_ + QChar(1) + error_ + QChar(1) +
+                            warnings_.join(QChar(2)) + QChar(1) + colour_.name();
+        if (key == key_) return;
+        key_ = key;
         QStringList tip;
         tip << QStringLiteral("<b>%1</b> — %2").arg(title_.toHtmlEscaped(), heading_.toHtmlEscaped());
         tip << spec_.toHtmlEscaped();
@@ -252,7 +260,7 @@ private:
     QPointF pressPos_;
     std::optional<StepKind> kind_;
     QColor colour_, accent_;
-    QString heading_, title_, spec_, line1_, line2_, line3_, error_;
+    QString heading_, title_, spec_, line1_, line2_, line3_, error_, key_;
     QStringList warnings_;
 };
 
@@ -563,7 +571,10 @@ void ChainView::resetZoom() {
 
 void ChainView::resizeEvent(QResizeEvent* e) {
     QGraphicsView::resizeEvent(e);
-    if (columns() != cols_) layoutCards();
+    if (columns() != cols_) {
+        layoutCards();
+        updateSelection();
+    }
 }
 
 }  // namespace heatchain::gui

@@ -3,6 +3,7 @@
 #include <QBrush>
 #include <QColor>
 #include <QFont>
+#include <cmath>
 
 #include "heatchain_qt/format.hpp"
 
@@ -160,6 +161,17 @@ QString LedgerModel::text(const Row& row, int c) const {
     }
     const QVariant v = siValue(row, c);
     if (!v.isValid()) return {};
+    if (c >= ColQ && c != ColdS && c != ColSgen) {
+        // Round-off of a balance (ΔH of a throttle: 8e−13 kW) reads as a
+        // number; below a billionth of the row's largest energy it shows as 0.
+        // The full value stays in the copied text and in SiRole.
+        double scale = 0;
+        for (int k : {int(ColQ), int(ColW), int(ColdH), int(ColdU)}) {
+            const QVariant e = siValue(row, k);
+            if (e.isValid()) scale = std::max(scale, std::fabs(e.toDouble()));
+        }
+        if (std::fabs(v.toDouble()) < 1e-9 * scale) return QStringLiteral("0");
+    }
     return formatDisplay(v.toDouble(), dimensionOf(c), p.displayUnits, p.unitContext());
 }
 

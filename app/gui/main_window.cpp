@@ -11,6 +11,7 @@
 #include <QHeaderView>
 #include <QMenuBar>
 #include <QMessageBox>
+#include <QScreen>
 #include <QScrollArea>
 #include <QSettings>
 #include <QSplitter>
@@ -61,6 +62,13 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
         "QTableView { alternate-background-color: #f7f9fb; gridline-color: #e3e6ea; }"
         "QHeaderView::section { padding: 2px 6px; background: #eceff2; border: none; "
         "border-bottom: 1px solid #c9ced4; border-right: 1px solid #dde1e5; }"));
+    // Column widths set once for the usual magnitudes (resizing to contents
+    // on every edit would cost a scan of the whole ledger).
+    ledgerView_->setColumnWidth(LedgerModel::ColStep, 150);
+    ledgerView_->setColumnWidth(LedgerModel::ColWhat, 160);
+    for (int c = LedgerModel::ColTin; c < LedgerModel::ColumnCount; ++c) ledgerView_->setColumnWidth(c, 82);
+    ledgerView_->setColumnWidth(LedgerModel::ColPhase, 170);
+    ledgerView_->setColumnWidth(LedgerModel::ColExd, 100);
     connect(ledgerView_->selectionModel(), &QItemSelectionModel::currentRowChanged, this,
             [this](const QModelIndex& current) {
                 if (!current.isValid()) return;
@@ -68,13 +76,11 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
                 if (step >= 0) doc_.setSelectedStep(step);
             });
 
-    auto* split = new QSplitter(Qt::Vertical, this);
-    split->addWidget(chain_);
-    split->addWidget(ledgerView_);
-    split->setStretchFactor(0, 3);
-    split->setStretchFactor(1, 2);
-    split->setObjectName(QStringLiteral("centralSplit"));
-    setCentralWidget(split);
+    setCentralWidget(chain_);
+    // The ledger is wide (14 columns): it gets the full width of the window
+    // below the editor, canvas and charts.
+    setCorner(Qt::BottomLeftCorner, Qt::BottomDockWidgetArea);
+    setCorner(Qt::BottomRightCorner, Qt::BottomDockWidgetArea);
 
     buildDocks();
     buildActions();
@@ -118,7 +124,14 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     });
     updateTitle();
     updateStatus();
-    resize(1500, 920);
+    // First start: fill most of the screen; later starts restore the last layout.
+    if (const QScreen* screen = QGuiApplication::primaryScreen()) {
+        const QRect avail = screen->availableGeometry();
+        resize(avail.size() * 0.96);
+        move(avail.topLeft() + QPoint(avail.width() * 0.02, avail.height() * 0.01));
+    } else {
+        resize(1500, 920);
+    }
 }
 
 void MainWindow::buildDocks() {
@@ -130,7 +143,7 @@ void MainWindow::buildDocks() {
     auto* editorDock = new QDockWidget(tr("Step"), this);
     editorDock->setObjectName(QStringLiteral("stepDock"));
     editorDock->setWidget(editorScroll);
-    editorDock->setMinimumWidth(300);
+    editorDock->setMinimumWidth(360);
     addDockWidget(Qt::LeftDockWidgetArea, editorDock);
 
     ts_ = new ChartWidget(&doc_, ProcessChart::Kind::TemperatureEntropy, this);
@@ -144,16 +157,26 @@ void MainWindow::buildDocks() {
     chartDock->setMinimumWidth(380);
     addDockWidget(Qt::RightDockWidgetArea, chartDock);
 
+    auto* ledgerDock = new QDockWidget(tr("Ledger"), this);
+    ledgerDock->setObjectName(QStringLiteral("ledgerDock"));
+    ledgerDock->setWidget(ledgerView_);
+    addDockWidget(Qt::BottomDockWidgetArea, ledgerDock);
+
     messages_ = new MessagesPanel(&doc_, this);
     auto* msgDock = new QDockWidget(tr("Messages"), this);
     msgDock->setObjectName(QStringLiteral("messagesDock"));
     msgDock->setWidget(messages_);
     addDockWidget(Qt::BottomDockWidgetArea, msgDock);
-    resizeDocks({msgDock}, {110}, Qt::Vertical);
-    resizeDocks({editorDock, chartDock}, {330, 470}, Qt::Horizontal);
+    splitDockWidget(ledgerDock, msgDock, Qt::Vertical);
+    connect(messages_, &MessagesPanel::countsChanged, msgDock, [msgDock](int e, int w) {
+        msgDock->setWindowTitle(e + w == 0 ? tr("Messages") : tr("Messages — %1 error(s), %2 warning(s)").arg(e).arg(w));
+    });
+    resizeDocks({ledgerDock, msgDock}, {215, 64}, Qt::Vertical);
+    resizeDocks({editorDock, chartDock}, {370, 520}, Qt::Horizontal);
     viewMenu_ = new QMenu(tr("&View"), this);
     viewMenu_->addAction(editorDock->toggleViewAction());
     viewMenu_->addAction(chartDock->toggleViewAction());
+    viewMenu_->addAction(ledgerDock->toggleViewAction());
     viewMenu_->addAction(msgDock->toggleViewAction());
 }
 

@@ -185,7 +185,7 @@ public:
         if (v.is_number()) {
             const double x = v.get<double>();
             if (!std::isfinite(x)) fail(path, "the number is not finite");
-            return Number{v, x};
+            return Number{v, x, typedNumber(path, x)};
         }
         if (v.is_string()) {
             auto x = parseQuantity(v.get_ref<const std::string&>(), Dimension::Dimensionless, units);
@@ -193,6 +193,21 @@ public:
             return Number{v, *x};
         }
         fail(path, "expected a number; found " + jsonTypeName(v));
+    }
+
+    // The characters of a JSON number as typed, so "0.60" is written back as
+    // "0.60" and not as "0.6"; empty if the text cannot be found or disagrees.
+    std::string typedNumber(const JsonPath& path, double value) const {
+        const std::size_t at = detail::locateJsonValue(text_, path);
+        std::size_t end = at;
+        while (end < text_.size() && std::string_view("+-0123456789.eE").find(text_[end]) != std::string_view::npos)
+            ++end;
+        if (end == at || end - at > 64) return {};
+        std::string token(text_.substr(at, end - at));
+        char* stop = nullptr;
+        const double parsed = std::strtod(token.c_str(), &stop);
+        if (stop != token.c_str() + token.size() || parsed != value) return {};
+        return token;
     }
 
     // A number within [lo, hi] (bounds open where said).
@@ -712,7 +727,18 @@ Json quantityJson(const Quantity& q, Dimension d) {
     return s.str();
 }
 
+// While writeProject runs, numbers typed in a file are written through
+// placeholders that are swapped for their original characters after the dump
+// (nlohmann/json always reprints a double in its own shortest form).
+thread_local std::vector<std::string>* typedNumbers = nullptr;
+
+std::string numberPlaceholder(std::size_t k) { return "\\u0001hcnum" + std::to_string(k) + "\\u0001"; }
+
 Json numberJson(const Number& n) {
+    if (typedNumbers && !n.text.empty() && n.raw.is_number()) {
+        typedNumbers->push_back(n.text);
+        return "\x01hcnum" + std::to_string(typedNumbers->size() - 1) + "\x01";
+    }
     if (n.raw.is_number() || n.raw.is_string()) return n.raw;
     return n.value;
 }
@@ -794,7 +820,28 @@ Result<Project> loadProject(const std::filesystem::path& file) {
     return parseProject(text, name);
 }
 
+std::string writeProjectDump(const Project& p);
+
 std::string writeProject(const Project& p) {
+    std::vector<std::string> typed;
+    typedNumbers = &typed;
+    std::string out = writeProjectDump(p);
+    typedNumbers = nullptr;
+    if (typed.empty()) return out;
+    // Swap each placeholder for the typed characters; if a placeholder is not
+    // found exactly once (a string value that happens to look like one), write
+    // the numbers in nlohmann/json's form instead.
+    std::string swapped = out;
+    for (std::size_t k = typed.size(); k-- > 0;) {
+        const std::string ph = "\"" + numberPlaceholder(k) + "\"";
+        const auto pos = swapped.find(ph);
+        if (pos == std::string::npos || swapped.find(ph, pos + 1) != std::string::npos) return writeProjectDump(p);
+        swapped.replace(pos, ph.size(), typed[k]);
+    }
+    return swapped;
+}
+
+std::string writeProjectDump(const Project& p) {
     Json j = Json::object();
     j["format"] = std::string(kFormatName);
     j["version"] = p.version;

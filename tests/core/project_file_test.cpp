@@ -763,3 +763,63 @@ TEST_F(ProjectFileOnDisk, ErrorsNameTheFile) {
 
 }  // namespace
 }  // namespace heatchain
+
+// project-format.md: "numbers as the user typed them". nlohmann/json reprints
+// doubles in shortest form (0.60 → 0.6), so the writer must keep the text.
+TEST(ProjectFileNumbers, DimensionlessNumbersKeepTheirTypedCharacters) {
+    using heatchain::parseProject;
+    using heatchain::writeProject;
+    const std::string text = R"({
+  "format": "heatchain-project",
+  "version": 1,
+  "meta": {
+    "title": "looks like a placeholder: \u0001hcnum0\u0001"
+  },
+  "display": {
+    "units": "SI"
+  },
+  "system": "steady-flow",
+  "model": "constant-cp",
+  "substance": "nitrogen",
+  "basis": {
+    "massFlow": "1 kg/s"
+  },
+  "start": {
+    "T": "300 K",
+    "P": "1 bar"
+  },
+  "steps": [
+    {
+      "id": "c1",
+      "kind": "compress",
+      "to": {
+        "ratio": 2.50
+      },
+      "path": "adiabatic",
+      "efficiency": 0.60
+    },
+    {
+      "id": "c2",
+      "kind": "compress",
+      "to": {
+        "ratio": 1.5e0
+      },
+      "path": "polytropic",
+      "n": 1.30
+    }
+  ]
+}
+)";
+    auto p = parseProject(text, "numbers.hchain");
+    ASSERT_TRUE(p.ok()) << p.error().text();
+    EXPECT_DOUBLE_EQ(p->steps[0].efficiency->value, 0.6);
+    const std::string out = writeProject(*p);
+    EXPECT_NE(out.find("\"efficiency\": 0.60"), std::string::npos) << out;
+    EXPECT_NE(out.find("\"ratio\": 2.50"), std::string::npos) << out;
+    EXPECT_NE(out.find("\"ratio\": 1.5e0"), std::string::npos) << out;
+    EXPECT_NE(out.find("\"n\": 1.30"), std::string::npos) << out;
+    EXPECT_NE(out.find("hcnum0"), std::string::npos) << "the title's text survives";
+    auto again = parseProject(out, "numbers.hchain");
+    ASSERT_TRUE(again.ok()) << again.error().text();
+    EXPECT_EQ(writeProject(*again), out) << "same project, same bytes";
+}

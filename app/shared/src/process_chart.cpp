@@ -20,13 +20,15 @@ double niceTickStep(double span, int count) {
     return 10.0 * mag;
 }
 
-// Decimals that tell ticks `step` apart and no more: "350", "2.5", "0.25"
-// (a fixed count printed "2.000", which reads as two thousand).
-static int tickDecimals(double step) {
-    if (!(step > 0)) return 0;
-    const double k = std::floor(std::log10(step) + 1e-9);
-    const bool twoAndHalf = std::fabs(step / std::pow(10.0, k) - 2.5) < 1e-9;  // 0.25, 2.5: one digit more
-    return std::clamp(int(-k) + (twoAndHalf ? 1 : 0), 0, 6);
+// Decimals a tick label needs to tell neighbouring ticks apart (2.5 → 1).
+static int decimalsFor(double tickStep) {
+    int d = 0;
+    double v = tickStep;
+    while (d < 6 && std::fabs(v - std::round(v)) > 1e-6 * std::max(1.0, std::fabs(v))) {
+        v *= 10;
+        ++d;
+    }
+    return d;
 }
 
 QPointF ProcessChart::Frame::map(QPointF v) const {
@@ -165,14 +167,15 @@ ProcessChart::Frame ProcessChart::frame(const QRectF& rect) const {
 void ProcessChart::drawAxes(QPainter& p, const Frame& f) const {
     const QFontMetricsF fm(p.font());
     const double xs = niceTickStep(f.x1 - f.x0, std::max(2, int(f.plot.width() / 90)));
-    const double ys = niceTickStep(f.y1 - f.y0, std::max(2, int(f.plot.height() / 40)));
+    const double ys = niceTickStep(f.y1 - f.y0, std::max(3, int(f.plot.height() / 34)));
     p.setPen(QPen(ink::grid(), 1));
     for (double x = std::ceil(f.x0 / xs) * xs; x <= f.x1 + 1e-9 * xs; x += xs) {
         const QPointF a = f.map({x, f.y0});
         p.setPen(QPen(ink::grid(), 1));
         p.drawLine(QPointF(a.x(), f.plot.top()), QPointF(a.x(), f.plot.bottom()));
         p.setPen(ink::muted());
-        const QString t = formatNumber(std::fabs(x) < xs * 1e-6 ? 0.0 : x, 12, tickDecimals(xs));
+        const QString t = QString::number(std::fabs(x) < xs * 1e-6 ? 0.0 : x, 'f', decimalsFor(xs))
+                              .replace(QLatin1Char('-'), QChar(0x2212));
         p.drawText(QRectF(a.x() - 50, f.plot.bottom() + 3, 100, fm.height()), Qt::AlignHCenter, t);
     }
     for (double y = std::ceil(f.y0 / ys) * ys; y <= f.y1 + 1e-9 * ys; y += ys) {
@@ -180,7 +183,8 @@ void ProcessChart::drawAxes(QPainter& p, const Frame& f) const {
         p.setPen(QPen(ink::grid(), 1));
         p.drawLine(QPointF(f.plot.left(), a.y()), QPointF(f.plot.right(), a.y()));
         p.setPen(ink::muted());
-        const QString t = formatNumber(std::fabs(y) < ys * 1e-6 ? 0.0 : y, 12, tickDecimals(ys));
+        const QString t = QString::number(std::fabs(y) < ys * 1e-6 ? 0.0 : y, 'f', decimalsFor(ys))
+                              .replace(QLatin1Char('-'), QChar(0x2212));
         p.drawText(QRectF(f.plot.left() - 60, a.y() - fm.height() / 2, 55, fm.height()),
                    Qt::AlignRight | Qt::AlignVCenter, t);
     }
@@ -219,7 +223,7 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
         const QPointF top = *std::max_element(poly.begin(), poly.end(),
                                               [](QPointF a, QPointF b) { return a.y() > b.y(); });
         p.setPen(ink::muted());
-        p.drawText(top + QPointF(6, -4), QStringLiteral("saturation"));
+        p.drawText(top + QPointF(8, 14), QStringLiteral("saturation"));
     }
 
     for (const ReservoirLine& r : reservoirs_) {
@@ -227,22 +231,35 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
         QPen pen(r.colour, r.step == selected_ ? 2.2 : 1.4, Qt::DashLine);
         p.setPen(pen);
         p.drawLine(a, b);
-        p.setPen(r.colour.darker(120));
-        p.drawText(QPointF(std::min(a.x(), b.x()) + 2, a.y() - 3),
-                   r.source ? QStringLiteral("source") : QStringLiteral("sink"));
+        // Words on every line would bury a long sheet: label the selected
+        // step's line, or all of them on a short sheet.
+        if (reservoirs_.size() <= 12 || r.step == selected_) {
+            p.setPen(r.colour.darker(120));
+            p.drawText(QPointF(std::min(a.x(), b.x()) + 2, a.y() - 3),
+                       r.source ? QStringLiteral("source") : QStringLiteral("sink"));
+        }
     }
 
     // Unselected steps first, the selected one on top with a halo.
     auto drawSeries = [&](const Series& s, bool selected) {
+        // Points closer than a pixel to the last one kept add nothing but
+        // stroking work (a 100-step sheet carries 6,400 points).
         QPolygonF line;
-        for (QPointF v : s.pts) line << f.map(v);
+        line.reserve(qsizetype(s.pts.size()));
+        for (std::size_t i = 0; i < s.pts.size(); ++i) {
+            const QPointF m = f.map(s.pts[i]);
+            if (!line.isEmpty() && i + 1 < s.pts.size() && (m - line.back()).manhattanLength() < 1.5)
+                continue;
+            line << m;
+        }
         if (selected) {
             p.setPen(QPen(QColor(255, 235, 150), 7, Qt::SolidLine, Qt::RoundCap, Qt::RoundJoin));
             p.drawPolyline(line);
         }
         QColor c = s.colour;
         if (selected_ >= 0 && !selected) c.setAlpha(150);
-        p.setPen(QPen(c, selected ? 3.0 : 1.8, Qt::SolidLine, Qt::RoundCap, Qt::RoundJoin));
+        // Bevel joins: round joins cost a trigonometric arc at every vertex.
+        p.setPen(QPen(c, selected ? 3.0 : 1.8, Qt::SolidLine, Qt::FlatCap, Qt::BevelJoin));
         p.drawPolyline(line);
     };
     for (const Series& s : series_)
@@ -250,11 +267,14 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
     for (const Series& s : series_)
         if (s.step == selected_) drawSeries(s, true);
 
-    // State points: the ends of each step.
+    // State points: the ends of each step (on long sheets only the selected
+    // step's, where dozens of dots would hide the paths).
     int lastStep = -2;
+    const bool allMarkers = series_.empty() || series_.back().step < 40;
     for (std::size_t k = 0; k < series_.size(); ++k) {
         const Series& s = series_[k];
         if (s.pts.empty()) continue;
+        if (!allMarkers && s.step != selected_) continue;
         const bool lastOfStep = k + 1 == series_.size() || series_[k + 1].step != s.step;
         if (s.step != lastStep) {
             p.setPen(QPen(ink::text(), 1));
