@@ -10,6 +10,7 @@
 #include <string>
 #include <vector>
 
+#include "heatchain/project_diff.hpp"
 #include "heatchain/project_file.hpp"
 #include "heatchain/property_model.hpp"
 #include "heatchain/results_json.hpp"
@@ -31,7 +32,9 @@ constexpr int kDone = 0, kUsage = 2, kInvalid = 3, kCannotCompute = 4;
 const char* kUsageText =
     "usage:\n"
     "  heatchain-cli compute PROJECT [--json | --csv] [-o FILE]\n"
-    "  heatchain-cli report  PROJECT -o REPORT.pdf\n"
+    "  heatchain-cli report  PROJECT -o REPORT.pdf [--page A4|letter]\n"
+    "  heatchain-cli chart   PROJECT --ts|--tq -o FILE.svg|FILE.png\n"
+    "  heatchain-cli diff    BEFORE AFTER [--json]\n"
     "  heatchain-cli check   PROJECT\n"
     "  heatchain-cli state   SUBSTANCE T=<q> P=<q> | P=<q> h=<q> | P=<q> s=<q> | T=<q> quality=<x> | P=<q> quality=<x>"
     "  [--model M] [--json]\n"
@@ -65,7 +68,7 @@ Result<Args> parseArgs(int argc, char** argv, int from) {
     Args a;
     for (int i = from; i < argc; ++i) {
         std::string s = argv[i];
-        if (s == "-o" || s == "--output" || s == "--model") {
+        if (s == "-o" || s == "--output" || s == "--model" || s == "--page") {
             if (i + 1 >= argc) return makeError(s + " needs a value");
             a.options[s == "--output" ? "-o" : s] = argv[++i];
         } else if (s.rfind("--", 0) == 0) {
@@ -116,21 +119,39 @@ int compute(const Args& a, bool checkOnly) {
     return rc;
 }
 
-int report(const Args& a) {
-    if (a.positional.size() != 1 || !a.options.count("-o")) return usage("report needs PROJECT and -o REPORT.pdf");
-#ifdef HEATCHAIN_HAVE_REPORT
-    auto project = loadProject(a.positional[0]);
-    if (!project) {
-        std::cerr << "heatchain-cli: " << project.error().text() << "\n";
+// Loads and solves PROJECT for the verbs that draw; the exit status on failure.
+std::optional<int> loadForDrawing(const std::string& file, std::optional<Project>& project,
+                                  std::optional<SequenceResult>& result) {
+    auto loaded = loadProject(file);
+    if (!loaded) {
+        std::cerr << "heatchain-cli: " << loaded.error().text() << "\n";
         return kInvalid;
     }
-    const auto result = solve(*project);
-    auto st = writeReportPdf(*project, result, a.positional[0], a.options.at("-o"));
+    project = std::move(*loaded);
+    result = solve(*project);
+    return std::nullopt;
+}
+
+int report(const Args& a) {
+    if (a.positional.size() != 1 || !a.options.count("-o")) return usage("report needs PROJECT and -o REPORT.pdf");
+    for (const auto& [k, v] : a.options)
+        if (k != "-o" && k != "--page") return usage("unknown option " + k);
+#ifdef HEATCHAIN_HAVE_REPORT
+    ReportOptions options;
+    if (auto it = a.options.find("--page"); it != a.options.end()) {
+        auto size = parsePageSize(it->second);
+        if (!size) return usage(size.error().message);
+        options.pageSize = *size;
+    }
+    std::optional<Project> project;
+    std::optional<SequenceResult> result;
+    if (auto rc = loadForDrawing(a.positional[0], project, result)) return *rc;
+    auto st = writeReportPdf(*project, *result, a.positional[0], a.options.at("-o"), options);
     if (!st) {
         std::cerr << "heatchain-cli: " << st.error().text() << "\n";
         return kCannotCompute;
     }
-    if (const Error* err = result.firstError()) {
+    if (const Error* err = result->firstError()) {
         std::cerr << "heatchain-cli: report written, but " << err->text() << "\n";
         return kCannotCompute;
     }
@@ -138,6 +159,62 @@ int report(const Args& a) {
 #else
     return usage("report is not available in this build (it needs the Qt report library)");
 #endif
+}
+
+int chart(const Args& a) {
+    if (a.positional.size() != 1 || !a.options.count("-o")) return usage("chart needs PROJECT, --ts or --tq, and -o FILE.svg|FILE.png");
+    for (const auto& [k, v] : a.options)
+        if (k != "-o" && k != "--ts" && k != "--tq") return usage("unknown option " + k);
+    const bool ts = a.options.count("--ts"), tq = a.options.count("--tq");
+    if (ts == tq) return usage("chart needs exactly one of --ts (temperature-entropy) and --tq (temperature-duty)");
+#ifdef HEATCHAIN_HAVE_REPORT
+    const std::string out = a.options.at("-o");
+    if (auto format = imageFormatFor(out); !format) return usage(format.error().text());
+    std::optional<Project> project;
+    std::optional<SequenceResult> result;
+    if (auto rc = loadForDrawing(a.positional[0], project, result)) return *rc;
+    auto st = exportChart(*project, *result, ts ? ChartKind::TemperatureEntropy : ChartKind::TemperatureDuty, out);
+    if (!st) {
+        std::cerr << "heatchain-cli: " << st.error().text() << "\n";
+        return kCannotCompute;
+    }
+    if (const Error* err = result->firstError()) {
+        std::cerr << "heatchain-cli: chart written, but " << err->text() << "\n";
+        return kCannotCompute;
+    }
+    return kDone;
+#else
+    return usage("chart is not available in this build (it needs the Qt report library)");
+#endif
+}
+
+// Exit 0 whether or not the revisions differ (a review aid, not a test).
+int diff(const Args& a) {
+    if (a.positional.size() != 2) return usage("diff needs two project files, BEFORE and AFTER");
+    for (const auto& [k, v] : a.options)
+        if (k != "--json") return usage("unknown option " + k);
+    auto before = loadProject(a.positional[0]);
+    if (!before) {
+        std::cerr << "heatchain-cli: " << before.error().text() << "\n";
+        return kInvalid;
+    }
+    auto after = loadProject(a.positional[1]);
+    if (!after) {
+        std::cerr << "heatchain-cli: " << after.error().text() << "\n";
+        return kInvalid;
+    }
+    const auto ra = solve(*before), rb = solve(*after);
+    const ProjectDiff d = diffProjects(*before, ra, *after, rb);
+    if (a.options.count("--json")) {
+        std::cout << projectDiffToJson(d, *after).dump(2) << "\n";
+    } else {
+        std::cout << "Comparing " << a.positional[0] << " (before) with " << a.positional[1] << " (after)\n"
+                  << projectDiffText(d, *after);
+    }
+    for (const auto* r : {&ra, &rb})
+        if (const Error* err = r->firstError())
+            std::cerr << "heatchain-cli: note: " << (r == &ra ? a.positional[0] : a.positional[1]) << ": " << err->text() << "\n";
+    return kDone;
 }
 
 int state(const Args& a) {
@@ -275,6 +352,8 @@ int main(int argc, char** argv) {
     if (verb == "compute") return compute(*args, false);
     if (verb == "check") return compute(*args, true);
     if (verb == "report") return report(*args);
+    if (verb == "chart") return chart(*args);
+    if (verb == "diff") return diff(*args);
     if (verb == "state") return state(*args);
     if (verb == "substances") return substances(*args);
     return usage("unknown command \"" + verb + "\"");

@@ -1,0 +1,88 @@
+// Exports of a solved project: each chart as PNG or SVG (the same drawing
+// as the report), the ledger as CSV and the results as JSON (core's
+// formats). Files are written atomically.
+#include <QBuffer>
+#include <QImage>
+#include <QPainter>
+#include <QSvgGenerator>
+#include <algorithm>
+#include <cctype>
+
+#include "gui_app.hpp"
+#include "heatchain/project_file.hpp"
+#include "heatchain/report.hpp"
+#include "heatchain/results_json.hpp"
+#include "heatchain_qt/process_chart.hpp"
+#include "report_layout.hpp"
+
+namespace heatchain {
+
+Result<ImageFormat> imageFormatFor(const std::filesystem::path& file) {
+    std::string ext = file.extension().string();
+    for (char& ch : ext) ch = char(std::tolower(static_cast<unsigned char>(ch)));
+    if (ext == ".png") return ImageFormat::Png;
+    if (ext == ".svg") return ImageFormat::Svg;
+    return makeError("the chart file name must end in .png or .svg", file.string());
+}
+
+Result<std::string> renderChart(const Project& project, const SequenceResult& result, ChartKind kind,
+                                ImageFormat format, const ChartImageOptions& options) {
+    if (auto st = report_detail::ensureGuiApplication(); !st) return st.error();
+    if (options.width < 200 || options.height < 150 || options.width > 10000 || options.height > 10000)
+        return makeError("chart size must be between 200 × 150 and 10000 × 10000");
+    const auto chartKind = kind == ChartKind::TemperatureEntropy ? view::ProcessChart::Kind::TemperatureEntropy
+                                                                 : view::ProcessChart::Kind::TemperatureDuty;
+    view::ProcessChart chart(chartKind);
+    std::optional<DomeCurve> dome;
+    if (kind == ChartKind::TemperatureEntropy && result.model) dome = saturationDome(*result.model);
+    chart.setData(project, result, dome && !dome->liquidSide.empty() ? &*dome : nullptr);
+
+    const QRectF rect(0, 0, options.width, options.height);
+    // Lay the chart out at a width where its 11-pixel labels read well, and
+    // scale that to the requested size.
+    const double logicalW = std::clamp(double(options.width), 640.0, 1000.0);
+    QBuffer buffer;
+    buffer.open(QIODevice::WriteOnly);
+    if (format == ImageFormat::Svg) {
+        QSvgGenerator svg;
+        svg.setOutputDevice(&buffer);
+        svg.setSize(QSize(options.width, options.height));
+        svg.setViewBox(rect);
+        svg.setTitle(QString::fromStdString(project.meta.title));
+        svg.setDescription(kind == ChartKind::TemperatureEntropy ? QStringLiteral("Temperature–entropy chart")
+                                                                 : QStringLiteral("Temperature–duty chart"));
+        QPainter p;
+        if (!p.begin(&svg)) return makeError("cannot start drawing the SVG");
+        report_detail::paintChartFigure(p, rect, chart, result, logicalW, options.legend);
+        p.end();
+    } else {
+        QImage image(options.width, options.height, QImage::Format_ARGB32_Premultiplied);
+        image.fill(Qt::white);
+        QPainter p(&image);
+        report_detail::paintChartFigure(p, rect, chart, result, logicalW, options.legend);
+        p.end();
+        if (!image.save(&buffer, "PNG")) return makeError("cannot encode the PNG");
+    }
+    const QByteArray data = buffer.data();
+    return std::string(data.constData(), std::size_t(data.size()));
+}
+
+Status exportChart(const Project& project, const SequenceResult& result, ChartKind kind,
+                   const std::filesystem::path& out, const ChartImageOptions& options) {
+    auto format = imageFormatFor(out);
+    if (!format) return format.error();
+    auto bytes = renderChart(project, result, kind, *format, options);
+    if (!bytes) return bytes.error();
+    return writeFileAtomically(out, *bytes, /*keepBackup=*/false);
+}
+
+Status exportLedgerCsv(const Project& project, const SequenceResult& result, const std::filesystem::path& out) {
+    return writeFileAtomically(out, resultsToCsv(project, result), /*keepBackup=*/false);
+}
+
+Status exportResultsJson(const Project& project, const SequenceResult& result,
+                         const std::filesystem::path& out) {
+    return writeFileAtomically(out, resultsToJson(project, result).dump(2) + "\n", /*keepBackup=*/false);
+}
+
+}  // namespace heatchain

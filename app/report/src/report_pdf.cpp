@@ -1,0 +1,518 @@
+// The PDF step report: a title block, the cautions, basis, substance and
+// model with their sources, the start state, the ledger of all steps with
+// totals, both process charts, and a section per step. Vector text and
+// vector charts (QPdfWriter), A4 or US Letter. Only formats and draws what
+// core computed.
+#include <QBuffer>
+#include <QCryptographicHash>
+#include <QDateTime>
+#include <QFile>
+#include <QFileInfo>
+#include <QPageSize>
+#include <QPdfWriter>
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+#include "gui_app.hpp"
+#include "heatchain/project_file.hpp"
+#include "heatchain/report.hpp"
+#include "heatchain_qt/format.hpp"
+#include "heatchain_qt/palette.hpp"
+#include "heatchain_qt/process_chart.hpp"
+#include "report_layout.hpp"
+
+namespace heatchain {
+
+Result<PageSize> parsePageSize(std::string_view id) {
+    const QString s = QString::fromUtf8(id.data(), qsizetype(id.size())).toLower();
+    if (s == QLatin1String("a4")) return PageSize::A4;
+    if (s == QLatin1String("letter") || s == QLatin1String("us-letter")) return PageSize::Letter;
+    return makeError("unknown page size \"" + std::string(id) + "\"; use A4 or letter");
+}
+
+namespace {
+
+using namespace report_detail;
+using view::formatDisplay;
+using view::unitSymbol;
+
+QString qs(std::string_view s) { return QString::fromUtf8(s.data(), qsizetype(s.size())); }
+QString qs(const std::string& s) { return QString::fromStdString(s); }
+
+// The conditions met anywhere along the sequence, for the cautions.
+struct Extremes {
+    double Tmin = std::numeric_limits<double>::infinity();
+    double Tmax = -std::numeric_limits<double>::infinity();
+    double Pmax = 0;
+    double reservoirTmax = -std::numeric_limits<double>::infinity();
+    bool vapourOfWater = false;
+};
+
+Extremes extremes(const Project& project, const SequenceResult& r) {
+    Extremes e;
+    auto state = [&](const State& s) {
+        if (!std::isfinite(s.T)) return;
+        e.Tmin = std::min(e.Tmin, s.T);
+        e.Tmax = std::max(e.Tmax, s.T);
+        if (std::isfinite(s.P)) e.Pmax = std::max(e.Pmax, s.P);
+        if (project.substance.id == "water" &&
+            (s.phase == Phase::Vapor || s.phase == Phase::LiquidVapor || s.phase == Phase::Supercritical))
+            e.vapourOfWater = true;
+    };
+    if (!r.startError) state(r.start);
+    for (const StepResult& st : r.steps) {
+        if (!st.computed) continue;
+        state(st.start);
+        state(st.end);
+        for (const SegmentResult& g : st.segments) {
+            for (const CurvePoint& c : g.curve) {
+                if (!std::isfinite(c.T)) continue;
+                e.Tmin = std::min(e.Tmin, c.T);
+                e.Tmax = std::max(e.Tmax, c.T);
+                if (std::isfinite(c.P)) e.Pmax = std::max(e.Pmax, c.P);
+            }
+        }
+        if (st.reservoirT) e.reservoirTmax = std::max(e.reservoirTmax, *st.reservoirT);
+    }
+    return e;
+}
+
+// Thresholds of the hazard notes. Common practice, not a code: cryogenic
+// below −150 °C (123.15 K); skin-contact burns from surfaces above about
+// 60 °C; pressure-equipment rules commonly start at 0.5 bar gauge (the scope
+// of the EU Pressure Equipment Directive 2014/68/EU, Art. 1 — from memory).
+constexpr double kCryogenicBelow_K = 123.15;
+constexpr double kHotAbove_K = 333.15;
+constexpr double kPressureAboveGauge_Pa = 0.5e5;
+
+QStringList cautionLines(const Project& project, const SequenceResult& r) {
+    const UnitSystem us = project.displayUnits;
+    const UnitContext ctx = project.unitContext();
+    auto T = [&](double v) { return view::formatWithUnit(v, Dimension::Temperature, us, ctx); };
+    QStringList lines;
+    lines << QStringLiteral(
+        "Heatchain computes idealised process paths. Pressure equipment, steam, cryogens and hot surfaces are "
+        "governed by local codes and licensed practice; have results checked by a qualified engineer.");
+    const Extremes e = extremes(project, r);
+    if (e.Tmin < kCryogenicBelow_K)
+        lines << QStringLiteral("Cryogenic temperatures: the material reaches %1. Cold burns and frostbite on "
+                                "contact, embrittlement of ordinary carbon steel, and pressure rise when cold "
+                                "liquid is trapped and warms; boil-off can displace the oxygen of a room.")
+                     .arg(T(e.Tmin));
+    const bool hotMaterial = e.Tmax > kHotAbove_K;
+    const bool hotSource = e.reservoirTmax > kHotAbove_K;
+    if (hotMaterial || hotSource) {
+        QString what = e.vapourOfWater && hotMaterial ? QStringLiteral("Steam and hot surfaces")
+                                                      : QStringLiteral("Hot surfaces");
+        QString text = QStringLiteral("%1 above about 60 °C: ").arg(what);
+        if (hotMaterial) text += QStringLiteral("the material reaches %1").arg(T(e.Tmax));
+        if (hotSource)
+            text += (hotMaterial ? QStringLiteral(", heat sources up to %1") : QStringLiteral("heat sources up to %1"))
+                        .arg(T(e.reservoirTmax));
+        text += QStringLiteral(". Contact burns; insulate or guard surfaces people can touch");
+        if (e.vapourOfWater && hotMaterial) text += QStringLiteral(", and treat any steam release as a scalding hazard");
+        text += QLatin1Char('.');
+        lines << text;
+    }
+    const double gauge = e.Pmax - project.atmosphere.si;
+    if (gauge > kPressureAboveGauge_Pa)
+        lines << QStringLiteral("High pressure: up to %1 (%2 gauge). Above about 0.5 bar gauge pressure-equipment "
+                                "rules commonly apply to vessels and piping; stored energy is released violently "
+                                "on failure. Relief, design pressure and inspection follow the applicable code.")
+                     .arg(view::formatWithUnit(e.Pmax, Dimension::Pressure, us, ctx),
+                          view::formatWithUnit(gauge, Dimension::Pressure, us, ctx));
+    return lines;
+}
+
+QString systemText(SystemKind s) {
+    return s == SystemKind::Closed ? QStringLiteral("closed (a batch: J, J/K)")
+                                   : QStringLiteral("steady flow (rates: W, W/K)");
+}
+
+QString basisText(const Project& p) {
+    QString kind;
+    switch (p.basis.kind) {
+    case Basis::Kind::Mass: kind = QStringLiteral("mass"); break;
+    case Basis::Kind::Amount: kind = QStringLiteral("amount of substance"); break;
+    case Basis::Kind::MassFlow: kind = QStringLiteral("mass flow"); break;
+    case Basis::Kind::MolarFlow: kind = QStringLiteral("molar flow"); break;
+    }
+    const bool flow = p.basis.kind == Basis::Kind::MassFlow || p.basis.kind == Basis::Kind::MolarFlow;
+    return QStringLiteral("%1 %2 (%3 %4)")
+        .arg(kind, qs(p.basis.amount.text), view::formatNumber(p.massBasis(), 6),
+             flow ? QStringLiteral("kg/s") : QStringLiteral("kg"));
+}
+
+// The inputs of a step as the user typed them.
+std::vector<std::pair<QString, QString>> stepInputs(const Step& s) {
+    std::vector<std::pair<QString, QString>> rows;
+    auto num = [](const Number& n) { return qs(n.raw.is_null() ? std::to_string(n.value) : n.raw.dump()); };
+    if (s.hasTo) {
+        if (s.to.T) rows.emplace_back(QStringLiteral("Target temperature"), qs(s.to.T->text));
+        if (s.to.P) rows.emplace_back(QStringLiteral("Target pressure"), qs(s.to.P->text));
+        if (s.to.duty) rows.emplace_back(QStringLiteral("Duty"), qs(s.to.duty->text));
+        if (s.to.quality) rows.emplace_back(QStringLiteral("Target quality"), num(*s.to.quality));
+        if (s.to.ratio) rows.emplace_back(QStringLiteral("Pressure ratio"), num(*s.to.ratio));
+    }
+    if (s.at)
+        rows.emplace_back(QStringLiteral("Heating at"), *s.at == HeatingAt::ConstantVolume
+                                                            ? QStringLiteral("constant volume")
+                                                            : QStringLiteral("constant pressure"));
+    if (s.fraction) rows.emplace_back(QStringLiteral("Fraction"), num(*s.fraction));
+    if (s.path) rows.emplace_back(QStringLiteral("Path"), qs(pathId(*s.path)));
+    if (s.n) rows.emplace_back(QStringLiteral("Polytropic exponent n"), num(*s.n));
+    if (s.efficiency) rows.emplace_back(QStringLiteral("Isentropic efficiency"), num(*s.efficiency));
+    auto reservoir = [&](const char* label, const std::optional<Reservoir>& r) {
+        if (!r) return;
+        QStringList parts;
+        if (r->T) parts << qs(r->T->text);
+        if (r->utility) parts << QStringLiteral("utility %1").arg(qs(*r->utility));
+        rows.emplace_back(QString::fromLatin1(label), parts.join(QStringLiteral(", ")));
+    };
+    reservoir("Heat source", s.source);
+    reservoir("Heat sink", s.sink);
+    return rows;
+}
+
+struct Content {
+    const Project& project;
+    const SequenceResult& result;
+    QString fileName, checksum, checksumNote, generated;
+};
+
+void writeContent(Layout& L, const Content& c) {
+    const Project& p = c.project;
+    const SequenceResult& r = c.result;
+    const UnitSystem us = p.displayUnits;
+    const UnitContext ctx = p.unitContext();
+    const Dimension E = view::energyDimension(r.system), S = view::entropyDimension(r.system);
+    // Round-off noise (a throttle's ΔH of 1e-13 kW) prints as zero: below a
+    // billionth of the largest energy or entropy figure of the sequence.
+    double eScale = 0, sScale = 0;
+    for (const StepResult& st : r.steps) {
+        if (!st.computed) continue;
+        for (double v : {st.Q, st.W, st.dH, st.dU}) eScale = std::max(eScale, std::fabs(v));
+        for (double v : {st.dS, st.Sgen}) sScale = std::max(sScale, std::fabs(v));
+    }
+    auto fmt = [&](double v, Dimension d) {
+        if (d == E && std::fabs(v) < 1e-9 * eScale) v = 0;
+        if ((d == S) && std::fabs(v) < 1e-9 * sScale) v = 0;
+        if (d == Dimension::SpecificVolume) return view::formatNumber(toDisplay(v, d, us, ctx), 5, 9);
+        // Small entropy figures (a pump's S_gen) keep four significant digits
+        // instead of one: the fixed four decimals of the screen would print 0.0008.
+        if (d == S) return view::formatNumber(toDisplay(v, d, us, ctx), 4, 7);
+        return formatDisplay(v, d, us, ctx);
+    };
+    auto withUnit = [&](double v, Dimension d) { return view::formatWithUnit(v, d, us, ctx); };
+    const QFont body = L.font(9), small = L.font(8);
+
+    // ---- Title block ----------------------------------------------------
+    {
+        const QFont label = L.font(7.5, true);
+        L.paragraph(QStringLiteral("HEATCHAIN  ·  PROCESS STEP REPORT"), label, rink::accent(), 0, L.mm(1));
+        L.paragraph(p.meta.title.empty() ? QStringLiteral("(untitled project)") : qs(p.meta.title), L.font(17, true),
+                    view::ink::text(), 0, L.mm(3));
+        const QFont mono = L.mono(7.5);
+        std::vector<std::pair<QString, QString>> rows = {
+            {QStringLiteral("Author"), qs(p.meta.author)},
+            {QStringLiteral("Revision"), qs(p.meta.revision)},
+            {QStringLiteral("Created"), qs(p.meta.created)},
+            {QStringLiteral("Modified"), qs(p.meta.modified)},
+            {QStringLiteral("Project file"), c.fileName},
+            {QStringLiteral("SHA-256"), c.checksum},
+        };
+        if (!c.checksumNote.isEmpty()) rows.emplace_back(QString(), c.checksumNote);
+        rows.emplace_back(QStringLiteral("Report generated"),
+                          QStringLiteral("%1 by Heatchain %2").arg(c.generated, QStringLiteral(HEATCHAIN_VERSION)));
+        for (auto& [k, v] : rows)
+            if (v.isEmpty() && !k.isEmpty()) v = QStringLiteral("–");
+        L.keyValues(rows, L.mm(32), body, &mono, 5);
+        if (!p.meta.notes.empty()) {
+            L.subheading(QStringLiteral("Notes"), L.mm(6));
+            L.paragraph(qs(p.meta.notes), body, view::ink::text());
+        }
+    }
+
+    L.space(L.mm(2));
+    L.box(QStringLiteral("Cautions"), cautionLines(p, r), rink::cautionFace(), rink::cautionEdge());
+
+    // ---- 1 Basis ------------------------------------------------------------
+    L.heading(QStringLiteral("1"), QStringLiteral("Basis and surroundings"), L.mm(20));
+    L.keyValues({{QStringLiteral("System"), systemText(r.system)},
+                 {QStringLiteral("Basis"), basisText(p)},
+                 {QStringLiteral("Surroundings (dead state)"),
+                  QStringLiteral("T0 = %1, P0 = %2  (exergy destroyed = T0 · S_gen)")
+                      .arg(withUnit(p.surroundingsT.si, Dimension::Temperature),
+                           withUnit(p.surroundingsP.si, Dimension::Pressure))},
+                 {QStringLiteral("Atmosphere (gauge zero)"), withUnit(p.atmosphere.si, Dimension::Pressure)},
+                 {QStringLiteral("Display units"), qs(unitSystemId(us))},
+                 {QStringLiteral("Sign convention"),
+                  QStringLiteral("Q > 0 heat into the material, W > 0 work done on it; %1")
+                      .arg(r.system == SystemKind::Closed ? QStringLiteral("ΔU = Q + W")
+                                                          : QStringLiteral("ΔH = Q + W"))}},
+                L.mm(45), body);
+
+    // ---- 2 Substance and model ------------------------------------------------
+    const Substance& sub = p.substance;
+    L.heading(QStringLiteral("2"), QStringLiteral("Substance and property model"), L.mm(30));
+    {
+        std::vector<std::pair<QString, QString>> rows;
+        QString name = qs(sub.name);
+        if (!sub.formula.empty()) name += QStringLiteral(" (%1)").arg(qs(sub.formula));
+        rows.emplace_back(QStringLiteral("Substance"), name + (sub.custom ? QStringLiteral(", defined in the project file") : QString()));
+        if (!sub.casNumber.empty()) rows.emplace_back(QStringLiteral("CAS number"), qs(sub.casNumber));
+        rows.emplace_back(QStringLiteral("Molar mass"),
+                          QStringLiteral("%1 g/mol").arg(view::formatNumber(sub.molarMass * 1000, 6)));
+        if (r.model) {
+            rows.emplace_back(QStringLiteral("Model"),
+                              QStringLiteral("%1 (%2)").arg(qs(r.model->name()), qs(modelId(p.model))));
+            rows.emplace_back(QStringLiteral("Valid range"), qs(r.model->rangeText()));
+            rows.emplace_back(QStringLiteral("Model equations from"), qs(r.model->sourceText()));
+        } else {
+            rows.emplace_back(QStringLiteral("Model"), QStringLiteral("%1 — could not be built").arg(qs(modelId(p.model))));
+        }
+        L.keyValues(rows, L.mm(45), body);
+        if (!sub.sources.empty()) {
+            L.subheading(QStringLiteral("Published sources of the substance data"), L.mm(10));
+            std::vector<TableRow> srcRows;
+            for (const SourceNote& n : sub.sources) srcRows.push_back({{qs(n.field), qs(n.text)}});
+            L.table({{QStringLiteral("Data"), {}, 1.0}, {QStringLiteral("Source"), {}, 4.0}}, srcRows, 8,
+                    QStringLiteral("Sources, continued"));
+        }
+        if (!r.warnings.empty()) {
+            L.subheading(QStringLiteral("Notes on the model"), L.mm(6));
+            for (const auto& w : r.warnings) L.paragraph(QStringLiteral("• %1").arg(qs(w)), small, view::ink::text());
+        }
+    }
+
+    // ---- 3 Start state -------------------------------------------------------
+    L.heading(QStringLiteral("3"), QStringLiteral("Start state"), L.mm(20));
+    {
+        QStringList typed;
+        if (p.start.T) typed << QStringLiteral("T = %1").arg(qs(p.start.T->text));
+        if (p.start.P) typed << QStringLiteral("P = %1").arg(qs(p.start.P->text));
+        auto num = [](const Number& n) { return qs(n.raw.is_null() ? std::to_string(n.value) : n.raw.dump()); };
+        if (p.start.quality) typed << QStringLiteral("quality = %1").arg(num(*p.start.quality));
+        if (p.start.meltFraction) typed << QStringLiteral("melt fraction = %1").arg(num(*p.start.meltFraction));
+        std::vector<std::pair<QString, QString>> rows = {{QStringLiteral("As given"), typed.join(QStringLiteral(", "))}};
+        if (r.startError) {
+            rows.emplace_back(QStringLiteral("Error"), qs(r.startError->text()));
+        } else {
+            const State& s = r.start;
+            rows.emplace_back(QStringLiteral("Temperature"), withUnit(s.T, Dimension::Temperature));
+            rows.emplace_back(QStringLiteral("Pressure"), withUnit(s.P, Dimension::Pressure));
+            rows.emplace_back(QStringLiteral("Phase"), view::phaseText(s));
+            rows.emplace_back(QStringLiteral("Specific enthalpy h"), withUnit(s.h, Dimension::SpecificEnergy));
+            rows.emplace_back(QStringLiteral("Specific entropy s"), withUnit(s.s, Dimension::SpecificEntropy));
+            rows.emplace_back(QStringLiteral("Specific volume v"),
+                              fmt(s.v, Dimension::SpecificVolume) + QLatin1Char(' ') + unitSymbol(Dimension::SpecificVolume, us));
+            if (!s.source.empty()) rows.emplace_back(QStringLiteral("Computed by"), qs(s.source));
+            if (s.warnings) rows.emplace_back(QStringLiteral("Warning"), qs(describeWarnings(s.warnings)));
+        }
+        L.keyValues(rows, L.mm(45), body);
+    }
+
+    // ---- 4 Ledger ------------------------------------------------------------
+    L.heading(QStringLiteral("4"), QStringLiteral("All steps"), L.mm(25));
+    {
+        const QString eu = unitSymbol(E, us), su = unitSymbol(S, us);
+        std::vector<TableColumn> cols = {
+            {QStringLiteral("#"), {}, 1.0, Qt::AlignRight},
+            {QStringLiteral("Step"), {}, 2.15},
+            {QStringLiteral("Kind"), {}, 1.6},
+            {QStringLiteral("T end"), unitSymbol(Dimension::Temperature, us), 1.15, Qt::AlignRight},
+            {QStringLiteral("P end"), unitSymbol(Dimension::Pressure, us), 1.15, Qt::AlignRight},
+            {QStringLiteral("Phase at end"), {}, 1.6},
+            {QStringLiteral("Q"), eu, 1.4, Qt::AlignRight},
+            {QStringLiteral("W"), eu, 1.3, Qt::AlignRight},
+            {QStringLiteral("ΔH"), eu, 1.4, Qt::AlignRight},
+            {QStringLiteral("ΔS"), su, 1.2, Qt::AlignRight},
+            {QStringLiteral("S_gen"), su, 1.2, Qt::AlignRight},
+            {QStringLiteral("Exergy destroyed"), eu, 1.75, Qt::AlignRight},
+        };
+        std::vector<TableRow> rows;
+        for (std::size_t i = 0; i < r.steps.size(); ++i) {
+            const StepResult& s = r.steps[i];
+            TableRow row;
+            row.marker = view::stepColour(int(i));
+            if (s.computed) {
+                row.cells = {QString::number(i + 1), qs(s.id), view::stepKindTitle(s.kind),
+                             fmt(s.end.T, Dimension::Temperature), fmt(s.end.P, Dimension::Pressure),
+                             view::phaseShort(s.end), fmt(s.Q, E), fmt(s.W, E), fmt(s.dH, E), fmt(s.dS, S),
+                             fmt(s.Sgen, S), fmt(s.exergyDestroyed, E)};
+                if (!s.warnings.empty()) row.cells[1] += QStringLiteral(" ⚠");
+            } else {
+                const QString dash = QStringLiteral("–");
+                row.cells = {QString::number(i + 1), qs(s.id), view::stepKindTitle(s.kind), dash, dash,
+                             s.error ? QStringLiteral("not computed (error)") : QStringLiteral("not computed"),
+                             dash, dash, dash, dash, dash, dash};
+            }
+            rows.push_back(std::move(row));
+        }
+        const Totals& t = r.totals;
+        rows.push_back({{QString(), QStringLiteral("Total"), QString(), QString(), QString(), QString(), fmt(t.Q, E),
+                         fmt(t.W, E), fmt(t.dH, E), fmt(t.dS, S), fmt(t.Sgen, S), fmt(t.exergyDestroyed, E)},
+                        TableRow::Style::Total});
+        rows.push_back({{QString(), QStringLiteral("Heating duty"), QString(), QString(),
+                         QString(), QString(), fmt(t.heatingDuty, E)},
+                        TableRow::Style::Normal});
+        rows.push_back({{QString(), QStringLiteral("Cooling duty"), QString(), QString(),
+                         QString(), QString(), fmt(t.coolingDuty, E)},
+                        TableRow::Style::Normal});
+        L.table(cols, rows, 7.5, QStringLiteral("All steps, continued"));
+        L.paragraph(QStringLiteral("Heating duty: the sum of Q over the steps with Q > 0; cooling duty: the sum of |Q| "
+                                   "over the steps with Q < 0. ⚠ the step carries a warning (see its section)."),
+                    L.font(7.5, false, true), view::ink::muted());
+    }
+
+    // ---- 5 Charts ----------------------------------------------------------------
+    {
+        L.newPage();
+        L.heading(QStringLiteral("5"), QStringLiteral("Process charts"), L.mm(60));
+        std::optional<DomeCurve> dome;
+        if (r.model) dome = saturationDome(*r.model);
+        view::ProcessChart ts(view::ProcessChart::Kind::TemperatureEntropy);
+        ts.setData(p, r, dome && !dome->liquidSide.empty() ? &*dome : nullptr);
+        view::ProcessChart tq(view::ProcessChart::Kind::TemperatureDuty);
+        tq.setData(p, r, nullptr);
+        const double logicalW = 760;
+        const double chartH = std::min(L.mm(112), (L.remaining() - L.mm(22)) / 2);
+        L.subheading(QStringLiteral("Temperature–entropy: the path of every step over the saturation dome"), chartH);
+        L.figure(chartH, [&](QPainter& painter, const QRectF& rect) {
+            paintChartFigure(painter, rect, ts, r, logicalW, true);
+        });
+        QString tqTitle = QStringLiteral("Temperature–duty: cumulative Q, with each step's heat source or sink");
+        L.subheading(tqTitle, chartH);
+        L.figure(chartH, [&](QPainter& painter, const QRectF& rect) {
+            paintChartFigure(painter, rect, tq, r, logicalW, true);
+        });
+        if (auto a = tq.smallestApproach(); a && a->step >= 0 && std::size_t(a->step) < r.steps.size())
+            L.paragraph(QStringLiteral("Smallest approach between material and source or sink: %1 %2 at step %3 (%4).")
+                            .arg(view::formatNumber(a->dT, 4, 1), unitSymbol(Dimension::TemperatureDifference, us))
+                            .arg(a->step + 1)
+                            .arg(qs(r.steps[std::size_t(a->step)].id)),
+                        small, view::ink::text());
+    }
+
+    // ---- 6 Steps ---------------------------------------------------------------------
+    L.newPage();
+    L.heading(QStringLiteral("6"), QStringLiteral("Steps in detail"), L.mm(40));
+    for (std::size_t i = 0; i < r.steps.size() && i < p.steps.size(); ++i) {
+        const StepResult& s = r.steps[i];
+        const Step& in = p.steps[i];
+        L.subheading(QStringLiteral("6.%1   %2  ·  %3").arg(i + 1).arg(qs(s.id), view::stepKindTitle(s.kind)), L.mm(30));
+        auto inputs = stepInputs(in);
+        L.keyValues(inputs, L.mm(45), small);
+        if (!s.computed) {
+            L.paragraph(s.error ? QStringLiteral("Not computed: %1").arg(qs(s.error->text()))
+                                : QStringLiteral("Not computed: an earlier step failed."),
+                        L.font(8.5, true), view::ink::error());
+        } else {
+            const QString eu = unitSymbol(E, us), su = unitSymbol(S, us);
+            std::vector<TableColumn> scol = {
+                {QStringLiteral("State"), {}, 1.1},
+                {QStringLiteral("T"), unitSymbol(Dimension::Temperature, us), 1, Qt::AlignRight},
+                {QStringLiteral("P"), unitSymbol(Dimension::Pressure, us), 1, Qt::AlignRight},
+                {QStringLiteral("Phase"), {}, 1.8},
+                {QStringLiteral("h"), unitSymbol(Dimension::SpecificEnergy, us), 1, Qt::AlignRight},
+                {QStringLiteral("s"), unitSymbol(Dimension::SpecificEntropy, us), 1, Qt::AlignRight},
+                {QStringLiteral("v"), unitSymbol(Dimension::SpecificVolume, us), 1, Qt::AlignRight},
+            };
+            auto stateRow = [&](const QString& name, const State& st) {
+                return TableRow{{name, fmt(st.T, Dimension::Temperature), fmt(st.P, Dimension::Pressure),
+                                 view::phaseText(st), fmt(st.h, Dimension::SpecificEnergy),
+                                 fmt(st.s, Dimension::SpecificEntropy), fmt(st.v, Dimension::SpecificVolume)}};
+            };
+            L.table(scol, {stateRow(QStringLiteral("start"), s.start), stateRow(QStringLiteral("end"), s.end)}, 7.5);
+            std::vector<TableColumn> rcol = {
+                {QStringLiteral("Q"), eu, 1, Qt::AlignRight},   {QStringLiteral("W"), eu, 1, Qt::AlignRight},
+                {QStringLiteral("ΔH"), eu, 1, Qt::AlignRight},  {QStringLiteral("ΔU"), eu, 1, Qt::AlignRight},
+                {QStringLiteral("ΔS"), su, 1, Qt::AlignRight},  {QStringLiteral("S_gen"), su, 1, Qt::AlignRight},
+                {QStringLiteral("Exergy destroyed"), eu, 1.1, Qt::AlignRight},
+                {s.Q < 0 ? QStringLiteral("Sink T") : QStringLiteral("Source T"),
+                 unitSymbol(Dimension::Temperature, us), 1, Qt::AlignRight},
+            };
+            L.table(rcol,
+                    {TableRow{{fmt(s.Q, E), fmt(s.W, E), fmt(s.dH, E), fmt(s.dU, E), fmt(s.dS, S), fmt(s.Sgen, S),
+                               fmt(s.exergyDestroyed, E),
+                               s.reservoirT ? fmt(*s.reservoirT, Dimension::Temperature) : QStringLiteral("–")}}},
+                    7.5);
+            if (s.segments.size() > 1) {
+                std::vector<TableColumn> gcol = {
+                    {QStringLiteral("Segment"), {}, 2.2},
+                    {QStringLiteral("T start"), unitSymbol(Dimension::Temperature, us), 1, Qt::AlignRight},
+                    {QStringLiteral("T end"), unitSymbol(Dimension::Temperature, us), 1, Qt::AlignRight},
+                    {QStringLiteral("P end"), unitSymbol(Dimension::Pressure, us), 1, Qt::AlignRight},
+                    {QStringLiteral("Phase at end"), {}, 1.8},
+                    {QStringLiteral("Q"), eu, 1.1, Qt::AlignRight},
+                };
+                std::vector<TableRow> grows;
+                for (const SegmentResult& g : s.segments)
+                    grows.push_back({{qs(g.label), fmt(g.start.T, Dimension::Temperature),
+                                      fmt(g.end.T, Dimension::Temperature), fmt(g.end.P, Dimension::Pressure),
+                                      view::phaseText(g.end), fmt(g.Q, E)}});
+                L.table(gcol, grows, 7.5, QStringLiteral("Segments of %1, continued").arg(qs(s.id)));
+            }
+        }
+        for (const auto& w : s.warnings)
+            L.paragraph(QStringLiteral("Warning: %1").arg(qs(w)), L.font(8, true), view::ink::warning().darker(130));
+        if (in.note) L.paragraph(QStringLiteral("Note: %1").arg(qs(*in.note)), L.font(8.5, false, true), view::ink::text());
+        L.space(L.mm(2));
+    }
+}
+
+}  // namespace
+
+Status writeReportPdf(const Project& project, const SequenceResult& result, std::string_view projectFile,
+                      const std::filesystem::path& out) {
+    return writeReportPdf(project, result, projectFile, out, ReportOptions{});
+}
+
+Status writeReportPdf(const Project& project, const SequenceResult& result, std::string_view projectFile,
+                      const std::filesystem::path& out, const ReportOptions& options) {
+    if (auto st = report_detail::ensureGuiApplication(); !st) return st;
+
+    // Checksum of the file as saved, so a reviewer can tie the report to one revision.
+    const QString file = QString::fromUtf8(projectFile.data(), qsizetype(projectFile.size()));
+    QByteArray bytes;
+    QString note;
+    QFile f(file);
+    if (!file.isEmpty() && f.open(QIODevice::ReadOnly)) {
+        bytes = f.readAll();
+    } else {
+        const std::string text = writeProject(project);
+        bytes = QByteArray(text.data(), qsizetype(text.size()));
+        note = QStringLiteral("Checksum of the project as it would be saved; the file could not be read.");
+    }
+    Content content{project, result,
+                    file.isEmpty() ? QStringLiteral("(not saved)") : QFileInfo(file).fileName(),
+                    QString::fromLatin1(QCryptographicHash::hash(bytes, QCryptographicHash::Sha256).toHex()), note,
+                    QDateTime::currentDateTimeUtc().toString(QStringLiteral("yyyy-MM-dd HH:mm 'UTC'"))};
+
+    QBuffer buffer;
+    buffer.open(QIODevice::WriteOnly);
+    {
+        QPdfWriter writer(&buffer);
+        writer.setPageSize(QPageSize(options.pageSize == PageSize::Letter ? QPageSize::Letter : QPageSize::A4));
+        writer.setPageMargins(QMarginsF(0, 0, 0, 0));
+        writer.setResolution(600);
+        writer.setTitle(qs(project.meta.title));
+        writer.setCreator(QStringLiteral("Heatchain %1").arg(QStringLiteral(HEATCHAIN_VERSION)));
+        QPainter painter;
+        if (!painter.begin(&writer)) return makeError("cannot start drawing the PDF", out.string());
+        Layout::Furniture furn{qs(project.meta.title), qs(project.meta.revision),
+                               QStringLiteral("Heatchain step report  ·  %1  ·  SHA-256 %2…")
+                                   .arg(content.fileName, content.checksum.left(12))};
+        // Dry pass: count the pages so every footer can say "of N".
+        Layout dry(writer, painter, /*dry=*/true, 0, furn);
+        writeContent(dry, content);
+        Layout real(writer, painter, /*dry=*/false, dry.page(), furn);
+        writeContent(real, content);
+        painter.end();
+    }
+    const QByteArray pdf = buffer.data();
+    return writeFileAtomically(out, std::string_view(pdf.constData(), std::size_t(pdf.size())), /*keepBackup=*/false);
+}
+
+}  // namespace heatchain

@@ -1,0 +1,309 @@
+// The PDF step report and the exports, run through heatchain-cli as a user
+// would and read back with independent tools: poppler's pdfinfo and
+// pdftotext for the PDF, Debian's Python xml.etree for the SVG. The core's
+// JSON results (`compute --json`) are the oracle for every number shown:
+// the report only formats them.
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <filesystem>
+#include <fstream>
+#include <regex>
+#include <set>
+#include <string>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "heatchain/project_file.hpp"
+#include "heatchain/units.hpp"
+#include "support/run_command.hpp"
+
+namespace fs = std::filesystem;
+using heatchain::testing::readWholeFile;
+using heatchain::testing::runCommand;
+
+namespace {
+
+const char* kSamples[] = {"melt-tank", "nitrogen-warmup", "compressor-aftercooler", "solvent-recovery", "boiler-feed"};
+
+std::string sample(const std::string& name) {
+    return std::string(HEATCHAIN_SOURCE_DIR) + "/sample-projects/" + name + ".hchain";
+}
+
+std::string cli(const std::string& args) { return std::string(HEATCHAIN_CLI) + " " + args; }
+
+fs::path scratch(const std::string& name) {
+    const fs::path dir = fs::temp_directory_path() / ("heatchain-report-test-" + std::to_string(::getpid()));
+    fs::create_directories(dir);
+    return dir / name;
+}
+
+int pageCount(const fs::path& pdf) {
+    auto r = runCommand(std::string(HEATCHAIN_PDFINFO) + " " + pdf.string());
+    std::smatch m;
+    if (std::regex_search(r.out, m, std::regex(R"(Pages:\s+(\d+))"))) return std::stoi(m[1]);
+    return -1;
+}
+
+std::string pdfText(const fs::path& pdf, bool layout) {
+    return runCommand(std::string(HEATCHAIN_PDFTOTEXT) + (layout ? " -layout " : " ") + pdf.string() + " -").out;
+}
+
+// All runs of whitespace as one space, so wrapped lines read as one text.
+std::string squeeze(const std::string& s) {
+    std::string o;
+    bool space = false;
+    for (char c : s) {
+        if (std::isspace(static_cast<unsigned char>(c))) {
+            space = true;
+            continue;
+        }
+        if (space && !o.empty()) o += ' ';
+        space = false;
+        o += c;
+    }
+    return o;
+}
+
+// Numbers of one line of text, with the typographic minus read as '-'.
+std::vector<double> numbersIn(std::string line) {
+    for (std::size_t at; (at = line.find("\xE2\x88\x92")) != std::string::npos;) line.replace(at, 3, "-");
+    std::vector<double> out;
+    std::regex num(R"((^|[\s(])(-?\d+(\.\d+)?(e[+-]?\d+)?)(?=\s|$))");
+    for (auto it = std::sregex_iterator(line.begin(), line.end(), num); it != std::sregex_iterator(); ++it)
+        out.push_back(std::stod((*it)[2]));
+    return out;
+}
+
+// The line of the layout text that begins with `label`.
+std::string lineStarting(const std::string& text, const std::string& label) {
+    std::istringstream in(text);
+    std::string line;
+    const std::regex re("^\\s*" + label + "\\s");
+    while (std::getline(in, line))
+        if (std::regex_search(line, re)) return line;
+    return {};
+}
+
+// A displayed number against the core's value in display units: the report
+// prints about five significant digits.
+void expectShown(double shown, double expected, const std::string& what) {
+    const double tol = std::max(1e-9, std::fabs(expected) * 2e-4) + 1e-3;
+    EXPECT_NEAR(shown, expected, tol) << what;
+}
+
+nlohmann::json computeJson(const std::string& project) {
+    auto r = runCommand(cli("compute " + project + " --json"));
+    return nlohmann::json::parse(r.out, nullptr, false);
+}
+
+}  // namespace
+
+TEST(Report, EverySampleHasItsStepsTotalsAndCautions) {
+    for (const char* s : kSamples) {
+        const fs::path pdf = scratch(std::string(s) + ".pdf");
+        auto r = runCommand(cli("report " + sample(s) + " -o " + pdf.string()));
+        ASSERT_EQ(r.exit, 0) << s << ": " << r.err;
+        const int pages = pageCount(pdf);
+        // Title block and ledger, the chart page, and the step sections.
+        EXPECT_GE(pages, 3) << s;
+        EXPECT_LE(pages, 12) << s;
+        const std::string layout = pdfText(pdf, true);
+        const std::string flat = squeeze(layout);
+        const auto json = computeJson(sample(s));
+        ASSERT_TRUE(json.is_object()) << s;
+        for (const auto& st : json["steps"])
+            EXPECT_NE(flat.find(st["id"].get<std::string>()), std::string::npos) << s << " lacks step " << st["id"];
+        EXPECT_NE(flat.find("Heatchain computes idealised process paths. Pressure equipment, steam, cryogens and hot "
+                            "surfaces are governed by local codes and licensed practice; have results checked by a "
+                            "qualified engineer."),
+                  std::string::npos)
+            << s;
+        EXPECT_NE(flat.find("Page 1 of " + std::to_string(pages)), std::string::npos) << s;
+
+        // Totals and duties, in the project's display units (core's conversion).
+        auto project = heatchain::loadProject(sample(s));
+        ASSERT_TRUE(project.ok());
+        const auto dim = project->system == heatchain::SystemKind::Closed ? heatchain::Dimension::Energy
+                                                                           : heatchain::Dimension::Power;
+        auto display = [&](double si) { return heatchain::toDisplay(si, dim, project->displayUnits); };
+        const auto total = numbersIn(lineStarting(layout, "Total"));
+        ASSERT_GE(total.size(), 6u) << s << ": " << lineStarting(layout, "Total");
+        expectShown(total[0], display(json["totals"]["Q"]), std::string(s) + " total Q");
+        expectShown(total[1], display(json["totals"]["W"]), std::string(s) + " total W");
+        expectShown(total.back(), display(json["totals"]["exergyDestroyed"]), std::string(s) + " exergy destroyed");
+        const auto heating = numbersIn(lineStarting(layout, "Heating duty"));
+        const auto cooling = numbersIn(lineStarting(layout, "Cooling duty"));
+        ASSERT_FALSE(heating.empty()) << s;
+        ASSERT_FALSE(cooling.empty()) << s;
+        expectShown(heating.back(), display(json["totals"]["heatingDuty"]), std::string(s) + " heating duty");
+        expectShown(cooling.back(), display(json["totals"]["coolingDuty"]), std::string(s) + " cooling duty");
+    }
+}
+
+TEST(Report, HazardsFollowTheConditions) {
+    // nitrogen-warmup starts as a cryogenic liquid; boiler-feed makes steam
+    // at over 20 barg. Thresholds: common practice (see report_pdf.cpp).
+    const fs::path n2 = scratch("n2.pdf"), boiler = scratch("boiler.pdf");
+    ASSERT_EQ(runCommand(cli("report " + sample("nitrogen-warmup") + " -o " + n2.string())).exit, 0);
+    ASSERT_EQ(runCommand(cli("report " + sample("boiler-feed") + " -o " + boiler.string())).exit, 0);
+    const std::string a = squeeze(pdfText(n2, false)), b = squeeze(pdfText(boiler, false));
+    EXPECT_NE(a.find("Cryogenic temperatures"), std::string::npos);
+    EXPECT_EQ(b.find("Cryogenic temperatures"), std::string::npos);
+    EXPECT_NE(b.find("Steam and hot surfaces"), std::string::npos);
+    EXPECT_NE(b.find("High pressure"), std::string::npos);
+}
+
+TEST(Report, PageSizes) {
+    const fs::path a4 = scratch("a4.pdf"), letter = scratch("letter.pdf");
+    ASSERT_EQ(runCommand(cli("report " + sample("melt-tank") + " -o " + a4.string())).exit, 0);
+    ASSERT_EQ(runCommand(cli("report " + sample("melt-tank") + " -o " + letter.string() + " --page letter")).exit, 0);
+    // ISO 216 A4 is 210 mm × 297 mm = 595.28 pt × 841.89 pt; US Letter 8.5 in × 11 in = 612 pt × 792 pt.
+    // Qt writes whole points for A4's media box, so allow half a point.
+    auto size = [](const fs::path& pdf) {
+        std::smatch m;
+        const std::string info = runCommand(std::string(HEATCHAIN_PDFINFO) + " " + pdf.string()).out;
+        if (!std::regex_search(info, m, std::regex(R"(Page size:\s+([\d.]+) x ([\d.]+) pts)")))
+            return std::pair<double, double>{0, 0};
+        return std::pair<double, double>{std::stod(m[1]), std::stod(m[2])};
+    };
+    EXPECT_NEAR(size(a4).first, 595.28, 0.5);
+    EXPECT_NEAR(size(a4).second, 841.89, 0.5);
+    EXPECT_NEAR(size(letter).first, 612.0, 0.5);
+    EXPECT_NEAR(size(letter).second, 792.0, 0.5);
+    EXPECT_EQ(runCommand(cli("report " + sample("melt-tank") + " -o " + a4.string() + " --page A3")).exit, 2);
+}
+
+TEST(Report, TwoHundredStepsBreakAcrossPagesWithoutClipping) {
+    // A long worksheet of our own: water warmed and cooled 100 times.
+    nlohmann::ordered_json j = {
+        {"format", "heatchain-project"}, {"version", 1},
+        {"meta", {{"title", "Long worksheet, 200 steps"}, {"author", "report test"}, {"revision", "T"},
+                  {"created", "2026-12-01T00:00:00Z"}, {"modified", "2026-12-01T00:00:00Z"}, {"notes", ""}}},
+        {"display", {{"units", "SI"}}}, {"system", "steady-flow"}, {"model", "reference"},
+        {"substance", "water"}, {"basis", {{"massFlow", "1 kg/s"}}},
+        {"start", {{"T", "20 degC"}, {"P", "3 bar"}}}};
+    auto steps = nlohmann::ordered_json::array();
+    std::vector<std::string> ids;
+    for (int i = 1; i <= 200; ++i) {
+        char id[16];
+        std::snprintf(id, sizeof id, "leg-%03d", i);
+        ids.push_back(id);
+        if (i % 2) steps.push_back({{"id", id}, {"kind", "heat"}, {"to", {{"T", "80 degC"}}}, {"source", {{"T", "120 degC"}}}});
+        else steps.push_back({{"id", id}, {"kind", "cool"}, {"to", {{"T", "20 degC"}}}, {"sink", {{"T", "10 degC"}}}});
+    }
+    j["steps"] = steps;
+    const fs::path project = scratch("long.hchain"), pdf = scratch("long.pdf");
+    std::ofstream(project) << j.dump(2);
+    auto r = runCommand(cli("report " + project.string() + " -o " + pdf.string()));
+    ASSERT_EQ(r.exit, 0) << r.err;
+    const int pages = pageCount(pdf);
+    const int fivePages = [&] {
+        const fs::path small = scratch("small.pdf");
+        runCommand(cli("report " + sample("boiler-feed") + " -o " + small.string()));
+        return pageCount(small);
+    }();
+    // 200 step sections of a few centimetres each, and a ledger of ~5 pages:
+    // far more pages than a 5-step report, but not a page per step.
+    EXPECT_GT(pages, fivePages + 20);
+    EXPECT_LT(pages, 110);
+    const std::string text = pdfText(pdf, false);
+    for (const auto& id : ids) {
+        // Each id in the ledger and as its section heading.
+        std::size_t count = 0;
+        for (std::size_t at = text.find(id); at != std::string::npos; at = text.find(id, at + 1)) ++count;
+        EXPECT_GE(count, 2u) << id;
+    }
+    EXPECT_NE(text.find("All steps, continued"), std::string::npos) << "ledger header repeated on later pages";
+
+    // No clipping: every word lies on its page, and no body text runs into
+    // the bottom margin above the footer rule (18 mm body margin, footer rule
+    // 12 mm from the edge).
+    const std::string script = R"py(
+import re, subprocess, sys
+html = subprocess.run([sys.argv[1], '-bbox', sys.argv[2], '-'], capture_output=True, text=True).stdout
+bad = 0
+for page in re.finditer(r'<page width="([\d.]+)" height="([\d.]+)">(.*?)</page>', html, re.S):
+    w, h, body = float(page.group(1)), float(page.group(2)), page.group(3)
+    mm = 72 / 25.4
+    for m in re.finditer(r'xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)"', body):
+        x0, y0, x1, y1 = map(float, m.groups())
+        if x0 < 0 or y0 < 0 or x1 > w or y1 > h: bad += 1
+        if y1 > h - 18 * mm + 0.5 and y0 < h - 12 * mm: bad += 1
+print(bad)
+)py";
+    const fs::path py = scratch("bbox.py");
+    std::ofstream(py) << script;
+    auto check = runCommand(std::string(HEATCHAIN_PYTHON) + " " + py.string() + " " + HEATCHAIN_PDFTOTEXT + " " + pdf.string());
+    EXPECT_EQ(check.out, "0\n") << check.err;
+}
+
+TEST(Exports, CsvCarriesUnitsAndTheLedgerNumbers) {
+    for (const char* s : kSamples) {
+        const auto json = computeJson(sample(s));
+        auto csv = runCommand(cli("compute " + sample(s) + " --csv"));
+        ASSERT_EQ(csv.exit, 0) << s;
+        std::istringstream in(csv.out);
+        std::string header;
+        std::getline(in, header);
+        const auto& u = json["units"];
+        for (const std::string col : {"Q", "W", "dH"})
+            EXPECT_NE(header.find(col + " [" + u[col].get<std::string>() + "]"), std::string::npos) << s << header;
+        EXPECT_NE(header.find("Sgen [" + u["Sgen"].get<std::string>() + "]"), std::string::npos) << s;
+        EXPECT_NE(header.find("T_end [K]"), std::string::npos);
+        // Step rows (no segment label) in order: Q, W, dH, dS, Sgen, exergy at columns 9..14.
+        std::size_t step = 0;
+        std::string line;
+        while (std::getline(in, line)) {
+            std::vector<std::string> cells;
+            std::string cell;
+            bool quoted = false;
+            for (char c : line) {
+                if (c == '"') quoted = !quoted;
+                else if (c == ',' && !quoted) { cells.push_back(cell); cell.clear(); }
+                else cell += c;
+            }
+            cells.push_back(cell);
+            ASSERT_EQ(cells.size(), 15u) << s << ": " << line;
+            if (cells[0] == "total") {
+                EXPECT_NEAR(std::stod(cells[9]), json["totals"]["Q"].get<double>(), 1e-8 * (1 + std::fabs(json["totals"]["Q"].get<double>())));
+                continue;
+            }
+            if (!cells[2].empty() || cells[0] == "heating duty" || cells[0] == "cooling duty") continue;
+            ASSERT_LT(step, json["steps"].size());
+            const auto& st = json["steps"][step++];
+            EXPECT_EQ(cells[0], st["id"].get<std::string>());
+            int col = 9;
+            for (const char* k : {"Q", "W", "dH", "dS", "Sgen", "exergyDestroyed"}) {
+                const double v = st[k].get<double>();
+                EXPECT_NEAR(std::stod(cells[std::size_t(col++)]), v, 1e-8 * (1 + std::fabs(v))) << s << " " << k;
+            }
+        }
+        EXPECT_EQ(step, json["steps"].size()) << s;
+    }
+}
+
+TEST(Exports, ChartsAsSvgAndPng) {
+    for (const char* flag : {"--ts", "--tq"}) {
+        const fs::path svg = scratch(std::string("chart") + flag + ".svg"), png = scratch(std::string("chart") + flag + ".png");
+        auto r = runCommand(cli("chart " + sample("boiler-feed") + " " + flag + " -o " + svg.string()));
+        ASSERT_EQ(r.exit, 0) << r.err;
+        // Valid XML with an <svg> root and drawn paths (parsed by Python's xml.etree).
+        auto py = runCommand(std::string(HEATCHAIN_PYTHON) +
+                             " -c \"import sys, xml.etree.ElementTree as E; r = E.parse(sys.argv[1]).getroot(); "
+                             "print(r.tag, sum(1 for e in r.iter() if e.tag.endswith('path') or e.tag.endswith('polyline')) > 10)\" " +
+                             svg.string());
+        EXPECT_EQ(py.out, "{http://www.w3.org/2000/svg}svg True\n") << py.err;
+        r = runCommand(cli("chart " + sample("boiler-feed") + " " + flag + " -o " + png.string()));
+        ASSERT_EQ(r.exit, 0) << r.err;
+        const std::string bytes = readWholeFile(png);
+        // PNG signature (ISO/IEC 15948, 5.2) and the IHDR width of 1100 px.
+        ASSERT_GT(bytes.size(), 24u);
+        EXPECT_EQ(bytes.substr(0, 8), std::string("\x89PNG\r\n\x1a\n", 8));
+        const auto b = [&](int i) { return unsigned(static_cast<unsigned char>(bytes[std::size_t(i)])); };
+        EXPECT_EQ((b(16) << 24) | (b(17) << 16) | (b(18) << 8) | b(19), 1100u);
+    }
+    EXPECT_EQ(runCommand(cli("chart " + sample("boiler-feed") + " --ts -o " + scratch("x.gif").string())).exit, 2);
+    EXPECT_EQ(runCommand(cli("chart " + sample("boiler-feed") + " -o " + scratch("x.svg").string())).exit, 2);
+}
