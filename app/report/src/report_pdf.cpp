@@ -318,18 +318,18 @@ void writeContent(Layout& L, const Content& c) {
     {
         const QString eu = unitSymbol(E, us), su = unitSymbol(S, us);
         std::vector<TableColumn> cols = {
-            {QStringLiteral("#"), {}, 1.0, Qt::AlignRight},
-            {QStringLiteral("Step"), {}, 2.15},
-            {QStringLiteral("Kind"), {}, 1.6},
+            {QStringLiteral("#"), {}, 0.7, Qt::AlignRight},
+            {QStringLiteral("Step"), {}, 2.6},
+            {QStringLiteral("Kind"), {}, 1.95},
             {QStringLiteral("T end"), unitSymbol(Dimension::Temperature, us), 1.15, Qt::AlignRight},
             {QStringLiteral("P end"), unitSymbol(Dimension::Pressure, us), 1.15, Qt::AlignRight},
-            {QStringLiteral("Phase at end"), {}, 1.6},
+            {QStringLiteral("Phase at end"), {}, 1.8},
             {QStringLiteral("Q"), eu, 1.4, Qt::AlignRight},
-            {QStringLiteral("W"), eu, 1.3, Qt::AlignRight},
+            {QStringLiteral("W"), eu, 1.1, Qt::AlignRight},
             {QStringLiteral("ΔH"), eu, 1.4, Qt::AlignRight},
-            {QStringLiteral("ΔS"), su, 1.2, Qt::AlignRight},
-            {QStringLiteral("S_gen"), su, 1.2, Qt::AlignRight},
-            {QStringLiteral("Exergy destroyed"), eu, 1.75, Qt::AlignRight},
+            {QStringLiteral("ΔS"), su, 1.1, Qt::AlignRight},
+            {QStringLiteral("S_gen"), su, 1.1, Qt::AlignRight},
+            {QStringLiteral("Exergy destroyed"), eu, 1.5, Qt::AlignRight},
         };
         std::vector<TableRow> rows;
         for (std::size_t i = 0; i < r.steps.size(); ++i) {
