@@ -6,6 +6,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
 #include <numbers>
 #include <optional>
 #include <string>
@@ -17,6 +18,13 @@
 namespace heatchain {
 
 namespace {
+
+// Numbers in messages for people: "126.19", not "126.190000".
+std::string shortNumber(double v) {
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.6g", v);
+    return buf;
+}
 
 constexpr double kR = kGasConstant;
 constexpr double kSqrt2 = std::numbers::sqrt2;
@@ -313,8 +321,8 @@ State PengRobinsonModel::fluidState(double T, double P, const RootEval& r, Phase
 
 Result<State> PengRobinsonModel::phaseState(Phase phase, double T, double P) const {
     if (!(T > 0) || !(P > 0) || !std::isfinite(T) || !std::isfinite(P))
-        return makeError("the real-fluid model needs T > 0 and P > 0 (got T = " + std::to_string(T) +
-                         " K, P = " + std::to_string(P) + " Pa)");
+        return makeError("the real-fluid model needs T > 0 and P > 0 (got T = " + shortNumber(T) +
+                         " K, P = " + shortNumber(P) + " Pa)");
     if (isTwoPhase(phase))
         return makeError("phaseState needs a single phase, not " + std::string(phaseId(phase)));
     if (phase == Phase::Solid) return solidState(T, P);
@@ -450,11 +458,11 @@ Result<State> PengRobinsonModel::stateTP(double T, double P) const {
 
 Result<PengRobinsonModel::Saturation> PengRobinsonModel::saturation(double T, double pStart) const {
     if (T > Tc_)
-        return makeError("no boiling above the critical temperature Tc = " + std::to_string(Tc_) + " K of " + who() +
-                         " (T = " + std::to_string(T) + " K)");
+        return makeError("no boiling above the critical temperature Tc = " + shortNumber(Tc_) + " K of " + who() +
+                         " (T = " + shortNumber(T) + " K)");
     if (hasLowerLimit_ && T < Ttp_ * (1 - 1e-12))
-        return makeError("no liquid–vapour line below the triple-point temperature " + std::to_string(Ttp_) + " K of " +
-                         who() + " (T = " + std::to_string(T) + " K)");
+        return makeError("no liquid–vapour line below the triple-point temperature " + shortNumber(Ttp_) + " K of " +
+                         who() + " (T = " + shortNumber(T) + " K)");
     const AlphaTerm al = alpha(T);
     Saturation out;
     if (Tc_ - T < 1e-7 * Tc_) {  // the two roots merge; the critical point of PR is (Tc, Pc) by construction
@@ -501,16 +509,16 @@ Result<PengRobinsonModel::Saturation> PengRobinsonModel::saturation(double T, do
         }
         P = next;
     }
-    return makeError("the saturation pressure of " + who() + " at " + std::to_string(T) + " K did not converge");
+    return makeError("the saturation pressure of " + who() + " at " + shortNumber(T) + " K did not converge");
 }
 
 Result<double> PengRobinsonModel::boilingTemperature(double P) const {
     if (P > Pc_)
-        return makeError("no boiling above the critical pressure Pc = " + std::to_string(Pc_) + " Pa of " + who() +
-                         " (Tc = " + std::to_string(Tc_) + " K)");
+        return makeError("no boiling above the critical pressure Pc = " + shortNumber(Pc_) + " Pa of " + who() +
+                         " (Tc = " + shortNumber(Tc_) + " K)");
     if (P == Pc_) return Tc_;
     if (hasLowerLimit_ && P < Ptp_)
-        return makeError("no boiling below the triple-point pressure " + std::to_string(Ptp_) + " Pa of " + who() +
+        return makeError("no boiling below the triple-point pressure " + shortNumber(Ptp_) + " Pa of " + who() +
                          "; the solid sublimates instead");
     double lo = hasLowerLimit_ ? Ttp_ : 0.2 * Tc_, hi = Tc_;
     // Start: Wilson's correlation inverted.
@@ -532,7 +540,7 @@ Result<double> PengRobinsonModel::boilingTemperature(double P) const {
         pGuess = sat->P;
         T = next;
     }
-    return makeError("the boiling temperature of " + who() + " at " + std::to_string(P) + " Pa did not converge");
+    return makeError("the boiling temperature of " + who() + " at " + shortNumber(P) + " Pa did not converge");
 }
 
 // Sublimation by equal Gibbs energies of the PR vapour and the solid. This is
@@ -541,7 +549,7 @@ Result<double> PengRobinsonModel::boilingTemperature(double P) const {
 Result<double> PengRobinsonModel::sublimationPressure(double T) const {
     if (!hasSolid_) return makeError(who() + " has no solid in the real-fluid model (needs melting data and cp.solid)");
     if (T > Ttp_ * (1 + 1e-12))
-        return makeError("no sublimation above the triple-point temperature " + std::to_string(Ttp_) + " K of " + who());
+        return makeError("no sublimation above the triple-point temperature " + shortNumber(Ttp_) + " K of " + who());
     if (T >= Ttp_) return Ptp_;
     const double Rs = kR / M_;
     // Start: Clausius–Clapeyron from the triple point with Δh_sub there.
@@ -571,13 +579,13 @@ Result<double> PengRobinsonModel::sublimationPressure(double T) const {
         if (hi - lo < 1e-14 * hi) return P;
         P = next;
     }
-    return makeError("the sublimation pressure of " + who() + " at " + std::to_string(T) + " K did not converge");
+    return makeError("the sublimation pressure of " + who() + " at " + shortNumber(T) + " K did not converge");
 }
 
 Result<double> PengRobinsonModel::sublimationTemperature(double P) const {
     if (!hasSolid_) return makeError(who() + " has no solid in the real-fluid model (needs melting data and cp.solid)");
     if (P > Ptp_ * (1 + 1e-12))
-        return makeError("no sublimation above the triple-point pressure " + std::to_string(Ptp_) + " Pa of " + who());
+        return makeError("no sublimation above the triple-point pressure " + shortNumber(Ptp_) + " Pa of " + who());
     if (P >= Ptp_) return Ttp_;
     const double Rs = kR / M_;
     auto gv0 = vaporGibbs(Ttp_, Ptp_);
@@ -606,7 +614,7 @@ Result<double> PengRobinsonModel::sublimationTemperature(double P) const {
         if (hi - lo < 1e-13 * hi) return T;
         T = next;
     }
-    return makeError("the sublimation temperature of " + who() + " at " + std::to_string(P) + " Pa did not converge");
+    return makeError("the sublimation temperature of " + who() + " at " + shortNumber(P) + " Pa did not converge");
 }
 
 Result<double> PengRobinsonModel::transitionTemperature(Transition t, double P) const {
@@ -617,7 +625,7 @@ Result<double> PengRobinsonModel::transitionTemperature(Transition t, double P) 
         case Transition::Melting:
             if (!hasSolid_) return makeError(who() + " has no solid in the real-fluid model (needs melting data and cp.solid)");
             if (P < Ptp_ * (1 - 1e-12))
-                return makeError("no melting below the triple-point pressure " + std::to_string(Ptp_) + " Pa of " + who() +
+                return makeError("no melting below the triple-point pressure " + shortNumber(Ptp_) + " Pa of " + who() +
                                  "; the solid sublimates instead");
             return Tm_;
     }
@@ -638,7 +646,7 @@ Result<double> PengRobinsonModel::transitionPressure(Transition t, double T) con
             // pressure stands for it.
             if (!hasSolid_) return makeError(who() + " has no solid in the real-fluid model (needs melting data and cp.solid)");
             if (std::abs(T - Tm_) > 1e-9 * Tm_)
-                return makeError("the model melts " + who() + " only at " + std::to_string(Tm_) +
+                return makeError("the model melts " + who() + " only at " + shortNumber(Tm_) +
                                  " K (pressure-independent melting temperature)");
             return Pm_;
     }
@@ -716,7 +724,7 @@ Result<State> PengRobinsonModel::solveInPhase(Phase ph, double P, Property which
         lastF = f;
         T = next;
     }
-    return makeError("the real-fluid state at P = " + std::to_string(P) + " Pa did not converge");
+    return makeError("the real-fluid state at P = " + shortNumber(P) + " Pa did not converge");
 }
 
 Result<State> PengRobinsonModel::stateP(double P, Property which, double value) const {
@@ -737,8 +745,8 @@ Result<State> PengRobinsonModel::stateP(double P, Property which, double value) 
     auto sa = phaseState(phA, Ta, P);
     if (!sa) return sa.error();
     if (propertyOf(*sa, which) > value)
-        return makeError("the value lies below the real-fluid model's range at " + std::to_string(P) +
-                         " Pa (lowest temperature " + std::to_string(Tmin_) + " K)");
+        return makeError("the value lies below the real-fluid model's range at " + shortNumber(P) +
+                         " Pa (lowest temperature " + shortNumber(Tmin_) + " K)");
     for (int i = 0; i <= tr.count; ++i) {
         const bool last = i == tr.count;
         const double Tb = last ? Tmax_ : tr.entries[i].T;
@@ -769,15 +777,20 @@ Result<State> PengRobinsonModel::stateP(double P, Property which, double value) 
         Ta = Tb;
         phA = upperPhase(k);
     }
-    return makeError("the value lies above the real-fluid model's range at " + std::to_string(P) +
-                     " Pa (highest temperature " + std::to_string(Tmax_) + " K)");
+    return makeError("the value lies above the real-fluid model's range at " + shortNumber(P) +
+                     " Pa (highest temperature " + shortNumber(Tmax_) + " K)");
 }
 
 // ---------------------------------------------------------------- text
 
 std::string PengRobinsonModel::rangeText() const {
-    return "Peng–Robinson real fluid for " + (sub_.name.empty() ? who() : sub_.name) + ": " + std::to_string(Tmin_) +
-           " K to " + std::to_string(Tmax_) + " K, up to " + std::to_string(maxPressure() / 1e6) +
+    auto g = [](double v) {
+        char buf[32];
+        std::snprintf(buf, sizeof buf, "%.6g", v);
+        return std::string(buf);
+    };
+    return "Peng–Robinson real fluid for " + (sub_.name.empty() ? who() : sub_.name) + ": " + g(Tmin_) +
+           " K to " + g(Tmax_) + " K, up to " + g(maxPressure() / 1e6) +
            " MPa; least accurate near the critical point and for liquid densities "
            "(few percent) unless a volume shift is given";
 }
@@ -858,7 +871,7 @@ Status PengRobinsonModel::init() {
     if (!ref) return ref.error();
     if (ref->warnings & WarnCubicFallback)
         return makeError("the Peng–Robinson cubic of " + who() + " has no liquid root at the reference point " +
-                         std::to_string(T0) + " K");
+                         shortNumber(T0) + " K");
     hOff_ = -ref->h;
     sOff_ = -ref->s;
     if (hasMelting_) {
