@@ -304,7 +304,8 @@ std::string sweepText(const Project& p, const SweepResult& r) {
         if (!pt.error) continue;
         if (!any) { o << "\npoints not computed:\n"; any = true; }
         o << "  " << r.spec.input << " = " << fixed(toDisplay(pt.x, r.inputDimension, us, ctx), decimalsFor(mx[0]))
-          << unitOf(r.inputDimension) << ": " << pt.error->text() << "\n";
+          << (r.inputDimension == Dimension::Dimensionless ? "" : " " + unitLabel(displayUnit(r.inputDimension, us)))
+          << ": " << pt.error->text() << "\n";
     }
     return o.str();
 }

@@ -192,9 +192,11 @@ Result<SweepResult> sweep(const Project& project, const SweepSpec& spec, const S
         for (const auto& d : defs) {
             const std::string& k = d.out.key;
             if (k == "total.Q" || k == "total.W" || k == "total.Sgen" || k == "total.exergyDestroyed" ||
-                k == "step:" + endOf + ".T_end" || (k.rfind("utility:", 0) == 0 && k.size() > 5 &&
-                                                     k.compare(k.size() - 5, 5, ".mass") == 0))
+                k == "step:" + endOf + ".T_end")
                 chosen.push_back(&d);
+            // The use of every utility that has one (fixed utilities have no stream to count).
+            for (const Utility& u : project.utilities)
+                if (u.kind != UtilityKind::Fixed && k == "utility:" + u.id + ".mass") chosen.push_back(&d);
         }
     } else {
         for (const auto& key : spec.outputs) {

@@ -52,9 +52,10 @@ struct SweepResult {
 };
 
 // All output keys a sweep of this project can report, in a fixed order:
-// totals, then each step's end T and P, Q, W, S_gen, exergy destroyed, then
-// each utility's use. The default set is the totals, the swept step's end
-// temperature (or every step's, for the start) and every utility's use.
+// totals, then each step's end T and P, Q, W, S_gen, exergy destroyed and
+// approach, then each utility's use and duty. The default set is total Q, W,
+// S_gen and exergy destroyed, the swept step's end temperature (the last
+// step's, for the start) and the use of every steam and sensible utility.
 std::vector<SweepOutput> sweepOutputKeys(const Project& project);
 
 // Errors (unknown step, unknown input path, unreadable from/to, too few or
