@@ -106,7 +106,8 @@ std::string utilitiesText(const Project& p, const SequenceResult& r) {
     if (r.utilities.empty()) return "";
     const Display d{p.displayUnits, p.unitContext(), p.system == SystemKind::Closed};
     std::ostringstream o;
-    o << "\nutilities (minimum approach " << fixed(p.minApproachK(), 1) << " K; sensible utilities counter-current):\n";
+    o << "\nutilities (minimum approach " << fixed(p.minApproachK(), 1)
+      << " K; sensible utilities counter-current; exergy given = Q (1 − T0/T_utility)):\n";
     for (const auto& u : r.utilities) {
         o << "  " << u.id << ": ";
         if (!u.profile) {
@@ -127,8 +128,9 @@ std::string utilitiesText(const Project& p, const SequenceResult& r) {
         o << "\n";
     }
     Table t;
-    t.head = {"step", "utility", "role", "duty", "use", "min approach", "where"};
-    t.rightAlign = {false, false, false, true, true, true, false};
+    t.head = {"step", "utility", "role", "duty", "use", "exergy given", "min approach", "where"};
+    t.rightAlign = {false, false, false, true, true, true, true, false};
+    auto exergy = [&](double v) { return r.exergyAvailable ? d.E(v) : std::string("–"); };
     for (std::size_t i = 0; i < r.steps.size(); ++i) {
         const auto& s = r.steps[i];
         if (!s.computed || !s.utility) continue;
@@ -139,7 +141,7 @@ std::string utilitiesText(const Project& p, const SequenceResult& r) {
         if (u.position != "start" || u.segment != 0) where += ", after " + d.E(u.approachDuty);
         std::string approach = fixed(u.minApproach, 1) + " K";
         if (u.minApproach < p.minApproachK() - 1e-6 && u.duty > 0) approach += " (!)";
-        t.rows.push_back({s.id, u.id, u.asSource ? "source" : "sink", d.E(u.duty), use, approach, where});
+        t.rows.push_back({s.id, u.id, u.asSource ? "source" : "sink", d.E(u.duty), use, exergy(s.exergyHeat), approach, where});
     }
     for (const auto& u : r.utilities) {
         if (!u.steps) continue;
@@ -147,7 +149,7 @@ std::string utilitiesText(const Project& p, const SequenceResult& r) {
         if (u.volume) use += " (" + d.volume(*u.volume) + ")";
         const double duty = u.heatSupplied + u.heatAbsorbed;
         t.rows.push_back({"total", u.id, u.heatAbsorbed > 0 && u.heatSupplied > 0 ? "both" : (u.heatSupplied > 0 ? "source" : "sink"),
-                          d.E(duty), use, "", std::to_string(u.steps) + " step" + (u.steps == 1 ? "" : "s")});
+                          d.E(duty), use, exergy(u.exergyGivenUp), "", std::to_string(u.steps) + " step" + (u.steps == 1 ? "" : "s")});
     }
     if (!t.rows.empty()) o << t.render();
     return o.str();

@@ -38,6 +38,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <limits>
 #include <string>
 
 #include "numerics/root.hpp"
@@ -600,12 +601,67 @@ Result<StepUtility> serveByUtility(const Ctx& c, const Step& step, std::size_t i
             su.Tutility = Tu;
         }
     };
+    std::size_t bestPoint = 0;  // index of the closest sampled point in its segment's curve
     for (std::size_t k = 0; k < o.segments.size(); ++k) {
         const SegmentResult& g = o.segments[k];
-        consider(k, "start", segStartQ, g.start.T);
-        for (std::size_t i = 1; i + 1 < g.curve.size(); ++i) consider(k, "inside", g.curve[i].Q - Qcum, g.curve[i].T);
+        auto track = [&](const char* pos, double q, double T, std::size_t i) {
+            const double before = su.minApproach;
+            const bool wasFirst = first;
+            consider(k, pos, q, T);
+            if (wasFirst || su.minApproach < before) bestPoint = i;
+        };
+        track("start", segStartQ, g.start.T, 0);
+        for (std::size_t i = 1; i + 1 < g.curve.size(); ++i) track("inside", g.curve[i].Q - Qcum, g.curve[i].T, i);
         segStartQ += g.Q;
-        consider(k, "end", segStartQ, g.end.T);
+        track("end", segStartQ, g.end.T, g.curve.empty() ? 0 : g.curve.size() - 1);
+    }
+    // Between two sampled points of a sensible isobaric segment the material's
+    // T(Q) is smooth but not straight (cp varies): search the interval around
+    // the closest sampled point with a golden section on h (Q = Q_i + m (h − h_i)
+    // along an isobar), 60 steps at most.
+    if (su.segment < o.segments.size()) {
+        const SegmentResult& g = o.segments[su.segment];
+        const auto& cv = g.curve;
+        bool isobaric = cv.size() >= 3 && g.start.T != g.end.T;
+        for (const auto& pt : cv) isobaric = isobaric && std::fabs(pt.P - g.start.P) <= 1e-12 * g.start.P;
+        if (isobaric) {
+            const std::size_t lo = bestPoint == 0 ? 0 : bestPoint - 1;
+            const std::size_t hi = std::min(bestPoint + 1, cv.size() - 1);
+            const CurvePoint& ref = cv[lo];
+            auto approachAt = [&](double h, double* Tm, double* q) -> double {
+                auto st = c.model.statePH(g.start.P, h);
+                if (!st) return std::numeric_limits<double>::infinity();
+                *Tm = st->T;
+                *q = ref.Q - Qcum + c.m * (h - ref.h);
+                const double Tu = u.temperatureAt(std::clamp(*q / o.Q, 0.0, 1.0));
+                return asSource ? Tu - st->T : st->T - Tu;
+            };
+            const double gr = 0.5 * (std::sqrt(5.0) - 1.0);
+            double a = cv[lo].h, b = cv[hi].h;
+            double Tm1 = 0, Tm2 = 0, q1 = 0, q2 = 0;
+            double x1 = b - gr * (b - a), x2 = a + gr * (b - a);
+            double f1 = approachAt(x1, &Tm1, &q1), f2 = approachAt(x2, &Tm2, &q2);
+            for (int it = 0; it < 60 && std::fabs(b - a) > 1e-10 * std::max(1.0, std::fabs(a)); ++it) {
+                if (f1 < f2) {
+                    b = x2; x2 = x1; f2 = f1; Tm2 = Tm1; q2 = q1;
+                    x1 = b - gr * (b - a);
+                    f1 = approachAt(x1, &Tm1, &q1);
+                } else {
+                    a = x1; x1 = x2; f1 = f2; Tm1 = Tm2; q1 = q2;
+                    x2 = a + gr * (b - a);
+                    f2 = approachAt(x2, &Tm2, &q2);
+                }
+            }
+            const double f = std::min(f1, f2);
+            if (f < su.minApproach) {
+                const bool one = f1 <= f2;
+                su.minApproach = f;
+                su.Tmaterial = one ? Tm1 : Tm2;
+                su.approachDuty = std::fabs(one ? q1 : q2);
+                su.Tutility = u.temperatureAt(std::clamp((one ? q1 : q2) / o.Q, 0.0, 1.0));
+                su.position = "inside";
+            }
+        }
     }
     const double tol = 1e-9 * std::max(u.Tin, u.Tout);
     if (su.minApproach < -tol) {

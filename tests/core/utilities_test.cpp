@@ -204,3 +204,40 @@ TEST(Utilities, FixedUtilityEqualsATemperatureReservoir) {
     EXPECT_EQ(a.steps[0].utility->mass, 0.0);
     EXPECT_NEAR(a.steps[0].utility->minApproach, 260.0 - 120.0, 1e-9);
 }
+
+// Between sampled points: superheated steam at 100 bar cooled from 500 °C to
+// 320 °C, where cp rises toward saturation (311 °C) so T(Q) sags about 16 K
+// below its chord, against a sensible utility warming 300 → 480 °C, a line
+// 20 K below the chord. The closest point is inside the step; the smallest
+// approach is checked against a dense scan of the isobar made here (20,001
+// points on h).
+TEST(Utilities, ApproachBetweenSampledPointsMatchesADenseScan) {
+    const std::string util = R"j([{ "id": "salt", "kind": "sensible", "in": "300 degC", "out": "480 degC", "cp": "1.5 kJ/(kg K)" }])j";
+    const std::string steps = R"j([{ "id": "desuper", "kind": "cool", "to": { "T": "320 degC" }, "sink": { "utility": "salt" } }])j";
+    auto p = parseProject(project(util, steps, R"j({ "T": "500 degC", "P": "100 bar" })j"));
+    ASSERT_TRUE(p.ok()) << p.error().text();
+    for (int points : {8, 64}) {
+        SolveOptions opt;
+        opt.curvePointsPerStep = points;
+        auto r = solve(*p, opt);
+        ASSERT_TRUE(r.ok()) << r.firstError()->text();
+        const auto& s = r.steps[0];
+        const double P = 100e5;
+        auto a = water().stateTP(773.15, P);
+        auto b = water().stateTP(593.15, P);
+        ASSERT_TRUE(a && b);
+        double best = 1e300;
+        const int n = 20000;
+        for (int k = 0; k <= n; ++k) {
+            const double f = double(k) / n;  // fraction of the duty from the step's start
+            auto st = water().statePH(P, a->h + f * (b->h - a->h));
+            ASSERT_TRUE(st.ok());
+            const double Tu = 753.15 + (573.15 - 753.15) * f;  // counter-current: out at the start, in at the end
+            best = std::min(best, st->T - Tu);
+        }
+        ASSERT_TRUE(s.utility);
+        EXPECT_NEAR(s.utility->minApproach, best, 1e-4) << points << " curve points";
+        EXPECT_LT(best, 10.0);  // well inside: both ends are 20 K
+        EXPECT_EQ(s.utility->position, "inside");
+    }
+}
