@@ -44,8 +44,8 @@ TEST(SteamUtilityReference, SaturationAndLatentHeatMatchIapws) {
         ASSERT_TRUE(prof.ok()) << prof.error().text();
         const auto [T, L] = oracle(*si);
         ASSERT_TRUE(std::isfinite(T) && std::isfinite(L)) << "python3-iapws gave no answer at " << P;
-        EXPECT_NEAR(prof->Tin, T, 1e-6 * T) << P;
-        EXPECT_NEAR(prof->latentHeat, L, 1e-6 * L) << P;
+        EXPECT_NEAR(prof->Tin, T, 1e-9 * T) << P;
+        EXPECT_NEAR(prof->latentHeat, L, 1e-9 * L) << P;
         EXPECT_DOUBLE_EQ(prof->Tmean, prof->Tin);
     }
 }
@@ -65,8 +65,8 @@ TEST(SteamUtilityReference, SteamUseIsDutyOverLatentHeat) {
     double total = 0;
     for (const auto& s : r.steps) {
         ASSERT_TRUE(s.utility);
-        EXPECT_NEAR(s.utility->mass, s.Q / L, 1e-6 * s.Q / L) << s.id;
-        EXPECT_NEAR(*s.reservoirT, T, 1e-6 * T);
+        EXPECT_NEAR(s.utility->mass, s.Q / L, 1e-9 * s.Q / L) << s.id;
+        EXPECT_NEAR(*s.reservoirT, T, 1e-9 * T);
         total += s.Q / L;
     }
     ASSERT_EQ(r.utilities.size(), 1u);
