@@ -185,7 +185,7 @@ public:
         if (v.is_number()) {
             const double x = v.get<double>();
             if (!std::isfinite(x)) fail(path, "the number is not finite");
-            return Number{v, x};
+            return Number{v, x, typedNumber(path, x)};
         }
         if (v.is_string()) {
             auto x = parseQuantity(v.get_ref<const std::string&>(), Dimension::Dimensionless, units);
@@ -193,6 +193,21 @@ public:
             return Number{v, *x};
         }
         fail(path, "expected a number; found " + jsonTypeName(v));
+    }
+
+    // The characters of a JSON number as typed, so "0.60" is written back as
+    // "0.60" and not as "0.6"; empty if the text cannot be found or disagrees.
+    std::string typedNumber(const JsonPath& path, double value) const {
+        const std::size_t at = detail::locateJsonValue(text_, path);
+        std::size_t end = at;
+        while (end < text_.size() && std::string_view("+-0123456789.eE").find(text_[end]) != std::string_view::npos)
+            ++end;
+        if (end == at || end - at > 64) return {};
+        std::string token(text_.substr(at, end - at));
+        char* stop = nullptr;
+        const double parsed = std::strtod(token.c_str(), &stop);
+        if (stop != token.c_str() + token.size() || parsed != value) return {};
+        return token;
     }
 
     // A number within [lo, hi] (bounds open where said).
@@ -348,11 +363,12 @@ void readStart(const Reader& r, const Json& v, StartSpec& start) {
 
     const int given = (start.T ? 1 : 0) + (start.P ? 1 : 0);
     const int onLine = (start.quality ? 1 : 0) + (start.meltFraction ? 1 : 0);
-    const std::string rule = "the start is T and P, or (on a phase line) T or P with quality or meltFraction";
+    const std::string rule =
+        "the start is T and P, or (on a phase line) T and/or P with quality or meltFraction";
     if (onLine > 1) r.fail(child(path, "meltFraction"), "give quality or meltFraction, not both; " + rule);
-    if (given == 2 && onLine == 1)
-        r.fail(child(path, start.quality ? "quality" : "meltFraction"),
-               "T and P together fix the state; on a phase line give only one of them; " + rule);
+    // T and P with a quality or meltFraction is accepted: on a simple model's
+    // melting line T does not move with P, so both are a natural way to write
+    // it; whether they agree is the solver's check.
     if (given == 0) r.fail(path, "start needs T and P; " + rule);
     if (given == 1 && onLine == 0) r.fail(path, std::string("start needs ") + (start.T ? "P" : "T") + "; " + rule);
 }
@@ -495,35 +511,35 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
         s.fraction = r.bounded(*f, child(path, "fraction"), 0, true, 1, false, "fraction");
 
     if (machine) {
-        const Json* pathKind = member(v, "path");
-        if (!pathKind)
-            r.fail(path, "a " + kindName + " step needs a \"path\": isothermal, isentropic, polytropic (with n) or "
-                                           "adiabatic (with efficiency)");
-        const std::string id2 = r.string(*pathKind, child(path, "path"));
-        bool found = false;
-        for (PathKind pk : {PathKind::Isothermal, PathKind::Isentropic, PathKind::Polytropic, PathKind::Adiabatic})
-            if (pathId(pk) == id2) {
-                s.path = pk;
-                found = true;
-            }
-        if (!found)
-            r.fail(child(path, "path"),
-                   "unknown path " + inQuotes(id2) + "; valid paths are isothermal, isentropic, polytropic, adiabatic");
+        // Without "path": adiabatic when an efficiency is given, else
+        // isentropic (the solver reads a missing path the same way).
         const Json* n = member(v, "n");
         const Json* eff = member(v, "efficiency");
-        if (*s.path == PathKind::Polytropic) {
+        std::string pathName = eff ? "adiabatic" : "isentropic";
+        if (const Json* pathKind = member(v, "path")) {
+            pathName = r.string(*pathKind, child(path, "path"));
+            bool found = false;
+            for (PathKind pk : {PathKind::Isothermal, PathKind::Isentropic, PathKind::Polytropic, PathKind::Adiabatic})
+                if (pathId(pk) == pathName) {
+                    s.path = pk;
+                    found = true;
+                }
+            if (!found)
+                r.fail(child(path, "path"), "unknown path " + inQuotes(pathName) +
+                                                "; valid paths are isothermal, isentropic, polytropic, adiabatic");
+        }
+        const PathKind effective = s.path ? *s.path : (eff ? PathKind::Adiabatic : PathKind::Isentropic);
+        if (effective == PathKind::Polytropic) {
             if (!n) r.fail(path, "a polytropic path needs the exponent \"n\", e.g. 1.3");
             s.n = r.number(*n, child(path, "n"));
         } else if (n) {
-            r.fail(child(path, "n"), "\"n\" belongs to a polytropic path; this path is " + id2);
+            r.fail(child(path, "n"), "\"n\" belongs to a polytropic path; this path is " + pathName);
         }
-        if (*s.path == PathKind::Adiabatic) {
-            if (!eff)
-                r.fail(path, "an adiabatic path needs an isentropic \"efficiency\" in (0, 1], e.g. 0.75 (for a "
-                             "reversible path write \"path\": \"isentropic\")");
+        if (eff) {
+            if (effective != PathKind::Adiabatic)
+                r.fail(child(path, "efficiency"),
+                       "\"efficiency\" belongs to an adiabatic path; this path is " + pathName);
             s.efficiency = r.bounded(*eff, child(path, "efficiency"), 0, true, 1, false, "efficiency");
-        } else if (eff) {
-            r.fail(child(path, "efficiency"), "\"efficiency\" belongs to an adiabatic path; this path is " + id2);
         }
     }
 
@@ -818,7 +834,18 @@ Json quantityJson(const Quantity& q, Dimension d) {
     return s.str();
 }
 
+// While writeProject runs, numbers typed in a file are written through
+// placeholders that are swapped for their original characters after the dump
+// (nlohmann/json always reprints a double in its own shortest form).
+thread_local std::vector<std::string>* typedNumbers = nullptr;
+
+std::string numberPlaceholder(std::size_t k) { return "\\u0001hcnum" + std::to_string(k) + "\\u0001"; }
+
 Json numberJson(const Number& n) {
+    if (typedNumbers && !n.text.empty() && n.raw.is_number()) {
+        typedNumbers->push_back(n.text);
+        return "\x01hcnum" + std::to_string(typedNumbers->size() - 1) + "\x01";
+    }
     if (n.raw.is_number() || n.raw.is_string()) return n.raw;
     return n.value;
 }
@@ -916,7 +943,28 @@ Result<Project> loadProject(const std::filesystem::path& file) {
     return parseProject(text, name);
 }
 
+std::string writeProjectDump(const Project& p);
+
 std::string writeProject(const Project& p) {
+    std::vector<std::string> typed;
+    typedNumbers = &typed;
+    std::string out = writeProjectDump(p);
+    typedNumbers = nullptr;
+    if (typed.empty()) return out;
+    // Swap each placeholder for the typed characters; if a placeholder is not
+    // found exactly once (a string value that happens to look like one), write
+    // the numbers in nlohmann/json's form instead.
+    std::string swapped = out;
+    for (std::size_t k = typed.size(); k-- > 0;) {
+        const std::string ph = "\"" + numberPlaceholder(k) + "\"";
+        const auto pos = swapped.find(ph);
+        if (pos == std::string::npos || swapped.find(ph, pos + 1) != std::string::npos) return writeProjectDump(p);
+        swapped.replace(pos, ph.size(), typed[k]);
+    }
+    return swapped;
+}
+
+std::string writeProjectDump(const Project& p) {
     Json j = Json::object();
     j["format"] = std::string(kFormatName);
     j["version"] = p.version;

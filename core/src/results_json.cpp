@@ -74,9 +74,10 @@ Json resultsToJson(const Project& project, const SequenceResult& r) {
     j["units"] = {{"Q", closed ? "J" : "W"},        {"W", closed ? "J" : "W"},
                   {"dH", closed ? "J" : "W"},       {"dU", closed ? "J" : "W"},
                   {"dS", closed ? "J/K" : "W/K"},   {"Sgen", closed ? "J/K" : "W/K"},
-                  {"exergyDestroyed", closed ? "J" : "W"},
+                  {"exergyDestroyed", closed ? "J" : "W"}, {"massBasis", closed ? "kg" : "kg/s"},
                   {"exergy", closed ? "J" : "W"},   {"utilityMass", closed ? "kg" : "kg/s"},
                   {"utilityVolume", closed ? "m3" : "m3/s"}};
+    j["massBasis"] = r.massBasis;
     j["start"] = r.startError ? Json(nullptr) : stateToJson(r.start);
     Json steps = Json::array();
     for (const auto& s : r.steps) {

@@ -960,14 +960,10 @@ DomeCurve saturationDome(const PropertyModel& model, int points) {
     const auto crit = model.criticalPoint();
     const auto trip = model.triplePoint();
     double Tlo = trip ? trip->first : model.minTemperature();
-    double Thi;
-    if (crit) {
-        Thi = crit->first * (1 - 1e-4);
-    } else {
-        auto Tb = model.transitionTemperature(Transition::Boiling, 101325.0);
-        if (!Tb) return d;
-        Thi = *Tb * 1.3;
-    }
+    // Without a critical point the saturation line has no top, and any cut-off
+    // would draw a dome that is not there; such a chart shows the path alone.
+    if (!crit) return d;
+    const double Thi = crit->first * (1 - 1e-4);
     if (!(Thi > Tlo)) return d;
     points = std::max(points, 4);
     for (int k = 0; k < points; ++k) {

@@ -79,11 +79,14 @@ TEST(Cli, JsonHasTheContractKeys) {
             for (const char* k : {"id", "kind", "start", "end", "Q", "W", "dH", "dU", "dS", "Sgen",
                                   "exergyDestroyed", "segments", "warnings"})
                 EXPECT_TRUE(st.contains(k)) << s << " step lacks " << k;
-            // Steady flow: ΔH = Q + W for each step (the energy balance, read back from JSON).
-            if (j["system"] == "steady-flow") {
-                const double dH = st["dH"], Q = st["Q"], W = st["W"];
-                EXPECT_NEAR(dH, Q + W, 1e-6 * std::max(1.0, std::fabs(dH)));
-            }
+            // Energy balance read back from JSON: steady flow ΔH = Q + W, closed ΔU = Q + W,
+            // to 1e-9 of the energy the material carries (m·h).
+            const bool flow = j["system"] == "steady-flow";
+            const double lhs = flow ? double(st["dH"]) : double(st["dU"]), Q = st["Q"], W = st["W"];
+            const double carried = double(j["massBasis"]) *
+                                   std::max({std::fabs(double(st["start"]["h_J_per_kg"])),
+                                             std::fabs(double(st["end"]["h_J_per_kg"])), 1.0});
+            EXPECT_NEAR(lhs, Q + W, 1e-9 * std::max({std::fabs(Q), std::fabs(W), carried})) << s;
         }
         for (const char* k : {"Q", "W", "dH", "dU", "dS", "Sgen", "exergyDestroyed", "heatingDuty", "coolingDuty"})
             EXPECT_TRUE(j["totals"].contains(k)) << s;

@@ -451,8 +451,19 @@ TEST(ProjectFile, StepStructure) {
                 "step \"economiser\" (steps[1]).note", "expected a string", "5555");
     expectError(replaced(kFormatExample, "\"to\": { \"T\": \"265 degC\" },", ""), "step \"superheat\" (steps[3])",
                 "needs a target", "{ \"id\": \"superheat\"");
-    expectError(replaced(kFormatExample, "\"path\": \"adiabatic\", \"efficiency\": 0.65", "\"path\": \"adiabatic\""),
-                "step \"feed-pump\" (steps[0])", "needs an isentropic \"efficiency\"", "{ \"id\": \"feed-pump\"");
+    {
+        // A missing path means adiabatic with an efficiency, else isentropic
+        // (the solver's reading); adiabatic without efficiency is reversible.
+        auto a = parseProject(replaced(kFormatExample, "\"path\": \"adiabatic\", ", ""));
+        ASSERT_TRUE(a.ok()) << a.error().text();
+        EXPECT_FALSE(a->steps[0].path.has_value());
+        EXPECT_DOUBLE_EQ(a->steps[0].efficiency->value, 0.65);
+        EXPECT_EQ(writeProject(*a).find("\"path\""), std::string::npos);
+        EXPECT_TRUE(parseProject(replaced(kFormatExample, ", \"efficiency\": 0.65", "")).ok());
+        expectError(replaced(kFormatExample, "\"path\": \"adiabatic\", ", "\"n\": 1.3, "),
+                    "step \"feed-pump\" (steps[0]).n", "belongs to a polytropic path; this path is adiabatic",
+                    "1.3, \"efficiency\"");
+    }
     expectError(replaced(kFormatExample, "\"path\": \"adiabatic\", \"efficiency\": 0.65", "\"path\": \"polytropic\""),
                 "step \"feed-pump\" (steps[0])", "needs the exponent \"n\"", "{ \"id\": \"feed-pump\"");
     expectError(replaced(kFormatExample, "\"path\": \"adiabatic\"", "\"path\": \"sideways\""),
@@ -471,8 +482,12 @@ TEST(ProjectFile, StartSystemAndBasis) {
     expectError(replaced(kFormatExample, "{ \"T\": \"48 degC\", \"P\": \"1.4 bar\" }", "{ }"), "start",
                 "start needs T and P", "{ },\n  \"steps\"");
     expectError(replaced(kFormatExample, "{ \"T\": \"48 degC\", \"P\": \"1.4 bar\" }",
-                         "{ \"T\": \"48 degC\", \"P\": \"1.4 bar\", \"quality\": 0.5 }"),
-                "start.quality", "T and P together fix the state", "0.5");
+                         "{ \"T\": \"48 degC\", \"quality\": 0.5, \"meltFraction\": 0.5 }"),
+                "start.meltFraction", "not both", "0.5 }");
+    // On a phase line T and P may both be given; their agreement is the solver's check.
+    EXPECT_TRUE(parseProject(replaced(kFormatExample, "{ \"T\": \"48 degC\", \"P\": \"1.4 bar\" }",
+                                      "{ \"T\": \"0 degC\", \"P\": \"1 atm\", \"meltFraction\": 0 }"))
+                    .ok());
     EXPECT_CONTAINS(errorOf(replaced(kFormatExample, "\"start\": { \"T\": \"48 degC\", \"P\": \"1.4 bar\" },", ""))
                         .message,
                     "\"start\" is missing");
@@ -607,6 +622,29 @@ TEST(ProjectFile, MalformedInputNeverCrashes) {
     }
 }
 
+TEST(ProjectFile, SampleProjectsReadAndWriteBackStably) {
+    // The demo worksheets shipped with Heatchain must load, and a save of an
+    // unchanged worksheet must be a fixed point.
+    const fs::path folder = fs::path(HEATCHAIN_SOURCE_DIR) / "sample-projects";
+    int count = 0;
+    for (const auto& entry : fs::directory_iterator(folder)) {
+        if (entry.path().extension() != ".hchain") continue;
+        ++count;
+        SCOPED_TRACE(entry.path().filename().string());
+        auto p = loadProject(entry.path());
+        EXPECT_TRUE(p.ok()) << p.error().text();
+        if (!p.ok()) continue;
+        EXPECT_FALSE(p->steps.empty());
+        const std::string written = writeProject(*p);
+        auto again = parseProject(written);
+        EXPECT_TRUE(again.ok()) << again.error().text();
+        if (again.ok()) {
+            EXPECT_EQ(writeProject(*again), written);
+        }
+    }
+    EXPECT_GT(count, 0);
+}
+
 // ---- Files ------------------------------------------------------------------
 
 class ProjectFileOnDisk : public ::testing::Test {
@@ -725,3 +763,63 @@ TEST_F(ProjectFileOnDisk, ErrorsNameTheFile) {
 
 }  // namespace
 }  // namespace heatchain
+
+// project-format.md: "numbers as the user typed them". nlohmann/json reprints
+// doubles in shortest form (0.60 → 0.6), so the writer must keep the text.
+TEST(ProjectFileNumbers, DimensionlessNumbersKeepTheirTypedCharacters) {
+    using heatchain::parseProject;
+    using heatchain::writeProject;
+    const std::string text = R"({
+  "format": "heatchain-project",
+  "version": 1,
+  "meta": {
+    "title": "looks like a placeholder: \u0001hcnum0\u0001"
+  },
+  "display": {
+    "units": "SI"
+  },
+  "system": "steady-flow",
+  "model": "constant-cp",
+  "substance": "nitrogen",
+  "basis": {
+    "massFlow": "1 kg/s"
+  },
+  "start": {
+    "T": "300 K",
+    "P": "1 bar"
+  },
+  "steps": [
+    {
+      "id": "c1",
+      "kind": "compress",
+      "to": {
+        "ratio": 2.50
+      },
+      "path": "adiabatic",
+      "efficiency": 0.60
+    },
+    {
+      "id": "c2",
+      "kind": "compress",
+      "to": {
+        "ratio": 1.5e0
+      },
+      "path": "polytropic",
+      "n": 1.30
+    }
+  ]
+}
+)";
+    auto p = parseProject(text, "numbers.hchain");
+    ASSERT_TRUE(p.ok()) << p.error().text();
+    EXPECT_DOUBLE_EQ(p->steps[0].efficiency->value, 0.6);
+    const std::string out = writeProject(*p);
+    EXPECT_NE(out.find("\"efficiency\": 0.60"), std::string::npos) << out;
+    EXPECT_NE(out.find("\"ratio\": 2.50"), std::string::npos) << out;
+    EXPECT_NE(out.find("\"ratio\": 1.5e0"), std::string::npos) << out;
+    EXPECT_NE(out.find("\"n\": 1.30"), std::string::npos) << out;
+    EXPECT_NE(out.find("hcnum0"), std::string::npos) << "the title's text survives";
+    auto again = parseProject(out, "numbers.hchain");
+    ASSERT_TRUE(again.ok()) << again.error().text();
+    EXPECT_EQ(writeProject(*again), out) << "same project, same bytes";
+}

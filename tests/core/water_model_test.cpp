@@ -232,3 +232,53 @@ TEST(WaterModel, StatePHFindsMixtures) {
     auto bad = m->statePH(1e5, 1e8);
     EXPECT_FALSE(bad.ok());
 }
+
+// Law (path independence of the inversion) inside region 3, where (P,h) and
+// (P,s) take the direct (rho, T) Newton path from the SR3-03(2014) backward
+// start: on both sides of the dome above 623.15 K, mixtures go to region 4
+// with the quality they were made with, and single-phase states just off
+// the saturation lines come back to their (T, P) state.
+TEST(WaterModel, Region3InversionAroundTheDome) {
+    auto m = water();
+    for (double P : {17e6, 19e6, 21e6, 22e6}) {
+        for (double x : {0.05, 0.5, 0.95}) {
+            auto wet = m->stateOnLineP(Transition::Boiling, P, x);
+            ASSERT_TRUE(wet.ok());
+            auto bh = m->statePH(P, wet->h);
+            auto bs = m->statePS(P, wet->s);
+            ASSERT_TRUE(bh.ok() && bs.ok()) << P;
+            EXPECT_EQ(bh->phase, Phase::LiquidVapor) << P << " " << x;
+            EXPECT_NEAR(*bh->quality, x, 1e-9) << P;
+            EXPECT_NEAR(*bs->quality, x, 1e-9) << P;
+        }
+        auto Ts = m->transitionTemperature(Transition::Boiling, P);
+        ASSERT_TRUE(Ts.ok());
+        for (double dT : {-3.0, -0.3, 0.3, 3.0, 30.0}) {
+            const double T = *Ts + dT;
+            if (T <= 623.15) continue;
+            auto s = m->stateTP(T, P);
+            ASSERT_TRUE(s.ok());
+            auto bh = m->statePH(P, s->h);
+            auto bs = m->statePS(P, s->s);
+            ASSERT_TRUE(bh.ok() && bs.ok()) << P << " " << T;
+            EXPECT_NEAR(bh->T, T, 1e-7 * T) << P << " Pa " << T << " K";
+            EXPECT_NEAR(bs->T, T, 1e-7 * T) << P << " Pa " << T << " K";
+            EXPECT_NEAR(bh->v, s->v, 1e-7 * s->v);
+            EXPECT_EQ(bh->phase, s->phase);
+            EXPECT_EQ(bh->source, s->source);
+        }
+    }
+    // Supercritical pressures: across region 3 from 623.15 K to B23.
+    for (double P : {25e6, 50e6, 100e6}) {
+        for (double T : {623.5, 640.0, 647.0, 660.0, 700.0, 760.0, 800.0}) {
+            auto s = m->stateTP(T, P);
+            ASSERT_TRUE(s.ok());
+            auto bh = m->statePH(P, s->h);
+            auto bs = m->statePS(P, s->s);
+            ASSERT_TRUE(bh.ok() && bs.ok());
+            EXPECT_NEAR(bh->T, T, 1e-7 * T) << P << " Pa " << T << " K";
+            EXPECT_NEAR(bs->T, T, 1e-7 * T) << P << " Pa " << T << " K";
+            EXPECT_EQ(bh->source, s->source);
+        }
+    }
+}

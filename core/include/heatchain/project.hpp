@@ -27,6 +27,7 @@ struct Quantity {
 struct Number {
     Json raw;  // the number as it was in the file (written back unchanged)
     double value = 0;
+    std::string text;  // a JSON number's characters exactly as typed ("0.60"); empty when made in code
 };
 
 enum class SystemKind { Closed, SteadyFlow };

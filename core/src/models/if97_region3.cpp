@@ -69,10 +69,12 @@ void pressureAndSlope(double rho, double T, double& P, double& dPdrho) {
 
 }  // namespace
 
-Props region3(double rho, double T) {
+namespace {
+
+// Properties from phi at (rho, T), R7-97(2012) Table 31.
+Props propsFromPhi(double rho, double T, const Phi& f) {
     const double delta = rho / rhoc;
     const double tau = Tc / T;
-    const Phi f = phi(delta, tau);
     Props r;
     r.T = T;
     r.v = 1.0 / rho;
@@ -87,6 +89,56 @@ Props region3(double rho, double T) {
     const double w2 = R * T * (b - a * a / (tau * tau * f.ftt));
     r.w = w2 > 0 ? std::sqrt(w2) : std::numeric_limits<double>::quiet_NaN();
     return r;
+}
+
+}  // namespace
+
+Props region3(double rho, double T) { return propsFromPhi(rho, T, phi(rho / rhoc, Tc / T)); }
+
+bool region3Solve(double P, double value, Given given, double& rho, double& T, Props& out) {
+    // Newton in two unknowns (rho, T) on p(rho, T) = P and h or s (rho, T) =
+    // value, with the analytic Jacobian of eq. 28 (R7-97(2012), Table 31
+    // derivatives). From the SR3-03 start two or three steps suffice.
+    const bool H = given == Given::Enthalpy;
+    const double tolP = kRegion3SolveTol * P;
+    const double tolX = kRegion3SolveTol * std::max(std::fabs(value), H ? 1e3 : 1.0);
+    for (int it = 0; it < 12; ++it) {
+        if (!(rho > 0 && T > 0) || !std::isfinite(rho) || !std::isfinite(T)) return false;
+        const double delta = rho / rhoc;
+        const double tau = Tc / T;
+        const Phi f = phi(delta, tau);
+        const double p = rho * R * T * delta * f.fd;
+        const double x = H ? R * T * (tau * f.ft + delta * f.fd) : R * (tau * f.ft - f.f);
+        const double F1 = p - P, F2 = x - value;
+        if (std::fabs(F1) <= tolP && std::fabs(F2) <= tolX) {
+            out = propsFromPhi(rho, T, f);
+            return true;
+        }
+        const double dpdr = R * T * (2 * delta * f.fd + delta * delta * f.fdd);
+        const double dpdT = rho * R * (delta * f.fd - delta * tau * f.fdt);
+        double dxdr, dxdT;
+        if (H) {
+            dxdr = R * T / rho * (delta * tau * f.fdt + delta * f.fd + delta * delta * f.fdd);
+            dxdT = R * (-tau * tau * f.ftt + delta * f.fd - delta * tau * f.fdt);
+        } else {
+            dxdr = R / rho * (delta * tau * f.fdt - delta * f.fd);
+            dxdT = -R * tau * tau * f.ftt / T;
+        }
+        const double det = dpdr * dxdT - dpdT * dxdr;
+        if (!(std::fabs(det) > 0) || !std::isfinite(det)) return false;
+        double dr = -(F1 * dxdT - F2 * dpdT) / det;
+        double dT = -(dpdr * F2 - dxdr * F1) / det;
+        // Keep a step from leaving the neighbourhood of the start: the
+        // backward equations are within a few tenths of a percent.
+        const double lim = std::max(std::fabs(dr) / (0.2 * rho), std::fabs(dT) / (0.05 * T));
+        if (lim > 1) {
+            dr /= lim;
+            dT /= lim;
+        }
+        rho += dr;
+        T += dT;
+    }
+    return false;
 }
 
 bool region3Density(double T, double P, Branch branch, double& rho) {

@@ -1,8 +1,10 @@
 // The reference model of water. IF97 regions by (T, P) for the fluid, ice Ih
 // below the melting and sublimation curves, region 4 on the boiling line.
-// (P, h) and (P, s) start from IF97's backward equations and are refined with
-// Newton steps on the forward equations, so the state found reproduces the
-// given h or s to ~1e-12 relative.
+// (P, h) and (P, s) start from IF97's backward equations (R7-97 for regions
+// 1 and 2, SR3-03(2014) for region 3) and are refined with Newton steps on
+// the forward equations, so the state found reproduces the given h or s to
+// 5e-10 relative (direct path) or ~1e-13 (walk along the isobar, used near
+// phase lines and region boundaries, for mixtures, region 5 and ice).
 #include "heatchain/models/water_model.hpp"
 
 #include <algorithm>
@@ -11,6 +13,7 @@
 #include <cstdio>
 #include <functional>
 #include <limits>
+#include <optional>
 #include <string>
 
 #include "heatchain/models/ice_ih.hpp"
@@ -90,11 +93,134 @@ std::uint32_t fluidRangeFlags(double T, double P) {
     return f;
 }
 
+// A fluid State with its range flags and, in region 3 near the critical
+// point, the near-critical flag (R7-97(2012), Sec. 7: least accurate there).
+State labelledFluid(const w::Props& p, Phase ph, std::string_view src, double T, double P, std::uint32_t extra);
+
 // The equilibrium fluid phase label at (T, P).
 Phase fluidPhase(double T, double P) {
     if (T >= w::Tc) return P >= w::Pc ? Phase::Supercritical : Phase::Vapor;
     if (P > w::Pc) return Phase::Liquid;
     return P >= w::saturationPressure(T) ? Phase::Liquid : Phase::Vapor;
+}
+
+State labelledFluid(const w::Props& p, Phase ph, std::string_view src, double T, double P, std::uint32_t extra) {
+    State s = fromIf97(p, ph, src);
+    s.warnings = fluidRangeFlags(T, P) | extra;
+    if (src == kSrc3 && std::fabs(T / w::Tc - 1) < 0.01 && std::fabs(P / w::Pc - 1) < 0.1)
+        s.warnings |= WarnNearCritical;
+    return s;
+}
+
+// ---- Direct (P, h) / (P, s) inside one IF97 region --------------------------------
+// The backward equation of the region gives T within tens of mK; Newton
+// steps on the region's forward equation with (dh/dT)_p = cp and
+// (ds/dT)_p = cp/T then reach kDirectTol in one to three evaluations. The
+// result is accepted only when it lies inside the region (checked on the
+// forward boundaries); otherwise the general walk along the isobar decides.
+
+// Stop when h or s is reproduced to this relative tolerance (forward and
+// backward agree to 1e-9, the model's promise; see water_model_test.cpp).
+constexpr double kDirectTol = 5e-10;
+
+template <class Eval>
+bool newtonOnIsobar(Eval eval, bool H, double value, double T, w::Props& out) {
+    const double tol = kDirectTol * std::max(std::fabs(value), H ? 1e3 : 1.0);
+    for (int it = 0; it < 8; ++it) {
+        if (!(T > 0) || !std::isfinite(T)) return false;
+        const w::Props p = eval(T);
+        const double f = (H ? p.h : p.s) - value;
+        if (std::fabs(f) <= tol) {
+            out = p;
+            return true;
+        }
+        const double d = H ? p.cp : p.cp / T;
+        if (!(d > 0) || !std::isfinite(d)) return false;
+        T -= f / d;
+    }
+    return false;
+}
+
+std::optional<State> directRegion1(double P, bool H, double value) {
+    w::Props p;
+    const double T0 = H ? w::region1T_ph(P, value) : w::region1T_ps(P, value);
+    if (!newtonOnIsobar([P](double T) { return w::region1(T, P); }, H, value, T0, p)) return std::nullopt;
+    // Compressed liquid of region 1 (above the triple-point temperature,
+    // so never supercooled): T ≤ 623.15 K and P above ps(T).
+    if (!(p.T >= w::Tt && p.T <= w::T13) || P < w::saturationPressure(p.T) * (1 + kLineSlack)) return std::nullopt;
+    return labelledFluid(p, fluidPhase(p.T, P), kSrc1, p.T, P, WarnNone);
+}
+
+std::optional<State> directRegion2(double P, bool H, double value) {
+    w::Props p;
+    const double T0 = H ? w::region2T_ph(P, value) : w::region2T_ps(P, value);
+    if (!newtonOnIsobar([P](double T) { return w::region2(T, P); }, H, value, T0, p)) return std::nullopt;
+    const double T = p.T;
+    if (!(T >= w::Tt && T <= w::T25)) return std::nullopt;
+    if (T <= w::T13) {
+        if (P > w::saturationPressure(T) * (1 - kLineSlack)) return std::nullopt;
+        return labelledFluid(p, Phase::Vapor, kSrc2, T, P, WarnNone);
+    }
+    if (T <= w::T23max && P > w::b23Pressure(T)) return std::nullopt;
+    return labelledFluid(p, fluidPhase(T, P), kSrc2, T, P, WarnNone);
+}
+
+std::optional<State> directRegion3(double P, bool H, double value) {
+    // Below the critical pressure, leave the neighbourhood of the two-phase
+    // dome (p_3sat(h) or p_3sat(s), SR3-03 eqs. 10–11) to the general walk.
+    // Eqs. 10–11 hold between the saturated liquid and vapour at 623.15 K;
+    // outside that span of h or s an isobar in region 3 meets no dome.
+    if (P < w::Pc) {
+        static const w::Props liq = w::region1(w::T13, w::saturationPressureAt623());
+        static const w::Props vap = w::region2(w::T13, w::saturationPressureAt623());
+        const double lo = H ? liq.h : liq.s, hi = H ? vap.h : vap.s;
+        if (value >= lo && value <= hi) {
+            const double psat = H ? w::region3SaturationPressure_h(value) : w::region3SaturationPressure_s(value);
+            if (!(P > psat * 1.002)) return std::nullopt;
+        }
+    }
+    double v = H ? w::region3v_ph(P, value) : w::region3v_ps(P, value);
+    double T = H ? w::region3T_ph(P, value) : w::region3T_ps(P, value);
+    if (!(v > 0) || !(T > 0)) return std::nullopt;
+    double rho = 1.0 / v;
+    w::Props p;
+    if (!w::region3Solve(P, value, H ? w::Given::Enthalpy : w::Given::Entropy, rho, T, p)) return std::nullopt;
+    if (!(T >= w::T13 && T <= w::T23max) || P < w::b23Pressure(T)) return std::nullopt;
+    if (T < w::Tc && P < w::Pc) {
+        // A stable state lies on its own side of the dome: liquid below
+        // Tsat(P) (dense), vapour above it (dilute).
+        const bool liquidSide = T < w::saturationTemperature(P);
+        if (liquidSide != (rho > w::rhoc)) return std::nullopt;
+    }
+    p.P = P;
+    return labelledFluid(p, fluidPhase(T, P), kSrc3, T, P, WarnNone);
+}
+
+// The region a (P, h) or (P, s) state is tried in first, from the backward
+// temperatures of regions 1 and 2 against the region boundaries; empty
+// when the state is near a boundary or outside regions 1–3.
+std::optional<State> directState(double P, bool H, double value) {
+    if (!(P >= w::Pt && P <= w::Pmax)) return std::nullopt;
+    // Each backward equation is extrapolated wildly outside its region, so a
+    // seed counts only when it falls inside the region it belongs to, with a
+    // margin for the backward equations' inconsistency (≤ 25 mK, R7-97(2012)
+    // Sec. 5; SR3-03(2014)).
+    constexpr double margin = 0.5;  // K
+    const double T1 = H ? w::region1T_ph(P, value) : w::region1T_ps(P, value);
+    const double p623 = w::saturationPressureAt623();
+    const double T1max = P <= p623 ? w::saturationTemperature(P) : w::T13;
+    if (T1 > w::Tt + margin && T1 < T1max - margin) return directRegion1(P, H, value);
+    if (P <= p623) {
+        const double T2 = H ? w::region2T_ph(P, value) : w::region2T_ps(P, value);
+        if (T2 > T1max + margin && T2 < w::T25 - margin) return directRegion2(P, H, value);
+        return std::nullopt;
+    }
+    const double Tb = w::b23Temperature(P);
+    const double T3 = H ? w::region3T_ph(P, value) : w::region3T_ps(P, value);
+    if (T3 > w::T13 + margin && T3 < Tb - margin) return directRegion3(P, H, value);
+    const double T2 = H ? w::region2T_ph(P, value) : w::region2T_ps(P, value);
+    if (T2 > Tb + margin && T2 < w::T25 - margin) return directRegion2(P, H, value);
+    return std::nullopt;
 }
 
 class WaterReferenceModel final : public PropertyModel {
@@ -176,11 +302,7 @@ Result<State> WaterReferenceModel::fluidState(Phase requested, double T, double 
     const std::uint32_t flags = fluidRangeFlags(T, P);
     const Phase eq = fluidPhase(T, P);
     auto done = [&](const w::Props& p, Phase ph, std::string_view src, std::uint32_t extra = WarnNone) {
-        State s = fromIf97(p, ph, src);
-        s.warnings = flags | extra;
-        if (src == kSrc3 && std::fabs(T / w::Tc - 1) < 0.01 && std::fabs(P / w::Pc - 1) < 0.1)
-            s.warnings |= WarnNearCritical;  // R7-97(2012), Sec. 7: region 3 is least accurate there
-        return s;
+        return labelledFluid(p, ph, src, T, P, flags | extra);
     };
 
     // High-temperature steam: region 5 (no phase question there).
@@ -468,7 +590,10 @@ Result<State> WaterReferenceModel::stateP(double P, Property which, double value
     if (P > kFluidPmax) return makeError("pressure " + fmt(P / 1e6) + " MPa is above the model's range (" + rangeText() + ")");
     auto prop = [which](const State& s) { return which == Property::Enthalpy ? s.h : s.s; };
 
-    // Fast path: clearly above the melting/sublimation line (liquid at
+    // Fast path: a state clearly inside region 1, 2 or 3.
+    if (auto d = directState(P, which == Property::Enthalpy, value)) return *std::move(d);
+
+    // Clearly above the melting/sublimation line (liquid at
     // 273.16 K or vapour at the triple-point temperature is the floor).
     if (P >= w::Pt && P <= ice::meltingPressureMax()) {
         const w::Props floor = w::region1(w::Tt, P);

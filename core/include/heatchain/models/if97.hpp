@@ -57,6 +57,14 @@ Props region5(double T, double P);             // eq. 32, Tables 37 and 38
 enum class Branch { Liquid, Vapor };
 bool region3Density(double T, double P, Branch branch, double& rho);
 
+// Region 3 at (P, h) or (P, s): Newton on eq. 28 in (rho, T) from the start
+// (rho, T) (e.g. the SR3-03 backward equations), stopping when p and h or s
+// agree to kRegion3SolveTol relative. Returns false when it does not
+// converge in a bounded number of steps; the properties come back in `out`.
+enum class Given { Enthalpy, Entropy };
+inline constexpr double kRegion3SolveTol = 1e-11;
+bool region3Solve(double P, double value, Given given, double& rho, double& T, Props& out);
+
 // ---- Region 4 and the B23 boundary -----------------------------------------
 double saturationPressure(double T);     // eq. 30, Table 34; 273.15 K ≤ T ≤ Tc
 double saturationTemperature(double P);  // eq. 31, Table 34; 611.213 Pa ≤ P ≤ Pc
@@ -70,6 +78,18 @@ double b2bcPressure(double h);           // eq. 20, Table 19
 double b2bcEnthalpy(double P);           // eq. 21, Table 19
 double region2T_ph(double P, double h);  // eqs. 22–24, Tables 20–22 (2a/2b/2c)
 double region2T_ps(double P, double s);  // eqs. 25–27, Tables 25–27 (2a/2b/2c)
+
+// Region 3 backward equations of IAPWS SR3-03(2014) (subregions 3a/3b).
+// Their results agree with eq. 28 only to the release's tolerances (about
+// 25 mK and 0.01 % in v); the water model refines them with Newton steps.
+inline constexpr double kS3ab = 4.41202148223476e3;  // s_3ab = s_c, J/(kg K), SR3-03(2014): the 3a/3b boundary for (p,s)
+double region3abEnthalpy(double P);            // h_3ab(p), SR3-03 eq. 1, Table 1
+double region3T_ph(double P, double h);        // eqs. 2–3, Tables 3–4
+double region3v_ph(double P, double h);        // eqs. 4–5, Tables 6–7
+double region3T_ps(double P, double s);        // eqs. 6–7, Tables 10–11
+double region3v_ps(double P, double s);        // eqs. 8–9, Tables 13–14
+double region3SaturationPressure_h(double h);  // p_3sat(h), eq. 10, Table 17
+double region3SaturationPressure_s(double s);  // p_3sat(s), eq. 11, Table 19
 
 // ---- Region selection from (T, P) ---------------------------------------------
 // 1, 2, 3 or 5 by the boundaries of Fig. 1; 0 outside the formulation's range.

@@ -1,0 +1,37 @@
+#pragma once
+// A process chart on screen: draws heatchain::view::ProcessChart, shows the
+// values of the nearest curve point under the mouse, and selects a step on
+// click.
+#include <QWidget>
+
+#include "document.hpp"
+#include "heatchain_qt/process_chart.hpp"
+
+namespace heatchain::gui {
+
+class ChartWidget : public QWidget {
+    Q_OBJECT
+public:
+    ChartWidget(ProjectDocument* doc, view::ProcessChart::Kind kind, QWidget* parent = nullptr);
+    const view::ProcessChart& chart() const { return chart_; }
+    QSize sizeHint() const override { return {460, 320}; }
+    QSize minimumSizeHint() const override { return {240, 180}; }
+
+public slots:
+    void refresh();
+
+protected:
+    void paintEvent(QPaintEvent*) override;
+    void mouseMoveEvent(QMouseEvent* e) override;
+    void mousePressEvent(QMouseEvent* e) override;
+    void leaveEvent(QEvent*) override;
+
+private:
+    QRectF chartRect() const;
+    ProjectDocument* doc_;
+    view::ProcessChart chart_;
+    QString title_;
+    std::optional<view::ProcessChart::Hover> hover_;
+};
+
+}  // namespace heatchain::gui

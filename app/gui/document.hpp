@@ -1,0 +1,73 @@
+#pragma once
+// The open worksheet: the Project (the document), the undo stack of the edits
+// made to it, and the SequenceResult core computed from it. Every change goes
+// through a QUndoCommand that calls setProject()/mutate(); the document then
+// re-solves the whole sequence and emits one signal, changed(). Views redraw
+// from project() and result() and never talk to each other.
+#include <QObject>
+#include <QString>
+#include <QUndoStack>
+#include <functional>
+#include <memory>
+#include <string>
+
+#include "heatchain/project.hpp"
+#include "heatchain/result.hpp"
+#include "heatchain/solver.hpp"
+
+namespace heatchain::gui {
+
+class ProjectDocument : public QObject {
+    Q_OBJECT
+public:
+    explicit ProjectDocument(QObject* parent = nullptr);
+    // Quiet on the way out: the undo stack's last cleanChanged must not reach
+    // views that outlive the document by a few instructions.
+    ~ProjectDocument() override;
+
+    const Project& project() const { return project_; }
+    const SequenceResult& result() const { return result_; }
+    // Saturation dome of the current model, or null when it has none.
+    const DomeCurve* dome() const { return dome_.liquidSide.empty() ? nullptr : &dome_; }
+    QUndoStack* undoStack() { return &undo_; }
+
+    // The step selected on the canvas (index into project().steps), −1: none.
+    int selectedStep() const { return selected_; }
+    void setSelectedStep(int index);
+    int indexOf(std::string_view stepId) const;
+
+    // File: replacing the worksheet clears the undo history.
+    QString filePath() const { return filePath_; }
+    bool isModified() const { return !undo_.isClean(); }
+    // Opens `path`; on error the current worksheet stays exactly as it was.
+    Status open(const QString& path);
+    Status saveAs(const QString& path);
+    void reset(Project project, const QString& path = {});
+
+    // For undo commands only: replace the whole project, or change it in place.
+    void setProject(Project project);
+    void mutate(const std::function<void(Project&)>& change);
+
+    // Time the last solve took, ms.
+    double lastSolveMs() const { return lastSolveMs_; }
+
+signals:
+    void changed();                // the project changed and result() is fresh
+    void selectionChanged(int index);
+    void fileStateChanged();       // path or modified flag changed
+
+private:
+    void recompute();
+
+    Project project_;
+    SequenceResult result_;
+    DomeCurve dome_;
+    std::shared_ptr<const PropertyModel> model_;
+    std::string modelKey_;  // model kind + substance; the model is rebuilt only when it changes
+    QUndoStack undo_;
+    QString filePath_;
+    int selected_ = -1;
+    double lastSolveMs_ = 0;
+};
+
+}  // namespace heatchain::gui

@@ -1,0 +1,276 @@
+#include "ledger_model.hpp"
+
+#include <QBrush>
+#include <QColor>
+#include <QFont>
+#include <cmath>
+
+#include "heatchain_qt/format.hpp"
+
+namespace heatchain::gui {
+
+using namespace heatchain::view;
+
+LedgerModel::LedgerModel(ProjectDocument* doc, QObject* parent)
+    : QAbstractTableModel(parent), doc_(doc) {
+    connect(doc_, &ProjectDocument::changed, this, &LedgerModel::refresh);
+    refresh();
+}
+
+void LedgerModel::refresh() {
+    beginResetModel();
+    rows_.clear();
+    const SequenceResult& r = doc_->result();
+    rows_.push_back({RowKind::Start});
+    for (std::size_t i = 0; i < r.steps.size(); ++i) {
+        rows_.push_back({RowKind::Step, int(i)});
+        if (r.steps[i].segments.size() > 1)
+            for (std::size_t k = 0; k < r.steps[i].segments.size(); ++k)
+                rows_.push_back({RowKind::Segment, int(i), int(k)});
+    }
+    rows_.push_back({RowKind::Total});
+    rows_.push_back({RowKind::HeatingDuty});
+    rows_.push_back({RowKind::CoolingDuty});
+    endResetModel();
+    emit headerDataChanged(Qt::Horizontal, 0, ColumnCount - 1);
+}
+
+int LedgerModel::rowCount(const QModelIndex& parent) const {
+    return parent.isValid() ? 0 : int(rows_.size());
+}
+int LedgerModel::columnCount(const QModelIndex& parent) const {
+    return parent.isValid() ? 0 : ColumnCount;
+}
+
+int LedgerModel::rowOfStep(int stepIndex) const {
+    for (std::size_t i = 0; i < rows_.size(); ++i)
+        if (rows_[i].kind == RowKind::Step && rows_[i].step == stepIndex) return int(i);
+    return -1;
+}
+
+Dimension LedgerModel::dimensionOf(int column) const {
+    const SystemKind sys = doc_->result().system;
+    switch (column) {
+    case ColTin: case ColTout: return Dimension::Temperature;
+    case ColPin: case ColPout: return Dimension::Pressure;
+    case ColQ: case ColW: case ColdH: case ColdU: case ColExd: return energyDimension(sys);
+    case ColdS: case ColSgen: return entropyDimension(sys);
+    default: return Dimension::Dimensionless;
+    }
+}
+
+QVariant LedgerModel::siValue(const Row& row, int c) const {
+    const SequenceResult& r = doc_->result();
+    auto fromState = [&](const State& a, const State& b) -> QVariant {
+        switch (c) {
+        case ColTin: return a.T;
+        case ColTout: return b.T;
+        case ColPin: return a.P;
+        case ColPout: return b.P;
+        default: return {};
+        }
+    };
+    switch (row.kind) {
+    case RowKind::Start:
+        if (r.startError) return {};
+        if (c == ColTout) return r.start.T;
+        if (c == ColPout) return r.start.P;
+        return {};
+    case RowKind::Step: {
+        const StepResult& s = r.steps[std::size_t(row.step)];
+        if (!s.computed) return {};
+        if (QVariant v = fromState(s.start, s.end); v.isValid()) return v;
+        switch (c) {
+        case ColQ: return s.Q;
+        case ColW: return s.W;
+        case ColdH: return s.dH;
+        case ColdU: return s.dU;
+        case ColdS: return s.dS;
+        case ColSgen: return s.Sgen;
+        case ColExd: return s.exergyDestroyed;
+        default: return {};
+        }
+    }
+    case RowKind::Segment: {
+        const StepResult& s = r.steps[std::size_t(row.step)];
+        if (!s.computed) return {};
+        const SegmentResult& g = s.segments[std::size_t(row.segment)];
+        if (QVariant v = fromState(g.start, g.end); v.isValid()) return v;
+        if (c == ColQ) return g.Q;
+        return {};
+    }
+    case RowKind::Total:
+        switch (c) {
+        case ColQ: return r.totals.Q;
+        case ColW: return r.totals.W;
+        case ColdH: return r.totals.dH;
+        case ColdU: return r.totals.dU;
+        case ColdS: return r.totals.dS;
+        case ColSgen: return r.totals.Sgen;
+        case ColExd: return r.totals.exergyDestroyed;
+        default: return {};
+        }
+    case RowKind::HeatingDuty:
+        return c == ColQ ? QVariant(r.totals.heatingDuty) : QVariant();
+    case RowKind::CoolingDuty:
+        return c == ColQ ? QVariant(r.totals.coolingDuty) : QVariant();
+    }
+    return {};
+}
+
+QString LedgerModel::text(const Row& row, int c) const {
+    const SequenceResult& r = doc_->result();
+    const Project& p = doc_->project();
+    if (c == ColStep) {
+        switch (row.kind) {
+        case RowKind::Start: return tr("start");
+        case RowKind::Step: return QStringLiteral("%1  %2").arg(row.step + 1).arg(QString::fromStdString(r.steps[std::size_t(row.step)].id));
+        case RowKind::Segment: return {};
+        case RowKind::Total: return tr("Total");
+        case RowKind::HeatingDuty: return tr("Heating duty");
+        case RowKind::CoolingDuty: return tr("Cooling duty");
+        }
+    }
+    if (c == ColWhat) {
+        switch (row.kind) {
+        case RowKind::Start: return QString::fromStdString(p.substance.name);
+        case RowKind::Step: return stepKindTitle(r.steps[std::size_t(row.step)].kind);
+        case RowKind::Segment:
+            return QStringLiteral("   └ %1").arg(QString::fromStdString(
+                r.steps[std::size_t(row.step)].segments[std::size_t(row.segment)].label));
+        case RowKind::HeatingDuty: return tr("sum of Q > 0");
+        case RowKind::CoolingDuty: return tr("sum of |Q < 0|");
+        default: return {};
+        }
+    }
+    if (c == ColPhase) {
+        switch (row.kind) {
+        case RowKind::Start: return r.startError ? tr("error") : phaseText(r.start);
+        case RowKind::Step: {
+            const StepResult& s = r.steps[std::size_t(row.step)];
+            if (s.error) return tr("error: %1").arg(QString::fromStdString(s.error->message));
+            if (!s.computed) return tr("not computed");
+            return phaseText(s.end);
+        }
+        case RowKind::Segment: {
+            const StepResult& s = r.steps[std::size_t(row.step)];
+            return s.computed ? phaseText(s.segments[std::size_t(row.segment)].end) : QString();
+        }
+        default: return {};
+        }
+    }
+    const QVariant v = siValue(row, c);
+    if (!v.isValid()) return {};
+    if (c >= ColQ && c != ColdS && c != ColSgen) {
+        // Round-off of a balance (ΔH of a throttle: 8e−13 kW) reads as a
+        // number; below a billionth of the row's largest energy it shows as 0.
+        // The full value stays in the copied text and in SiRole.
+        double scale = 0;
+        for (int k : {int(ColQ), int(ColW), int(ColdH), int(ColdU)}) {
+            const QVariant e = siValue(row, k);
+            if (e.isValid()) scale = std::max(scale, std::fabs(e.toDouble()));
+        }
+        if (std::fabs(v.toDouble()) < 1e-9 * scale) return QStringLiteral("0");
+    }
+    return formatDisplay(v.toDouble(), dimensionOf(c), p.displayUnits, p.unitContext());
+}
+
+QVariant LedgerModel::data(const QModelIndex& index, int role) const {
+    if (!index.isValid() || index.row() >= int(rows_.size())) return {};
+    const Row& row = rows_[std::size_t(index.row())];
+    const int c = index.column();
+    switch (role) {
+    case Qt::DisplayRole: return text(row, c);
+    case SiRole: return siValue(row, c);
+    case RowStepRole: return row.step;
+    case RowKindRole: return int(row.kind);
+    case Qt::TextAlignmentRole:
+        if (c == ColStep || c == ColWhat || c == ColPhase) return int(Qt::AlignLeft | Qt::AlignVCenter);
+        return int(Qt::AlignRight | Qt::AlignVCenter);
+    case Qt::FontRole: {
+        if (row.kind == RowKind::Step && c == ColStep) { QFont f; f.setBold(true); return f; }
+        if (row.kind == RowKind::Total || row.kind == RowKind::HeatingDuty || row.kind == RowKind::CoolingDuty) {
+            QFont f; f.setBold(row.kind == RowKind::Total); return f;
+        }
+        return {};
+    }
+    case Qt::ForegroundRole: {
+        if (row.kind == RowKind::Segment) return QBrush(QColor(0x5c, 0x63, 0x6b));
+        if (row.kind == RowKind::Step) {
+            const StepResult& s = doc_->result().steps[std::size_t(row.step)];
+            if (s.error || !s.computed) return QBrush(QColor(0xb4, 0x23, 0x18));
+            if (!s.warnings.empty() && c == ColPhase) return QBrush(QColor(0x8a, 0x5a, 0x00));
+        }
+        return {};
+    }
+    case Qt::BackgroundRole:
+        if (row.kind == RowKind::Total || row.kind == RowKind::HeatingDuty || row.kind == RowKind::CoolingDuty)
+            return QBrush(QColor(0xf1, 0xf3, 0xf5));
+        if (row.kind == RowKind::Start) return QBrush(QColor(0xf7, 0xf8, 0xf9));
+        return {};
+    case Qt::ToolTipRole:
+        if (row.kind == RowKind::Step) {
+            const StepResult& s = doc_->result().steps[std::size_t(row.step)];
+            QStringList t;
+            if (s.error) t << tr("Error: %1").arg(QString::fromStdString(s.error->message));
+            for (const auto& w : s.warnings) t << tr("Warning: %1").arg(QString::fromStdString(w));
+            if (!t.isEmpty()) return t.join(QLatin1Char('\n'));
+        }
+        return {};
+    default:
+        return {};
+    }
+}
+
+QVariant LedgerModel::headerData(int section, Qt::Orientation o, int role) const {
+    if (o != Qt::Horizontal) return {};
+    if (role == Qt::TextAlignmentRole)
+        return int((section == ColStep || section == ColWhat || section == ColPhase ? Qt::AlignLeft : Qt::AlignRight) | Qt::AlignVCenter);
+    if (role != Qt::DisplayRole) return {};
+    const UnitSystem u = doc_->project().displayUnits;
+    auto h = [&](const QString& name) {
+        return QStringLiteral("%1\n[%2]").arg(name, unitSymbol(dimensionOf(section), u));
+    };
+    switch (section) {
+    case ColStep: return tr("Step\n");
+    case ColWhat: return tr("Kind / segment\n");
+    case ColTin: return h(tr("T in"));
+    case ColTout: return h(tr("T out"));
+    case ColPin: return h(tr("P in"));
+    case ColPout: return h(tr("P out"));
+    case ColPhase: return tr("Phase out\n");
+    case ColQ: return h(tr("Q"));
+    case ColW: return h(tr("W"));
+    case ColdH: return h(tr("ΔH"));
+    case ColdU: return h(tr("ΔU"));
+    case ColdS: return h(tr("ΔS"));
+    case ColSgen: return h(tr("S_gen"));
+    case ColExd: return h(tr("Ex. destroyed"));
+    default: return {};
+    }
+}
+
+QString LedgerModel::toTabSeparated() const {
+    const Project& p = doc_->project();
+    QStringList lines;
+    QStringList head;
+    for (int c = 0; c < ColumnCount; ++c)
+        head << headerData(c, Qt::Horizontal, Qt::DisplayRole).toString().replace(QLatin1Char('\n'), QLatin1Char(' ')).trimmed();
+    lines << head.join(QLatin1Char('\t'));
+    for (const Row& row : rows_) {
+        QStringList cells;
+        for (int c = 0; c < ColumnCount; ++c) {
+            const QVariant v = siValue(row, c);
+            if (v.isValid()) {
+                // Full precision and a plain minus for spreadsheets.
+                cells << QString::number(toDisplay(v.toDouble(), dimensionOf(c), p.displayUnits, p.unitContext()), 'g', 10);
+            } else {
+                cells << text(row, c).trimmed().replace(QStringLiteral("└ "), QString());
+            }
+        }
+        lines << cells.join(QLatin1Char('\t'));
+    }
+    return lines.join(QLatin1Char('\n')) + QLatin1Char('\n');
+}
+
+}  // namespace heatchain::gui

@@ -1,0 +1,58 @@
+#pragma once
+// The ledger: every step and, indented under it, its segments when it has
+// more than one (a heating step that crosses boiling), then the totals and
+// the heating and cooling duties. Display units in the headers, numbers
+// right-aligned. Rows keep the sequence order: sorting is deliberately not
+// offered, because the order of the steps is the process itself.
+#include <QAbstractTableModel>
+#include <vector>
+
+#include "document.hpp"
+
+namespace heatchain::gui {
+
+class LedgerModel : public QAbstractTableModel {
+    Q_OBJECT
+public:
+    enum Column {
+        ColStep, ColWhat, ColTin, ColTout, ColPin, ColPout, ColPhase,
+        ColQ, ColW, ColdH, ColdU, ColdS, ColSgen, ColExd, ColumnCount
+    };
+    enum class RowKind { Start, Step, Segment, Total, HeatingDuty, CoolingDuty };
+    // Qt::UserRole gives the SI value of a numeric cell (the core's number),
+    // RowStepRole the step index of a row (−1 for start and totals).
+    static constexpr int SiRole = Qt::UserRole;
+    static constexpr int RowStepRole = Qt::UserRole + 1;
+    static constexpr int RowKindRole = Qt::UserRole + 2;
+
+    explicit LedgerModel(ProjectDocument* doc, QObject* parent = nullptr);
+
+    int rowCount(const QModelIndex& parent = {}) const override;
+    int columnCount(const QModelIndex& parent = {}) const override;
+    QVariant data(const QModelIndex& index, int role) const override;
+    QVariant headerData(int section, Qt::Orientation o, int role) const override;
+
+    // The row of step `index` (−1 if none).
+    int rowOfStep(int stepIndex) const;
+    // The whole ledger as tab-separated text: a header line with units, then
+    // one line per row; numbers in display units with full precision.
+    QString toTabSeparated() const;
+
+public slots:
+    void refresh();
+
+private:
+    struct Row {
+        RowKind kind;
+        int step = -1;
+        int segment = -1;
+    };
+    QVariant siValue(const Row& r, int column) const;
+    QString text(const Row& r, int column) const;
+    Dimension dimensionOf(int column) const;
+
+    ProjectDocument* doc_;
+    std::vector<Row> rows_;
+};
+
+}  // namespace heatchain::gui

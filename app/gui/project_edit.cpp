@@ -1,0 +1,278 @@
+#include "project_edit.hpp"
+
+#include <algorithm>
+#include <cctype>
+#include <cmath>
+#include <cstdio>
+#include <sstream>
+#include <vector>
+
+#include "heatchain/project_file.hpp"
+
+namespace heatchain::gui {
+
+Result<Project> newProject() {
+    // The starting worksheet is written in the file format itself, so "New"
+    // gives exactly what opening that file would give.
+    static constexpr std::string_view text = R"({
+  "format": "heatchain-project",
+  "version": 1,
+  "meta": { "title": "Untitled worksheet" },
+  "display": { "units": "metric-engineering" },
+  "system": "steady-flow",
+  "model": "reference",
+  "substance": "water",
+  "basis": { "massFlow": "1 kg/s" },
+  "start": { "T": "20 degC", "P": "1 atm" },
+  "steps": []
+})";
+    return parseProject(text, "new worksheet");
+}
+
+std::string uniqueStepId(const Project& project, std::string_view base) {
+    std::string b(base);
+    if (b.empty()) b = "step";
+    if (!project.findStep(b)) return b;
+    for (int n = 2; n < 100000; ++n) {
+        std::string candidate = b + "-" + std::to_string(n);
+        if (!project.findStep(candidate)) return candidate;
+    }
+    return b + "-x";
+}
+
+Dimension dutyDimension(const Project& project) {
+    return project.system == SystemKind::Closed ? Dimension::Energy : Dimension::Power;
+}
+
+namespace {
+
+// A number for a default field: plain, at most 4 significant digits.
+std::string plain(double v) {
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.4g", v);
+    return buf;
+}
+
+Quantity displayQuantity(double si, Dimension d, const Project& project) {
+    const std::string_view unit = displayUnit(d, project.displayUnits);
+    double shown = toDisplay(si, d, project.displayUnits, project.unitContext());
+    shown = std::round(shown);
+    Quantity q;
+    q.text = plain(shown) + " " + std::string(unit);
+    auto parsed = parseQuantity(q.text, d, project.unitContext());
+    q.si = parsed ? *parsed : si;
+    return q;
+}
+
+Number number(double v) {
+    Number n;
+    n.raw = Json::parse(plain(v));
+    n.value = v;
+    return n;
+}
+
+}  // namespace
+
+Step defaultStep(const Project& project, const SequenceResult& result, StepKind kind, int index) {
+    Step step;
+    step.kind = kind;
+    step.id = uniqueStepId(project, stepKindId(kind));
+
+    // State just before the insertion point.
+    double T = project.start.T ? project.start.T->si : 293.15;
+    double P = project.start.P ? project.start.P->si : 101325.0;
+    if (!result.startError) {
+        T = result.start.T;
+        P = result.start.P;
+    }
+    for (int i = std::min<int>(index, int(result.steps.size())) - 1; i >= 0; --i) {
+        if (result.steps[std::size_t(i)].computed) {
+            T = result.steps[std::size_t(i)].end.T;
+            P = result.steps[std::size_t(i)].end.P;
+            break;
+        }
+    }
+
+    switch (kind) {
+    case StepKind::Heat:
+        step.hasTo = true;
+        step.to.T = displayQuantity(T + 20.0, Dimension::Temperature, project);
+        break;
+    case StepKind::Cool:
+        step.hasTo = true;
+        step.to.T = displayQuantity(std::max(T - 20.0, 1.0), Dimension::Temperature, project);
+        break;
+    case StepKind::Compress:
+        step.hasTo = true;
+        step.to.P = displayQuantity(2.0 * P, Dimension::Pressure, project);
+        step.path = PathKind::Adiabatic;
+        step.efficiency = number(0.75);
+        break;
+    case StepKind::Expand:
+        step.hasTo = true;
+        step.to.P = displayQuantity(P / 2.0, Dimension::Pressure, project);
+        step.path = PathKind::Isentropic;
+        break;
+    case StepKind::Throttle:
+        step.hasTo = true;
+        step.to.P = displayQuantity(P / 2.0, Dimension::Pressure, project);
+        break;
+    default:
+        break;  // phase changes: the whole change (fraction 1) unless told
+    }
+    return step;
+}
+
+Result<Quantity> parseTypedQuantity(std::string_view text, Dimension d, const Project& project) {
+    std::string t(text);
+    while (!t.empty() && std::isspace(static_cast<unsigned char>(t.back()))) t.pop_back();
+    while (!t.empty() && std::isspace(static_cast<unsigned char>(t.front()))) t.erase(t.begin());
+    auto si = parseQuantity(t, d, project.unitContext());
+    if (!si) return si.error();
+    return Quantity{t, *si};
+}
+
+Result<Number> parseTypedNumber(std::string_view text, double min, double max,
+                                std::string_view what) {
+    std::string t(text);
+    while (!t.empty() && std::isspace(static_cast<unsigned char>(t.back()))) t.pop_back();
+    while (!t.empty() && std::isspace(static_cast<unsigned char>(t.front()))) t.erase(t.begin());
+    Json raw = Json::parse(t, nullptr, /*allow_exceptions=*/false);
+    if (raw.is_discarded() || !raw.is_number())
+        return makeError("\"" + t + "\" is not a number; " + std::string(what) + " is a plain number");
+    const double v = raw.get<double>();
+    if (!std::isfinite(v) || v < min || v > max)
+        return makeError(std::string(what) + " must lie between " + plain(min) + " and " +
+                         plain(max) + ", not " + t);
+    return Number{raw, v};
+}
+
+namespace {
+
+std::vector<std::string> words(std::string_view line) {
+    std::vector<std::string> out;
+    std::istringstream in{std::string(line)};
+    std::string w;
+    while (in >> w) out.push_back(w);
+    return out;
+}
+
+std::string lower(std::string s) {
+    std::transform(s.begin(), s.end(), s.begin(),
+                   [](unsigned char c) { return char(std::tolower(c)); });
+    return s;
+}
+
+bool isKeyword(const std::string& w) {
+    static const char* keys[] = {"to", "by", "duty", "ratio", "x", "quality", "source", "from",
+                                 "sink", "into", "eff", "efficiency", "n", "fraction",
+                                 "isothermal", "isentropic", "polytropic", "adiabatic",
+                                 "constant-volume", "const-v", "id", "note"};
+    for (const char* k : keys)
+        if (w == k) return true;
+    return false;
+}
+
+}  // namespace
+
+Result<Step> parseQuickAdd(std::string_view line, const Project& project) {
+    const std::vector<std::string> w = words(line);
+    if (w.empty()) return makeError("type a step, e.g. \"heat to 180 degC\"");
+    auto kind = parseStepKind(lower(w[0]));
+    if (!kind)
+        return makeError("\"" + w[0] + "\" is not a step kind; use heat, cool, melt, freeze, boil, "
+                         "condense, sublimate, deposit, compress, expand or throttle");
+    Step step;
+    step.kind = *kind;
+    step.id = uniqueStepId(project, stepKindId(*kind));
+
+    // The value after a keyword runs until the next keyword.
+    std::size_t i = 1;
+    auto value = [&]() {
+        std::string v;
+        while (i < w.size() && !isKeyword(lower(w[i]))) {
+            if (!v.empty()) v += ' ';
+            v += w[i++];
+        }
+        return v;
+    };
+    while (i < w.size()) {
+        std::string key = lower(w[i++]);
+        // "to x 0.4": a quality target.
+        if ((key == "to" || key == "by") && i < w.size() && lower(w[i]) == "x") {
+            ++i;
+            key = "x";
+        }
+        if (key == "isothermal") { step.path = PathKind::Isothermal; continue; }
+        if (key == "isentropic") { step.path = PathKind::Isentropic; continue; }
+        if (key == "adiabatic") { step.path = PathKind::Adiabatic; continue; }
+        if (key == "constant-volume" || key == "const-v") { step.at = HeatingAt::ConstantVolume; continue; }
+        if (key == "polytropic") {
+            step.path = PathKind::Polytropic;
+            continue;
+        }
+        const std::string v = value();
+        if (v.empty()) return makeError("\"" + key + "\" needs a value after it");
+        if (key == "to" || key == "by") {
+            // A target is a temperature, a pressure or a duty: try each.
+            if (auto t = parseTypedQuantity(v, Dimension::Temperature, project)) {
+                step.hasTo = true; step.to.T = *t; continue;
+            }
+            if (auto p = parseTypedQuantity(v, Dimension::Pressure, project)) {
+                step.hasTo = true; step.to.P = *p; continue;
+            }
+            if (auto d = parseTypedQuantity(v, dutyDimension(project), project)) {
+                step.hasTo = true; step.to.duty = *d; continue;
+            }
+            return makeError("\"" + v + "\" is neither a temperature, a pressure nor a duty");
+        } else if (key == "duty") {
+            auto d = parseTypedQuantity(v, dutyDimension(project), project);
+            if (!d) return d.error();
+            step.hasTo = true; step.to.duty = *d;
+        } else if (key == "ratio") {
+            auto r = parseTypedNumber(v, 1, 1e6, "pressure ratio");
+            if (!r) return r.error();
+            step.hasTo = true; step.to.ratio = *r;
+        } else if (key == "x" || key == "quality") {
+            auto q = parseTypedNumber(v, 0, 1, "quality");
+            if (!q) return q.error();
+            step.hasTo = true; step.to.quality = *q;
+        } else if (key == "source" || key == "from") {
+            auto t = parseTypedQuantity(v, Dimension::Temperature, project);
+            if (!t) return t.error();
+            step.source = Reservoir{*t, std::nullopt, Json::object()};
+        } else if (key == "sink" || key == "into") {
+            auto t = parseTypedQuantity(v, Dimension::Temperature, project);
+            if (!t) return t.error();
+            step.sink = Reservoir{*t, std::nullopt, Json::object()};
+        } else if (key == "eff" || key == "efficiency") {
+            auto e = parseTypedNumber(v, 1e-6, 1, "isentropic efficiency");
+            if (!e) return e.error();
+            step.efficiency = *e;
+            if (!step.path) step.path = PathKind::Adiabatic;
+        } else if (key == "n") {
+            auto n = parseTypedNumber(v, 1e-6, 100, "polytropic exponent n");
+            if (!n) return n.error();
+            step.n = *n;
+            step.path = PathKind::Polytropic;
+        } else if (key == "fraction") {
+            auto f = parseTypedNumber(v, 0, 1, "fraction");
+            if (!f) return f.error();
+            step.fraction = *f;
+        } else if (key == "id") {
+            if (project.findStep(v)) return makeError("a step named \"" + v + "\" exists already");
+            step.id = v;
+        } else if (key == "note") {
+            step.note = v;
+        }
+    }
+    if (isPressureChangeKind(step.kind) && step.kind != StepKind::Throttle && !step.path)
+        step.path = PathKind::Isentropic;
+    return step;
+}
+
+Result<Project> normalised(const Project& project) {
+    return parseProject(writeProject(project), "worksheet");
+}
+
+}  // namespace heatchain::gui

@@ -1,0 +1,45 @@
+#pragma once
+// Small, Qt-free helpers for building edits of a Project: a fresh project,
+// default steps, unique ids, typed fields parsed by core, and the quick-add
+// line ("heat to 180 degC"). Parsing and validation are core's; these only
+// assemble the user's words into the Project structure.
+#include <string>
+#include <string_view>
+
+#include "heatchain/project.hpp"
+#include "heatchain/result.hpp"
+#include "heatchain/solver.hpp"
+
+namespace heatchain::gui {
+
+// The worksheet "New" gives: water, reference model, 1 kg/s steady flow,
+// starting at 20 degC and 1 atm, no steps. Built by core's parser.
+Result<Project> newProject();
+
+// A step id not used in `project`, from `base` ("heat", "heat-2", …).
+std::string uniqueStepId(const Project& project, std::string_view base);
+
+// A sensible new step of `kind` to insert at `index`, starting from the state
+// before that position in `result` (or the start state): heat by 20 K,
+// compress to twice the pressure, and so on. Units follow the display system.
+Step defaultStep(const Project& project, const SequenceResult& result, StepKind kind, int index);
+
+// Dimension of a step's duty as typed: energy for a closed batch, power in flow.
+Dimension dutyDimension(const Project& project);
+
+// A typed quantity ("6 barg") checked by core's parser.
+Result<Quantity> parseTypedQuantity(std::string_view text, Dimension d, const Project& project);
+// A typed dimensionless number ("0.72"), kept as the JSON number it was.
+Result<Number> parseTypedNumber(std::string_view text, double min, double max,
+                                std::string_view what);
+
+// "heat to 180 degC", "cool to 40 degC sink 15 degC", "compress to 6 barg eff 0.72",
+// "expand ratio 3 isentropic", "boil", "heat to x 0.4", "heat duty 250 kW".
+Result<Step> parseQuickAdd(std::string_view line, const Project& project);
+
+// Re-reads the project through core's writer and parser so every derived
+// value (SI numbers after an atmosphere change, the resolved substance) is
+// core's own; the error names the field when the settings are inconsistent.
+Result<Project> normalised(const Project& project);
+
+}  // namespace heatchain::gui

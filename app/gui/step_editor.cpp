@@ -1,0 +1,425 @@
+#include "step_editor.hpp"
+
+#include <QHBoxLayout>
+#include <QVBoxLayout>
+
+#include "commands.hpp"
+#include "heatchain_qt/format.hpp"
+#include "heatchain_qt/step_icons.hpp"
+#include "project_edit.hpp"
+
+namespace heatchain::gui {
+
+using namespace heatchain::view;
+
+namespace {
+QString qs(const std::string& s) { return QString::fromStdString(s); }
+QString typedText(const std::optional<Quantity>& q) { return q ? qs(q->text) : QString(); }
+QString typedText(const std::optional<Number>& n) {
+    if (!n) return {};
+    return qs(n->raw.is_null() ? std::to_string(n->value) : n->raw.dump());
+}
+QString typedText(const std::optional<Reservoir>& r) {
+    return r && r->T ? qs(r->T->text) : QString();
+}
+}  // namespace
+
+StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent), doc_(doc) {
+    auto* outer = new QVBoxLayout(this);
+    outer->setContentsMargins(8, 6, 8, 6);
+    header_ = new QLabel(this);
+    header_->setTextFormat(Qt::RichText);
+    outer->addWidget(header_);
+    empty_ = new QLabel(tr("Select a step on the chain to edit it, or add one with the "
+                           "toolbar, the canvas menu, or the quick-add line."),
+                        this);
+    empty_->setWordWrap(true);
+    empty_->setStyleSheet(QStringLiteral("color: #6b727a;"));
+    outer->addWidget(empty_);
+
+    form_ = new QWidget(this);
+    formLayout_ = new QFormLayout(form_);
+    formLayout_->setContentsMargins(0, 0, 0, 0);
+    formLayout_->setLabelAlignment(Qt::AlignRight);
+    formLayout_->setFieldGrowthPolicy(QFormLayout::AllNonFixedFieldsGrow);
+
+    id_ = new QuantityField(form_);
+    id_->setObjectName(QStringLiteral("id"));
+    kind_ = new QComboBox(form_);
+    for (StepKind k : allStepKinds())
+        kind_->addItem(stepIcon(k), stepKindTitle(k), int(k));
+    targetKind_ = new QComboBox(form_);
+    target_ = new QuantityField(form_);
+    auto* targetRow = new QWidget(form_);
+    auto* tl = new QHBoxLayout(targetRow);
+    tl->setContentsMargins(0, 0, 0, 0);
+    tl->addWidget(targetKind_);
+    tl->addWidget(target_, 1);
+    at_ = new QComboBox(form_);
+    at_->addItem(tr("constant pressure"), int(HeatingAt::ConstantPressure));
+    at_->addItem(tr("constant volume"), int(HeatingAt::ConstantVolume));
+    fraction_ = new QuantityField(form_);
+    fraction_->setPlaceholder(tr("1 (the whole change)"));
+    path_ = new QComboBox(form_);
+    path_->addItem(tr("isentropic (reversible, adiabatic)"), int(PathKind::Isentropic));
+    path_->addItem(tr("adiabatic with efficiency"), int(PathKind::Adiabatic));
+    path_->addItem(tr("polytropic, P·vⁿ constant"), int(PathKind::Polytropic));
+    path_->addItem(tr("isothermal"), int(PathKind::Isothermal));
+    n_ = new QuantityField(form_);
+    efficiency_ = new QuantityField(form_);
+    efficiency_->setPlaceholder(tr("isentropic efficiency, 0–1"));
+    source_ = new QuantityField(form_);
+    source_->setPlaceholder(tr("none (S_gen not charged to a source)"));
+    sink_ = new QuantityField(form_);
+    sink_->setPlaceholder(tr("none"));
+    note_ = new QuantityField(form_);
+
+    formLayout_->addRow(tr("Name"), id_);
+    formLayout_->addRow(tr("Kind"), kind_);
+    formLayout_->addRow(tr("Target"), targetRow);
+    formLayout_->addRow(tr("Heated at"), at_);
+    formLayout_->addRow(tr("Fraction"), fraction_);
+    formLayout_->addRow(tr("Path"), path_);
+    formLayout_->addRow(tr("Exponent n"), n_);
+    formLayout_->addRow(tr("Efficiency"), efficiency_);
+    formLayout_->addRow(tr("Source T"), source_);
+    formLayout_->addRow(tr("Sink T"), sink_);
+    formLayout_->addRow(tr("Note"), note_);
+    outer->addWidget(form_);
+
+    resultBox_ = new QGroupBox(tr("Result"), this);
+    auto* rl = new QVBoxLayout(resultBox_);
+    resultText_ = new QLabel(resultBox_);
+    resultText_->setTextFormat(Qt::RichText);
+    resultText_->setTextInteractionFlags(Qt::TextSelectableByMouse);
+    messages_ = new QLabel(resultBox_);
+    messages_->setWordWrap(true);
+    messages_->setTextFormat(Qt::RichText);
+    rl->addWidget(resultText_);
+    rl->addWidget(messages_);
+    outer->addWidget(resultBox_);
+    outer->addStretch(1);
+
+    // --- checks: core's parser gives the reason -------------------------
+    id_->setCheck([this](const QString& t) -> QString {
+        if (t.isEmpty()) return tr("a step needs a name");
+        const int other = doc_->indexOf(t.toStdString());
+        if (other >= 0 && other != doc_->selectedStep())
+            return tr("another step is already named \"%1\"").arg(t);
+        return {};
+    });
+    target_->setCheck([this](const QString& t) { return checkTarget(t, currentTarget()); });
+    auto tempCheck = [this](const QString& t) -> QString {
+        if (t.isEmpty()) return {};
+        auto q = parseTypedQuantity(t.toStdString(), Dimension::Temperature, doc_->project());
+        return q ? QString() : qs(q.error().message);
+    };
+    source_->setCheck(tempCheck);
+    sink_->setCheck(tempCheck);
+    auto numberCheck = [](double lo, double hi, const char* what) {
+        return [lo, hi, what](const QString& t) -> QString {
+            if (t.isEmpty()) return {};
+            auto n = parseTypedNumber(t.toStdString(), lo, hi, what);
+            return n ? QString() : qs(n.error().message);
+        };
+    };
+    fraction_->setCheck(numberCheck(0, 1, "the fraction"));
+    n_->setCheck(numberCheck(1e-6, 100, "the polytropic exponent n"));
+    efficiency_->setCheck(numberCheck(1e-6, 1, "the isentropic efficiency"));
+
+    // --- commits: one undoable command each -----------------------------
+    connect(id_, &QuantityField::committed, this, [this](const QString& t) {
+        apply(tr("name"), [&](Step& s) { s.id = t.toStdString(); });
+    });
+    connect(target_, &QuantityField::committed, this, &StepEditor::applyTarget);
+    connect(targetKind_, &QComboBox::activated, this, [this] {
+        // A new kind of target: keep the text if it fits, else ask for a value.
+        const QString reason = checkTarget(target_->text(), currentTarget());
+        if (reason.isEmpty()) applyTarget(target_->text());
+        else target_->commit();
+    });
+    connect(kind_, &QComboBox::activated, this, [this] {
+        const auto k = StepKind(kind_->currentData().toInt());
+        const Step* s = step();
+        if (!s || s->kind == k) return;
+        // A new kind gets that kind's defaults; the name, note and
+        // source/sink stay.
+        Step fresh = defaultStep(doc_->project(), doc_->result(), k, doc_->selectedStep());
+        fresh.id = s->id;
+        fresh.note = s->note;
+        fresh.source = s->source;
+        fresh.sink = s->sink;
+        fresh.extra = s->extra;
+        apply(tr("kind"), [&](Step& st) { st = fresh; });
+    });
+    connect(at_, &QComboBox::activated, this, [this] {
+        const auto a = HeatingAt(at_->currentData().toInt());
+        apply(tr("heating path"), [&](Step& s) {
+            // Constant pressure is the default and is written only when chosen.
+            s.at = a == HeatingAt::ConstantPressure && !s.at ? std::nullopt
+                                                             : std::optional<HeatingAt>(a);
+        });
+    });
+    connect(path_, &QComboBox::activated, this, [this] {
+        const auto p = PathKind(path_->currentData().toInt());
+        apply(tr("path"), [&](Step& s) {
+            s.path = p;
+            if (p != PathKind::Polytropic) s.n.reset();
+            else if (!s.n) s.n = Number{Json(1.3), 1.3};
+            if (p != PathKind::Adiabatic) s.efficiency.reset();
+            else if (!s.efficiency) s.efficiency = Number{Json(0.75), 0.75};
+        });
+    });
+    auto numberCommit = [this](QuantityField* f, std::optional<Number> Step::*member,
+                               const QString& name) {
+        connect(f, &QuantityField::committed, this, [this, member, name](const QString& t) {
+            apply(name, [&](Step& s) {
+                if (t.isEmpty()) {
+                    (s.*member).reset();
+                    return;
+                }
+                auto n = parseTypedNumber(t.toStdString(), -1e300, 1e300, "value");
+                if (n) s.*member = *n;
+            });
+        });
+    };
+    numberCommit(fraction_, &Step::fraction, tr("fraction"));
+    numberCommit(n_, &Step::n, tr("exponent n"));
+    numberCommit(efficiency_, &Step::efficiency, tr("efficiency"));
+    auto reservoirCommit = [this](QuantityField* f, std::optional<Reservoir> Step::*member,
+                                  const QString& name) {
+        connect(f, &QuantityField::committed, this, [this, member, name](const QString& t) {
+            apply(name, [&](Step& s) {
+                if (t.isEmpty()) {
+                    if (s.*member && (s.*member)->utility) (s.*member)->T.reset();
+                    else (s.*member).reset();
+                    return;
+                }
+                auto q = parseTypedQuantity(t.toStdString(), Dimension::Temperature, doc_->project());
+                if (!q) return;
+                if (!(s.*member)) s.*member = Reservoir{};
+                (s.*member)->T = *q;
+            });
+        });
+    };
+    reservoirCommit(source_, &Step::source, tr("source temperature"));
+    reservoirCommit(sink_, &Step::sink, tr("sink temperature"));
+    connect(note_, &QuantityField::committed, this, [this](const QString& t) {
+        apply(tr("note"), [&](Step& s) {
+            if (t.isEmpty()) s.note.reset();
+            else s.note = t.toStdString();
+        });
+    });
+
+    connect(doc_, &ProjectDocument::changed, this, &StepEditor::refresh);
+    connect(doc_, &ProjectDocument::selectionChanged, this, &StepEditor::refresh);
+    refresh();
+}
+
+QuantityField* StepEditor::field(const QString& name) const {
+    if (name == QLatin1String("id")) return id_;
+    if (name == QLatin1String("target")) return target_;
+    if (name == QLatin1String("source")) return source_;
+    if (name == QLatin1String("sink")) return sink_;
+    if (name == QLatin1String("fraction")) return fraction_;
+    if (name == QLatin1String("n")) return n_;
+    if (name == QLatin1String("efficiency")) return efficiency_;
+    if (name == QLatin1String("note")) return note_;
+    return nullptr;
+}
+
+const Step* StepEditor::step() const {
+    const int i = doc_->selectedStep();
+    if (i < 0 || i >= int(doc_->project().steps.size())) return nullptr;
+    return &doc_->project().steps[std::size_t(i)];
+}
+
+StepEditor::Target StepEditor::currentTarget() const {
+    return Target(targetKind_->currentData().toInt());
+}
+
+QString StepEditor::checkTarget(const QString& text, Target t) const {
+    const Project& p = doc_->project();
+    if (text.isEmpty()) return tr("this step needs a target value");
+    const std::string s = text.toStdString();
+    switch (t) {
+    case Target::Temperature: {
+        auto q = parseTypedQuantity(s, Dimension::Temperature, p);
+        return q ? QString() : qs(q.error().message);
+    }
+    case Target::Pressure: {
+        auto q = parseTypedQuantity(s, Dimension::Pressure, p);
+        return q ? QString() : qs(q.error().message);
+    }
+    case Target::Duty: {
+        auto q = parseTypedQuantity(s, dutyDimension(p), p);
+        return q ? QString() : qs(q.error().message);
+    }
+    case Target::Quality: {
+        auto n = parseTypedNumber(s, 0, 1, "the quality");
+        return n ? QString() : qs(n.error().message);
+    }
+    case Target::Ratio: {
+        auto n = parseTypedNumber(s, 1, 1e6, "the pressure ratio");
+        return n ? QString() : qs(n.error().message);
+    }
+    case Target::None:
+        return {};
+    }
+    return {};
+}
+
+void StepEditor::applyTarget(const QString& text) {
+    const Target t = currentTarget();
+    const Project& p = doc_->project();
+    const std::string s = text.toStdString();
+    StepTarget to;
+    to.extra = step() ? step()->to.extra : Json::object();
+    switch (t) {
+    case Target::Temperature: if (auto q = parseTypedQuantity(s, Dimension::Temperature, p)) to.T = *q; else return; break;
+    case Target::Pressure: if (auto q = parseTypedQuantity(s, Dimension::Pressure, p)) to.P = *q; else return; break;
+    case Target::Duty: if (auto q = parseTypedQuantity(s, dutyDimension(p), p)) to.duty = *q; else return; break;
+    case Target::Quality: if (auto n = parseTypedNumber(s, 0, 1, "quality")) to.quality = *n; else return; break;
+    case Target::Ratio: if (auto n = parseTypedNumber(s, 1, 1e6, "ratio")) to.ratio = *n; else return; break;
+    case Target::None: return;
+    }
+    apply(tr("target"), [&](Step& st) {
+        st.to = to;
+        st.hasTo = true;
+    });
+}
+
+void StepEditor::apply(const QString& fieldName, const std::function<void(Step&)>& change) {
+    if (filling_) return;
+    const Step* s = step();
+    if (!s) return;
+    Step after = *s;
+    change(after);
+    doc_->undoStack()->push(new EditStepField(doc_, doc_->selectedStep(), std::move(after), fieldName));
+}
+
+void StepEditor::fillTargetChoices(StepKind k, Target current) {
+    targetKind_->clear();
+    switch (k) {
+    case StepKind::Heat:
+    case StepKind::Cool:
+        targetKind_->addItem(tr("to temperature"), int(Target::Temperature));
+        targetKind_->addItem(tr("by duty"), int(Target::Duty));
+        targetKind_->addItem(tr("to quality x"), int(Target::Quality));
+        break;
+    case StepKind::Compress:
+    case StepKind::Expand:
+        targetKind_->addItem(tr("to pressure"), int(Target::Pressure));
+        targetKind_->addItem(tr("by pressure ratio"), int(Target::Ratio));
+        break;
+    case StepKind::Throttle:
+        targetKind_->addItem(tr("to pressure"), int(Target::Pressure));
+        break;
+    default:
+        break;
+    }
+    const int i = targetKind_->findData(int(current));
+    if (i >= 0) targetKind_->setCurrentIndex(i);
+}
+
+void StepEditor::setRow(QWidget* w, bool visible) { formLayout_->setRowVisible(w, visible); }
+
+void StepEditor::refresh() {
+    filling_ = true;
+    const Step* s = step();
+    const int index = doc_->selectedStep();
+    form_->setVisible(s != nullptr);
+    resultBox_->setVisible(s != nullptr);
+    empty_->setVisible(s == nullptr);
+    if (!s) {
+        header_->setText(tr("<b>No step selected</b>"));
+        filling_ = false;
+        return;
+    }
+    header_->setText(tr("<b>Step %1 of %2</b> &nbsp;·&nbsp; %3")
+                         .arg(index + 1)
+                         .arg(doc_->project().steps.size())
+                         .arg(qs(s->id).toHtmlEscaped()));
+    id_->showValue(qs(s->id));
+    kind_->setCurrentIndex(kind_->findData(int(s->kind)));
+
+    Target t = Target::None;
+    QString targetText;
+    if (s->to.T) { t = Target::Temperature; targetText = typedText(s->to.T); }
+    else if (s->to.P) { t = Target::Pressure; targetText = typedText(s->to.P); }
+    else if (s->to.duty) { t = Target::Duty; targetText = typedText(s->to.duty); }
+    else if (s->to.quality) { t = Target::Quality; targetText = typedText(s->to.quality); }
+    else if (s->to.ratio) { t = Target::Ratio; targetText = typedText(s->to.ratio); }
+    fillTargetChoices(s->kind, t);
+    target_->showValue(targetText);
+    const bool heatCool = s->kind == StepKind::Heat || s->kind == StepKind::Cool;
+    const bool pressure = s->kind == StepKind::Compress || s->kind == StepKind::Expand;
+    setRow(targetKind_->parentWidget(), targetKind_->count() > 0);
+    setRow(at_, heatCool);
+    at_->setCurrentIndex(at_->findData(int(s->at.value_or(HeatingAt::ConstantPressure))));
+    setRow(fraction_, isPhaseChangeKind(s->kind));
+    fraction_->showValue(typedText(s->fraction));
+    setRow(path_, pressure);
+    const PathKind path = s->path.value_or(PathKind::Isentropic);
+    path_->setCurrentIndex(path_->findData(int(path)));
+    setRow(n_, pressure && path == PathKind::Polytropic);
+    n_->showValue(typedText(s->n));
+    setRow(efficiency_, pressure && path == PathKind::Adiabatic);
+    efficiency_->showValue(typedText(s->efficiency));
+    source_->showValue(typedText(s->source));
+    sink_->showValue(typedText(s->sink));
+    note_->showValue(s->note ? qs(*s->note) : QString());
+
+    // ---- result at a glance -------------------------------------------
+    const SequenceResult& r = doc_->result();
+    const UnitSystem u = doc_->project().displayUnits;
+    const UnitContext ctx = doc_->project().unitContext();
+    QString html;
+    QString msgs;
+    if (index < int(r.steps.size())) {
+        const StepResult& sr = r.steps[std::size_t(index)];
+        if (sr.computed) {
+            const Dimension eD = energyDimension(r.system), sD = entropyDimension(r.system);
+            auto row = [&](const QString& name, const QString& a, const QString& b = {}) {
+                return QStringLiteral("<tr><td style='color:#555;padding-right:10px'>%1</td>"
+                                      "<td align='right'>%2</td><td align='right' "
+                                      "style='padding-left:12px'>%3</td></tr>")
+                    .arg(name, a, b);
+            };
+            html = QStringLiteral("<table cellspacing='0' cellpadding='1'>");
+            html += row(QString(), tr("<i>start</i>"), tr("<i>end</i>"));
+            html += row(tr("T"), formatWithUnit(sr.start.T, Dimension::Temperature, u, ctx),
+                        formatWithUnit(sr.end.T, Dimension::Temperature, u, ctx));
+            html += row(tr("P"), formatWithUnit(sr.start.P, Dimension::Pressure, u, ctx),
+                        formatWithUnit(sr.end.P, Dimension::Pressure, u, ctx));
+            html += row(tr("phase"), phaseText(sr.start), phaseText(sr.end));
+            html += row(tr("h"), formatWithUnit(sr.start.h, Dimension::SpecificEnergy, u, ctx),
+                        formatWithUnit(sr.end.h, Dimension::SpecificEnergy, u, ctx));
+            html += row(tr("s"), formatWithUnit(sr.start.s, Dimension::SpecificEntropy, u, ctx),
+                        formatWithUnit(sr.end.s, Dimension::SpecificEntropy, u, ctx));
+            html += QStringLiteral("<tr><td colspan='3'><hr/></td></tr>");
+            html += row(tr("Q"), formatWithUnit(sr.Q, eD, u, ctx));
+            html += row(tr("W"), formatWithUnit(sr.W, eD, u, ctx));
+            html += row(tr("ΔH"), formatWithUnit(sr.dH, eD, u, ctx));
+            html += row(tr("ΔU"), formatWithUnit(sr.dU, eD, u, ctx));
+            html += row(tr("ΔS"), formatWithUnit(sr.dS, sD, u, ctx));
+            html += row(tr("S_gen"), formatWithUnit(sr.Sgen, sD, u, ctx));
+            html += row(tr("Exergy destroyed"), formatWithUnit(sr.exergyDestroyed, eD, u, ctx));
+            html += QStringLiteral("</table>");
+        } else {
+            html = tr("<span style='color:#b42318'>Not computed.</span>");
+        }
+        if (sr.error)
+            msgs += QStringLiteral("<p style='color:#b42318'><b>Error:</b> %1</p>")
+                        .arg(qs(sr.error->message).toHtmlEscaped());
+        for (const std::string& w : sr.warnings)
+            msgs += QStringLiteral("<p style='color:#8a5a00'><b>Warning:</b> %1</p>")
+                        .arg(qs(w).toHtmlEscaped());
+    }
+    resultText_->setText(html);
+    messages_->setText(msgs);
+    messages_->setVisible(!msgs.isEmpty());
+    filling_ = false;
+}
+
+}  // namespace heatchain::gui

@@ -1,0 +1,68 @@
+#pragma once
+// The editor beside the canvas: every option of the selected step's kind,
+// each field committed as one EditStepField command, and the step's result
+// (end state, Q, W, ΔH, ΔS, S_gen, exergy destroyed, messages) read-only
+// below it.
+#include <QComboBox>
+#include <QFormLayout>
+#include <QGroupBox>
+#include <QLabel>
+#include <QLineEdit>
+#include <QWidget>
+#include <functional>
+
+#include "document.hpp"
+#include "quantity_field.hpp"
+
+namespace heatchain::gui {
+
+class StepEditor : public QWidget {
+    Q_OBJECT
+public:
+    explicit StepEditor(ProjectDocument* doc, QWidget* parent = nullptr);
+
+    // For tests and the quick keyboard path: the field widgets by name
+    // ("id", "target", "source", "sink", "fraction", "n", "efficiency", "note").
+    QuantityField* field(const QString& name) const;
+    QComboBox* kindBox() const { return kind_; }
+    QComboBox* targetBox() const { return targetKind_; }
+    QComboBox* pathBox() const { return path_; }
+    QComboBox* atBox() const { return at_; }
+
+public slots:
+    void refresh();
+
+private:
+    enum class Target { None, Temperature, Duty, Quality, Pressure, Ratio };
+    QString checkTarget(const QString& text, Target t) const;
+    Target currentTarget() const;
+    void applyTarget(const QString& text);
+    void apply(const QString& fieldName, const std::function<void(Step&)>& change);
+    const Step* step() const;
+    void fillTargetChoices(StepKind k, Target current);
+    void setRow(QWidget* w, bool visible);
+
+    ProjectDocument* doc_;
+    bool filling_ = false;
+    QLabel* header_;
+    QWidget* form_;
+    QFormLayout* formLayout_;
+    QuantityField* id_;
+    QComboBox* kind_;
+    QComboBox* targetKind_;
+    QuantityField* target_;
+    QComboBox* at_;
+    QuantityField* fraction_;
+    QComboBox* path_;
+    QuantityField* n_;
+    QuantityField* efficiency_;
+    QuantityField* source_;
+    QuantityField* sink_;
+    QuantityField* note_;
+    QGroupBox* resultBox_;
+    QLabel* resultText_;
+    QLabel* messages_;
+    QLabel* empty_;
+};
+
+}  // namespace heatchain::gui

@@ -1,0 +1,93 @@
+#pragma once
+// The two process charts, drawn with QPainter so the same code paints the
+// window and the PDF report:
+//   - T–s: every step's path in its own colour over the saturation dome;
+//   - T–Q: temperature against cumulative duty, each step's heat source or
+//     sink temperature as a line over the step's duty span, and the smallest
+//     approach temperature marked.
+// The chart only converts core's SI curves to display units and draws them.
+#include <QColor>
+#include <QPainter>
+#include <QString>
+#include <optional>
+#include <vector>
+
+#include "heatchain/project.hpp"
+#include "heatchain/solver.hpp"
+
+namespace heatchain::view {
+
+class ProcessChart {
+public:
+    enum class Kind { TemperatureEntropy, TemperatureDuty };
+
+    explicit ProcessChart(Kind kind) : kind_(kind) {}
+
+    // Takes the curves of `result` (display units of `project`); `dome` may be
+    // null (a model without a liquid–vapour line, or not wanted).
+    void setData(const Project& project, const SequenceResult& result, const DomeCurve* dome);
+    void setSelectedStep(int index) { selected_ = index; }
+    int selectedStep() const { return selected_; }
+    Kind kind() const { return kind_; }
+
+    void paint(QPainter& p, const QRectF& rect) const;
+
+    struct Hover {
+        QPointF at;    // widget position of the nearest point
+        QString text;  // several lines
+        int step = -1;
+    };
+    // The curve point nearest `pos` within `radius` pixels, if any.
+    std::optional<Hover> hoverAt(QPointF pos, const QRectF& rect, double radius = 14) const;
+
+    // The smallest approach over all steps with a source or sink (T–Q only):
+    // step index, the cumulative duty and the temperature of the material
+    // where it occurs, the reservoir temperature, all in display units.
+    struct Approach {
+        int step = -1;
+        double Q = 0, T = 0, Treservoir = 0, dT = 0;
+    };
+    std::optional<Approach> smallestApproach() const { return approach_; }
+
+    QString xTitle() const { return xTitle_; }
+    QString yTitle() const { return yTitle_; }
+
+private:
+    struct Series {
+        int step = -1;
+        QString stepId, label;
+        QColor colour;
+        std::vector<QPointF> pts;  // (x, y) in display units
+        std::vector<CurvePoint> raw;
+    };
+    struct ReservoirLine {
+        int step = -1;
+        double x0 = 0, x1 = 0, T = 0;  // display units
+        bool source = true;
+        QColor colour;
+    };
+    struct Frame {
+        QRectF plot;
+        double x0, x1, y0, y1;
+        QPointF map(QPointF v) const;
+    };
+    Frame frame(const QRectF& rect) const;
+    void drawAxes(QPainter& p, const Frame& f) const;
+
+    Kind kind_;
+    int selected_ = -1;
+    UnitSystem units_ = UnitSystem::SI;
+    UnitContext ctx_;
+    SystemKind system_ = SystemKind::SteadyFlow;
+    std::vector<Series> series_;
+    std::vector<ReservoirLine> reservoirs_;
+    std::vector<QPointF> dome_;  // closed outline, display units
+    std::optional<Approach> approach_;
+    double xmin_ = 0, xmax_ = 1, ymin_ = 0, ymax_ = 1;
+    QString xTitle_, yTitle_, xUnit_, yUnit_;
+};
+
+// Round tick spacing for a span shown with about `count` ticks.
+double niceTickStep(double span, int count);
+
+}  // namespace heatchain::view

@@ -1,0 +1,346 @@
+#include "heatchain_qt/process_chart.hpp"
+
+#include <QFontMetricsF>
+#include <QPainterPath>
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+#include "heatchain_qt/format.hpp"
+#include "heatchain_qt/palette.hpp"
+
+namespace heatchain::view {
+
+double niceTickStep(double span, int count) {
+    if (!(span > 0) || count < 1) return 1.0;
+    const double raw = span / count;
+    const double mag = std::pow(10.0, std::floor(std::log10(raw)));
+    for (double m : {1.0, 2.0, 2.5, 5.0, 10.0})
+        if (raw <= m * mag) return m * mag;
+    return 10.0 * mag;
+}
+
+// Decimals a tick label needs to tell neighbouring ticks apart (2.5 → 1).
+static int decimalsFor(double tickStep) {
+    int d = 0;
+    double v = tickStep;
+    while (d < 6 && std::fabs(v - std::round(v)) > 1e-6 * std::max(1.0, std::fabs(v))) {
+        v *= 10;
+        ++d;
+    }
+    return d;
+}
+
+QPointF ProcessChart::Frame::map(QPointF v) const {
+    const double fx = (v.x() - x0) / (x1 - x0);
+    const double fy = (v.y() - y0) / (y1 - y0);
+    return {plot.left() + fx * plot.width(), plot.bottom() - fy * plot.height()};
+}
+
+void ProcessChart::setData(const Project& project, const SequenceResult& result,
+                           const DomeCurve* dome) {
+    units_ = project.displayUnits;
+    ctx_ = project.unitContext();
+    system_ = result.system;
+    series_.clear();
+    reservoirs_.clear();
+    dome_.clear();
+    approach_.reset();
+
+    const Dimension xDim = kind_ == Kind::TemperatureEntropy ? Dimension::SpecificEntropy
+                                                              : energyDimension(system_);
+    xUnit_ = unitSymbol(xDim, units_);
+    yUnit_ = unitSymbol(Dimension::Temperature, units_);
+    xTitle_ = (kind_ == Kind::TemperatureEntropy ? QStringLiteral("s") : QStringLiteral("Q cumulative"))
+              + QStringLiteral(" [%1]").arg(xUnit_);
+    yTitle_ = QStringLiteral("T [%1]").arg(yUnit_);
+
+    auto X = [&](const CurvePoint& c) {
+        return kind_ == Kind::TemperatureEntropy ? toDisplay(c.s, xDim, units_, ctx_)
+                                                 : toDisplay(c.Q, xDim, units_, ctx_);
+    };
+    auto Y = [&](double T) { return toDisplay(T, Dimension::Temperature, units_, ctx_); };
+
+    double qRunning = 0;  // fallback cumulative duty when a step carries no curve
+    double minDT = std::numeric_limits<double>::infinity();
+    for (std::size_t i = 0; i < result.steps.size(); ++i) {
+        const StepResult& st = result.steps[i];
+        if (!st.computed) continue;
+        const double qStart = qRunning;
+        qRunning += st.Q;
+        std::vector<CurvePoint> stepPts;
+        for (const SegmentResult& seg : st.segments) {
+            Series s;
+            s.step = int(i);
+            s.stepId = QString::fromStdString(st.id);
+            s.label = QString::fromStdString(seg.label);
+            s.colour = stepColour(int(i));
+            s.raw = seg.curve;
+            if (s.raw.empty()) {
+                // No sampled curve: the straight chord between the segment's ends.
+                s.raw.push_back({seg.start.T, seg.start.s, qStart, seg.start.P, seg.start.h});
+                s.raw.push_back({seg.end.T, seg.end.s, qStart + seg.Q, seg.end.P, seg.end.h});
+            }
+            for (const CurvePoint& c : s.raw) s.pts.emplace_back(X(c), Y(c.T));
+            stepPts.insert(stepPts.end(), s.raw.begin(), s.raw.end());
+            series_.push_back(std::move(s));
+        }
+        if (st.segments.empty()) {
+            Series s;
+            s.step = int(i);
+            s.stepId = QString::fromStdString(st.id);
+            s.colour = stepColour(int(i));
+            s.raw = {{st.start.T, st.start.s, qStart, st.start.P, st.start.h},
+                     {st.end.T, st.end.s, qRunning, st.end.P, st.end.h}};
+            for (const CurvePoint& c : s.raw) s.pts.emplace_back(X(c), Y(c.T));
+            stepPts = s.raw;
+            series_.push_back(std::move(s));
+        }
+        if (kind_ == Kind::TemperatureDuty && st.reservoirT && !stepPts.empty()) {
+            ReservoirLine r;
+            r.step = int(i);
+            r.source = st.Q >= 0;
+            r.T = Y(*st.reservoirT);
+            r.x0 = X(stepPts.front());
+            r.x1 = X(stepPts.back());
+            r.colour = stepColour(int(i));
+            reservoirs_.push_back(r);
+            // Approach: how far the reservoir stays hotter (source) or colder
+            // (sink) than the material along the step, in kelvin.
+            for (const CurvePoint& c : stepPts) {
+                const double dT = r.source ? *st.reservoirT - c.T : c.T - *st.reservoirT;
+                if (dT < minDT) {
+                    minDT = dT;
+                    approach_ = Approach{int(i), X(c), Y(c.T), r.T,
+                                         toDisplay(dT, Dimension::TemperatureDifference, units_, ctx_)};
+                }
+            }
+        }
+    }
+
+    if (kind_ == Kind::TemperatureEntropy && dome && !dome->liquidSide.empty()) {
+        for (const CurvePoint& c : dome->liquidSide) dome_.emplace_back(X(c), Y(c.T));
+        for (auto it = dome->vaporSide.rbegin(); it != dome->vaporSide.rend(); ++it)
+            dome_.emplace_back(X(*it), Y(it->T));
+    }
+
+    // Ranges: the paths (and the start point), widened to the dome when the
+    // paths reach into its temperature span, so the dome gives context
+    // without squashing a small process into a corner.
+    double x0 = std::numeric_limits<double>::infinity(), x1 = -x0, y0 = x0, y1 = -x0;
+    auto grow = [&](QPointF v) {
+        if (!std::isfinite(v.x()) || !std::isfinite(v.y())) return;
+        x0 = std::min(x0, v.x()); x1 = std::max(x1, v.x());
+        y0 = std::min(y0, v.y()); y1 = std::max(y1, v.y());
+    };
+    for (const Series& s : series_)
+        for (QPointF v : s.pts) grow(v);
+    for (const ReservoirLine& r : reservoirs_) {
+        grow({r.x0, r.T});
+        grow({r.x1, r.T});
+    }
+    if (!std::isfinite(x0)) {
+        x0 = 0; x1 = 1; y0 = 0; y1 = 100;
+    }
+    if (!dome_.empty()) {
+        double dy0 = std::numeric_limits<double>::infinity(), dy1 = -dy0;
+        for (QPointF v : dome_) { dy0 = std::min(dy0, v.y()); dy1 = std::max(dy1, v.y()); }
+        if (y1 >= dy0 && y0 <= dy1)
+            for (QPointF v : dome_) grow(v);
+    }
+    if (kind_ == Kind::TemperatureDuty) x0 = std::min(x0, 0.0);
+    const double padX = std::max((x1 - x0) * 0.05, 1e-9 + std::fabs(x1) * 0.01);
+    const double padY = std::max((y1 - y0) * 0.06, 1.0);
+    xmin_ = x0 - padX; xmax_ = x1 + padX;
+    ymin_ = y0 - padY; ymax_ = y1 + padY;
+    if (kind_ == Kind::TemperatureDuty && x0 >= 0) xmin_ = std::min(0.0, xmin_);
+}
+
+ProcessChart::Frame ProcessChart::frame(const QRectF& rect) const {
+    Frame f;
+    f.plot = rect.adjusted(62, 14, -14, -42);
+    f.x0 = xmin_; f.x1 = xmax_ > xmin_ ? xmax_ : xmin_ + 1;
+    f.y0 = ymin_; f.y1 = ymax_ > ymin_ ? ymax_ : ymin_ + 1;
+    return f;
+}
+
+void ProcessChart::drawAxes(QPainter& p, const Frame& f) const {
+    const QFontMetricsF fm(p.font());
+    const double xs = niceTickStep(f.x1 - f.x0, std::max(2, int(f.plot.width() / 90)));
+    const double ys = niceTickStep(f.y1 - f.y0, std::max(3, int(f.plot.height() / 34)));
+    p.setPen(QPen(ink::grid(), 1));
+    for (double x = std::ceil(f.x0 / xs) * xs; x <= f.x1 + 1e-9 * xs; x += xs) {
+        const QPointF a = f.map({x, f.y0});
+        p.setPen(QPen(ink::grid(), 1));
+        p.drawLine(QPointF(a.x(), f.plot.top()), QPointF(a.x(), f.plot.bottom()));
+        p.setPen(ink::muted());
+        const QString t = QString::number(std::fabs(x) < xs * 1e-6 ? 0.0 : x, 'f', decimalsFor(xs))
+                              .replace(QLatin1Char('-'), QChar(0x2212));
+        p.drawText(QRectF(a.x() - 50, f.plot.bottom() + 3, 100, fm.height()), Qt::AlignHCenter, t);
+    }
+    for (double y = std::ceil(f.y0 / ys) * ys; y <= f.y1 + 1e-9 * ys; y += ys) {
+        const QPointF a = f.map({f.x0, y});
+        p.setPen(QPen(ink::grid(), 1));
+        p.drawLine(QPointF(f.plot.left(), a.y()), QPointF(f.plot.right(), a.y()));
+        p.setPen(ink::muted());
+        const QString t = QString::number(std::fabs(y) < ys * 1e-6 ? 0.0 : y, 'f', decimalsFor(ys))
+                              .replace(QLatin1Char('-'), QChar(0x2212));
+        p.drawText(QRectF(f.plot.left() - 60, a.y() - fm.height() / 2, 55, fm.height()),
+                   Qt::AlignRight | Qt::AlignVCenter, t);
+    }
+    p.setPen(QPen(ink::axis(), 1));
+    p.setBrush(Qt::NoBrush);
+    p.drawRect(f.plot);
+    p.setPen(ink::text());
+    p.drawText(QRectF(f.plot.left(), f.plot.bottom() + fm.height() + 6, f.plot.width(), fm.height()),
+               Qt::AlignHCenter, xTitle_);
+    p.save();
+    p.translate(f.plot.left() - 50, f.plot.center().y());
+    p.rotate(-90);
+    p.drawText(QRectF(-f.plot.height() / 2, -fm.height(), f.plot.height(), fm.height()),
+               Qt::AlignHCenter, yTitle_);
+    p.restore();
+}
+
+void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
+    p.save();
+    p.setRenderHint(QPainter::Antialiasing, true);
+    p.fillRect(rect, Qt::white);
+    const Frame f = frame(rect);
+    drawAxes(p, f);
+    p.setClipRect(f.plot.adjusted(1, 1, -1, -1));
+
+    if (!dome_.empty()) {
+        QPolygonF poly;
+        for (QPointF v : dome_) poly << f.map(v);
+        p.setPen(Qt::NoPen);
+        p.setBrush(QColor(0xee, 0xf0, 0xf3));
+        p.drawPolygon(poly);
+        p.setPen(QPen(ink::dome(), 1.3));
+        p.setBrush(Qt::NoBrush);
+        p.drawPolyline(poly);
+        // Label where the two sides meet (the critical point).
+        const QPointF top = *std::max_element(poly.begin(), poly.end(),
+                                              [](QPointF a, QPointF b) { return a.y() > b.y(); });
+        p.setPen(ink::muted());
+        p.drawText(top + QPointF(8, 14), QStringLiteral("saturation"));
+    }
+
+    for (const ReservoirLine& r : reservoirs_) {
+        const QPointF a = f.map({r.x0, r.T}), b = f.map({r.x1, r.T});
+        QPen pen(r.colour, r.step == selected_ ? 2.2 : 1.4, Qt::DashLine);
+        p.setPen(pen);
+        p.drawLine(a, b);
+        // Words on every line would bury a long sheet: label the selected
+        // step's line, or all of them on a short sheet.
+        if (reservoirs_.size() <= 12 || r.step == selected_) {
+            p.setPen(r.colour.darker(120));
+            p.drawText(QPointF(std::min(a.x(), b.x()) + 2, a.y() - 3),
+                       r.source ? QStringLiteral("source") : QStringLiteral("sink"));
+        }
+    }
+
+    // Unselected steps first, the selected one on top with a halo.
+    auto drawSeries = [&](const Series& s, bool selected) {
+        // Points closer than a pixel to the last one kept add nothing but
+        // stroking work (a 100-step sheet carries 6,400 points).
+        QPolygonF line;
+        line.reserve(qsizetype(s.pts.size()));
+        for (std::size_t i = 0; i < s.pts.size(); ++i) {
+            const QPointF m = f.map(s.pts[i]);
+            if (!line.isEmpty() && i + 1 < s.pts.size() && (m - line.back()).manhattanLength() < 1.5)
+                continue;
+            line << m;
+        }
+        if (selected) {
+            p.setPen(QPen(QColor(255, 235, 150), 7, Qt::SolidLine, Qt::RoundCap, Qt::RoundJoin));
+            p.drawPolyline(line);
+        }
+        QColor c = s.colour;
+        if (selected_ >= 0 && !selected) c.setAlpha(150);
+        // Bevel joins: round joins cost a trigonometric arc at every vertex.
+        p.setPen(QPen(c, selected ? 3.0 : 1.8, Qt::SolidLine, Qt::FlatCap, Qt::BevelJoin));
+        p.drawPolyline(line);
+    };
+    for (const Series& s : series_)
+        if (s.step != selected_) drawSeries(s, false);
+    for (const Series& s : series_)
+        if (s.step == selected_) drawSeries(s, true);
+
+    // State points: the ends of each step (on long sheets only the selected
+    // step's, where dozens of dots would hide the paths).
+    int lastStep = -2;
+    const bool allMarkers = series_.empty() || series_.back().step < 40;
+    for (std::size_t k = 0; k < series_.size(); ++k) {
+        const Series& s = series_[k];
+        if (s.pts.empty()) continue;
+        if (!allMarkers && s.step != selected_) continue;
+        const bool lastOfStep = k + 1 == series_.size() || series_[k + 1].step != s.step;
+        if (s.step != lastStep) {
+            p.setPen(QPen(ink::text(), 1));
+            p.setBrush(Qt::white);
+            p.drawEllipse(f.map(s.pts.front()), 2.8, 2.8);
+            lastStep = s.step;
+        }
+        if (lastOfStep) {
+            p.setPen(QPen(ink::text(), 1));
+            p.setBrush(s.colour);
+            p.drawEllipse(f.map(s.pts.back()), 3.2, 3.2);
+        }
+    }
+
+    if (approach_) {
+        const QPointF m = f.map({approach_->Q, approach_->T});
+        const QPointF r = f.map({approach_->Q, approach_->Treservoir});
+        p.setPen(QPen(ink::error(), 1.4));
+        p.drawLine(m, r);
+        p.setBrush(Qt::NoBrush);
+        p.drawEllipse(m, 5, 5);
+        const QString label = QStringLiteral("ΔT min %1 %2")
+                                  .arg(formatNumber(approach_->dT, 4, 1),
+                                       unitSymbol(Dimension::TemperatureDifference, units_));
+        const QFontMetricsF fm(p.font());
+        QRectF box(QPointF(0, 0), QSizeF(fm.horizontalAdvance(label) + 8, fm.height() + 4));
+        box.moveCenter((m + r) / 2 + QPointF(box.width() / 2 + 6, 0));
+        if (box.right() > f.plot.right()) box.moveRight((m.x() + r.x()) / 2 - 6);
+        p.setPen(Qt::NoPen);
+        p.setBrush(QColor(255, 255, 255, 225));
+        p.drawRect(box);
+        p.setPen(ink::error());
+        p.drawText(box, Qt::AlignCenter, label);
+    }
+    p.restore();
+}
+
+std::optional<ProcessChart::Hover> ProcessChart::hoverAt(QPointF pos, const QRectF& rect,
+                                                         double radius) const {
+    const Frame f = frame(rect);
+    if (!f.plot.contains(pos)) return std::nullopt;
+    double best = radius * radius;
+    const Series* bestS = nullptr;
+    std::size_t bestI = 0;
+    for (const Series& s : series_) {
+        for (std::size_t i = 0; i < s.pts.size(); ++i) {
+            const QPointF d = f.map(s.pts[i]) - pos;
+            const double d2 = d.x() * d.x() + d.y() * d.y();
+            if (d2 < best) { best = d2; bestS = &s; bestI = i; }
+        }
+    }
+    if (!bestS) return std::nullopt;
+    const CurvePoint& c = bestS->raw[bestI];
+    Hover h;
+    h.at = f.map(bestS->pts[bestI]);
+    h.step = bestS->step;
+    QStringList lines;
+    lines << (bestS->label.isEmpty() ? bestS->stepId
+                                     : QStringLiteral("%1 · %2").arg(bestS->stepId, bestS->label));
+    lines << QStringLiteral("T = %1").arg(formatWithUnit(c.T, Dimension::Temperature, units_, ctx_));
+    lines << QStringLiteral("P = %1").arg(formatWithUnit(c.P, Dimension::Pressure, units_, ctx_));
+    lines << QStringLiteral("s = %1").arg(formatWithUnit(c.s, Dimension::SpecificEntropy, units_, ctx_));
+    lines << QStringLiteral("h = %1").arg(formatWithUnit(c.h, Dimension::SpecificEnergy, units_, ctx_));
+    lines << QStringLiteral("Q cum. = %1").arg(formatWithUnit(c.Q, energyDimension(system_), units_, ctx_));
+    h.text = lines.join(QLatin1Char('\n'));
+    return h;
+}
+
+}  // namespace heatchain::view
