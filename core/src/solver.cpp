@@ -906,7 +906,11 @@ SequenceResult solve(const Project& project, std::shared_ptr<const PropertyModel
             // an internally reversible path generates none.
             sr.Sgen = 0;
         }
-        const double scale = std::fabs(sr.dS) + (sr.reservoirT ? std::fabs(sr.Q / *sr.reservoirT) : 0.0);
+        // Round-off is judged against the entropies themselves as well: an
+        // isentropic step has ΔS ≈ 0, and (P, s) inversions return s to about
+        // 1e-10 of its value, which would otherwise read as S_gen < 0.
+        const double scale = std::fabs(sr.dS) + (sr.reservoirT ? std::fabs(sr.Q / *sr.reservoirT) : 0.0) +
+                             c.m * std::max(std::fabs(cur.s), std::fabs(o.end.s));
         if (sr.Sgen < -1e-9 * scale - 1e-12) {
             sr.error = stepError(step, i, "this specification would destroy entropy (S_gen = " + num(sr.Sgen) +
                                               "): heat would have to flow from cold to hot, or an efficiency above 1");
