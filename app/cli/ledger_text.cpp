@@ -74,6 +74,111 @@ struct Table {
     }
 };
 
+// Display helpers shared by the utility and exergy sections.
+struct Display {
+    UnitSystem us;
+    UnitContext ctx;
+    bool closed;
+    std::string text(double si, Dimension d, int decimals) const {
+        return fixed(toDisplay(si, d, us, ctx), decimals) + " " + unitLabel(displayUnit(d, us));
+    }
+    std::string T(double K) const { return text(K, Dimension::Temperature, 1); }
+    std::string E(double v) const {
+        const Dimension d = closed ? Dimension::Energy : Dimension::Power;
+        return fixed(toDisplay(v, d, us, ctx), decimalsFor(std::fabs(toDisplay(v, d, us, ctx)))) + " " +
+               unitLabel(displayUnit(d, us));
+    }
+    std::string mass(double v) const {
+        const Dimension d = closed ? Dimension::Mass : Dimension::MassFlow;
+        const double x = toDisplay(v, d, us, ctx);
+        return fixed(x, decimalsFor(std::fabs(x))) + " " + unitLabel(displayUnit(d, us));
+    }
+    std::string volume(double v) const {
+        const Dimension d = closed ? Dimension::Volume : Dimension::VolumeFlow;
+        const double x = toDisplay(v, d, us, ctx);
+        return fixed(x, decimalsFor(std::fabs(x))) + " " + unitLabel(displayUnit(d, us));
+    }
+};
+
+// Utilities: each served step (approach temperature and use), then the total
+// per utility.
+std::string utilitiesText(const Project& p, const SequenceResult& r) {
+    if (r.utilities.empty()) return "";
+    const Display d{p.displayUnits, p.unitContext(), p.system == SystemKind::Closed};
+    std::ostringstream o;
+    o << "\nutilities (minimum approach " << fixed(p.minApproachK(), 1)
+      << " K; sensible utilities counter-current; exergy given = Q (1 − T0/T_utility)):\n";
+    for (const auto& u : r.utilities) {
+        o << "  " << u.id << ": ";
+        if (!u.profile) {
+            o << "ERROR " << (u.error ? u.error->text() : std::string("not resolved")) << "\n";
+            continue;
+        }
+        const UtilityProfile& f = *u.profile;
+        switch (u.kind) {
+            case UtilityKind::Steam:
+                o << "steam at " << d.text(f.P, Dimension::Pressure, 3) << ", condensing at " << d.T(f.Tin)
+                  << ", latent heat " << d.text(f.latentHeat, Dimension::SpecificEnergy, 1);
+                break;
+            case UtilityKind::Sensible:
+                o << "sensible, " << d.T(f.Tin) << " in, " << d.T(f.Tout) << " out, mean " << d.T(f.Tmean);
+                break;
+            case UtilityKind::Fixed: o << "fixed at " << d.T(f.Tin); break;
+        }
+        o << "\n";
+    }
+    Table t;
+    t.head = {"step", "utility", "role", "duty", "use", "exergy given", "min approach", "where"};
+    t.rightAlign = {false, false, false, true, true, true, true, false};
+    auto exergy = [&](double v) { return r.exergyAvailable ? d.E(v) : std::string("–"); };
+    for (std::size_t i = 0; i < r.steps.size(); ++i) {
+        const auto& s = r.steps[i];
+        if (!s.computed || !s.utility) continue;
+        const StepUtility& u = *s.utility;
+        std::string use = u.kind == UtilityKind::Fixed ? "–" : d.mass(u.mass);
+        if (u.volume) use += " (" + d.volume(*u.volume) + ")";
+        std::string where = u.position + " of " + (u.segment < s.segments.size() ? s.segments[u.segment].label : "");
+        if (u.position != "start" || u.segment != 0) where += ", after " + d.E(u.approachDuty);
+        std::string approach = fixed(u.minApproach, 1) + " K";
+        if (u.minApproach < p.minApproachK() - 1e-6 && u.duty > 0) approach += " (!)";
+        t.rows.push_back({s.id, u.id, u.asSource ? "source" : "sink", d.E(u.duty), use, exergy(s.exergyHeat), approach, where});
+    }
+    for (const auto& u : r.utilities) {
+        if (!u.steps) continue;
+        std::string use = u.kind == UtilityKind::Fixed ? "–" : d.mass(u.mass);
+        if (u.volume) use += " (" + d.volume(*u.volume) + ")";
+        const double duty = u.heatSupplied + u.heatAbsorbed;
+        t.rows.push_back({"total", u.id, u.heatAbsorbed > 0 && u.heatSupplied > 0 ? "both" : (u.heatSupplied > 0 ? "source" : "sink"),
+                          d.E(duty), use, exergy(u.exergyGivenUp), "", std::to_string(u.steps) + " step" + (u.steps == 1 ? "" : "s")});
+    }
+    if (!t.rows.empty()) o << t.render();
+    return o.str();
+}
+
+// Exergy: per step and for the sequence (definitions in core/src/solver.cpp).
+std::string exergyText(const Project& p, const SequenceResult& r) {
+    if (!r.exergyAvailable) return "";
+    const Display d{p.displayUnits, p.unitContext(), p.system == SystemKind::Closed};
+    std::ostringstream o;
+    o << "\nexergy (dead state " << d.T(r.T0) << ", " << d.text(r.P0, Dimension::Pressure, 4)
+      << "; η_II = 1 − destroyed / supplied):\n";
+    Table t;
+    t.head = {"step", "ΔEx", "Ex of heat", "useful W", "supplied", "destroyed", "share", "η_II"};
+    t.rightAlign = {false, true, true, true, true, true, true, true};
+    auto pct = [](std::optional<double> v) { return v ? fixed(100 * *v, 1) + " %" : std::string("–"); };
+    for (const auto& s : r.steps) {
+        if (!s.computed) continue;
+        t.rows.push_back({s.id, d.E(s.dEx), d.E(s.exergyHeat), d.E(s.usefulWork), d.E(s.exergySupplied),
+                          d.E(s.exergyDestroyed), pct(s.exergyDestroyedShare), pct(s.secondLawEfficiency)});
+    }
+    const auto& tt = r.totals;
+    t.rows.push_back({"sequence", d.E(tt.dEx), d.E(tt.exergyHeatIn - tt.exergyHeatOut), d.E(tt.workIn - tt.workOut),
+                      d.E(tt.exergySupplied), d.E(tt.exergyDestroyed), tt.exergyDestroyed > 0 ? "100.0 %" : "–",
+                      pct(tt.secondLawEfficiency)});
+    o << t.render();
+    return o.str();
+}
+
 }  // namespace
 
 std::string ledgerText(const Project& p, const SequenceResult& r) {
@@ -136,6 +241,9 @@ std::string ledgerText(const Project& p, const SequenceResult& r) {
     o << "heating duty " << fixed(E(tt.heatingDuty), dE_) << " " << uE << ", cooling duty "
       << fixed(E(tt.coolingDuty), dE_) << " " << uE << "\n";
 
+    o << utilitiesText(p, r);
+    o << exergyText(p, r);
+
     bool any = false;
     for (const auto& s : r.steps) {
         for (const auto& w : s.warnings) {
@@ -153,6 +261,54 @@ std::string ledgerText(const Project& p, const SequenceResult& r) {
     }
     o << "\nIdealised process paths. Pressure equipment, steam, cryogens and hot surfaces are governed by\n"
          "local codes and licensed practice; have results checked by a qualified engineer.\n";
+    return o.str();
+}
+
+std::string sweepText(const Project& p, const SweepResult& r) {
+    const UnitSystem us = p.displayUnits;
+    const UnitContext ctx = p.unitContext();
+    auto unitOf = [&](Dimension d) {
+        return d == Dimension::Dimensionless ? std::string() : " [" + unitLabel(displayUnit(d, us)) + "]";
+    };
+    std::ostringstream o;
+    o << (p.meta.title.empty() ? std::string("(untitled worksheet)") : p.meta.title) << "\n";
+    o << "sweep of " << (r.spec.step == "start" ? std::string("the start state") : "step \"" + r.spec.step + "\"")
+      << ", " << r.spec.input << " from " << r.spec.from << " to " << r.spec.to << ", " << r.points.size()
+      << " points (" << r.computed() << " computed)\n\n";
+    Table t;
+    t.head.push_back(r.spec.input + unitOf(r.inputDimension));
+    t.rightAlign.push_back(true);
+    for (const auto& out : r.outputs) {
+        t.head.push_back(out.label + unitOf(out.dimension));
+        t.rightAlign.push_back(true);
+    }
+    std::vector<double> mx(r.outputs.size() + 1, 0.0);
+    for (const auto& pt : r.points) {
+        mx[0] = std::max(mx[0], std::fabs(toDisplay(pt.x, r.inputDimension, us, ctx)));
+        for (std::size_t i = 0; i < pt.values.size(); ++i)
+            if (pt.values[i]) mx[i + 1] = std::max(mx[i + 1], std::fabs(toDisplay(*pt.values[i], r.outputs[i].dimension, us, ctx)));
+    }
+    for (const auto& pt : r.points) {
+        std::vector<std::string> row{fixed(toDisplay(pt.x, r.inputDimension, us, ctx), decimalsFor(mx[0]))};
+        if (pt.error) {
+            row.push_back("ERROR (below)");
+        } else {
+            for (std::size_t i = 0; i < pt.values.size(); ++i)
+                row.push_back(pt.values[i] ? fixed(toDisplay(*pt.values[i], r.outputs[i].dimension, us, ctx),
+                                                   decimalsFor(mx[i + 1]))
+                                           : "–");
+        }
+        t.rows.push_back(std::move(row));
+    }
+    o << t.render();
+    bool any = false;
+    for (const auto& pt : r.points) {
+        if (!pt.error) continue;
+        if (!any) { o << "\npoints not computed:\n"; any = true; }
+        o << "  " << r.spec.input << " = " << fixed(toDisplay(pt.x, r.inputDimension, us, ctx), decimalsFor(mx[0]))
+          << (r.inputDimension == Dimension::Dimensionless ? "" : " " + unitLabel(displayUnit(r.inputDimension, us)))
+          << ": " << pt.error->text() << "\n";
+    }
     return o.str();
 }
 

@@ -7,6 +7,7 @@
 #include <iostream>
 #include <map>
 #include <optional>
+#include <sstream>
 #include <string>
 #include <vector>
 
@@ -16,6 +17,7 @@
 #include "heatchain/results_json.hpp"
 #include "heatchain/solver.hpp"
 #include "heatchain/substance.hpp"
+#include "heatchain/sweep.hpp"
 #include "heatchain/units.hpp"
 #include "ledger_text.hpp"
 
@@ -38,7 +40,12 @@ const char* kUsageText =
     "  heatchain-cli check   PROJECT\n"
     "  heatchain-cli state   SUBSTANCE T=<q> P=<q> | P=<q> h=<q> | P=<q> s=<q> | T=<q> quality=<x> | P=<q> quality=<x>"
     "  [--model M] [--json]\n"
-    "  heatchain-cli substances [--json]\n";
+    "  heatchain-cli substances [--json]\n"
+    "  heatchain-cli sweep   PROJECT --step ID|start --input PATH --from Q --to Q --points N\n"
+    "                        [--outputs KEY,KEY,...] [--json | --csv] [-o FILE]\n"
+    "      PATH of a step: to.T, to.P, to.duty, to.quality, to.ratio, efficiency, fraction, n,\n"
+    "      source.T, sink.T; of the start: T, P, quality, meltFraction.\n"
+    "      --outputs list: heatchain-cli sweep PROJECT --list-outputs\n";
 
 int usage(const std::string& why) {
     std::cerr << "heatchain-cli: " << why << "\n" << kUsageText;
@@ -68,7 +75,8 @@ Result<Args> parseArgs(int argc, char** argv, int from) {
     Args a;
     for (int i = from; i < argc; ++i) {
         std::string s = argv[i];
-        if (s == "-o" || s == "--output" || s == "--model" || s == "--page") {
+        if (s == "-o" || s == "--output" || s == "--model" || s == "--page" || s == "--step" || s == "--input" ||
+            s == "--from" || s == "--to" || s == "--points" || s == "--outputs") {
             if (i + 1 >= argc) return makeError(s + " needs a value");
             a.options[s == "--output" ? "-o" : s] = argv[++i];
         } else if (s.rfind("--", 0) == 0) {
@@ -338,6 +346,133 @@ int substances(const Args& a) {
     return kDone;
 }
 
+// SI unit of a sweep column (the JSON and CSV carry SI numbers).
+std::string siLabel(Dimension d) {
+    switch (d) {
+        case Dimension::Temperature:
+        case Dimension::TemperatureDifference: return "K";
+        case Dimension::Pressure: return "Pa";
+        case Dimension::Energy: return "J";
+        case Dimension::Power: return "W";
+        case Dimension::Entropy: return "J/K";
+        case Dimension::EntropyRate: return "W/K";
+        case Dimension::Mass: return "kg";
+        case Dimension::MassFlow: return "kg/s";
+        default: return "1";
+    }
+}
+
+int sweepCommand(const Args& a) {
+    if (a.positional.size() != 1) return usage("sweep needs one PROJECT file");
+    const bool json = a.options.count("--json"), csv = a.options.count("--csv");
+    const bool list = a.options.count("--list-outputs");
+    for (const auto& [k, v] : a.options)
+        if (k != "--json" && k != "--csv" && k != "-o" && k != "--step" && k != "--input" && k != "--from" &&
+            k != "--to" && k != "--points" && k != "--outputs" && k != "--list-outputs")
+            return usage("unknown option " + k);
+    if (json && csv) return usage("--json and --csv exclude each other");
+    auto project = loadProject(a.positional[0]);
+    if (!project) {
+        std::cerr << "heatchain-cli: " << project.error().text() << "\n";
+        return kInvalid;
+    }
+    if (list) {
+        for (const auto& o : sweepOutputKeys(*project))
+            std::cout << o.key << "  (" << o.label << ", " << siLabel(o.dimension) << ")\n";
+        return kDone;
+    }
+    for (const char* need : {"--step", "--input", "--from", "--to", "--points"})
+        if (!a.options.count(need)) return usage(std::string("sweep needs ") + need);
+    SweepSpec spec;
+    spec.step = a.options.at("--step");
+    spec.input = a.options.at("--input");
+    spec.from = a.options.at("--from");
+    spec.to = a.options.at("--to");
+    try {
+        std::size_t used = 0;
+        spec.points = std::stoi(a.options.at("--points"), &used);
+        if (used != a.options.at("--points").size()) throw std::invalid_argument("trailing text");
+    } catch (const std::exception&) {
+        return usage("--points needs a whole number, got \"" + a.options.at("--points") + "\"");
+    }
+    if (auto it = a.options.find("--outputs"); it != a.options.end()) {
+        std::string cur;
+        for (char c : it->second + ",") {
+            if (c == ',') {
+                if (!cur.empty()) spec.outputs.push_back(cur);
+                cur.clear();
+            } else if (c != ' ') {
+                cur += c;
+            }
+        }
+    }
+    auto res = sweep(*project, spec);
+    if (!res) {
+        std::cerr << "heatchain-cli: " << a.positional[0] << ": " << res.error().text() << "\n";
+        return kInvalid;
+    }
+    const SweepResult& r = *res;
+    std::string text;
+    if (json) {
+        Json j = Json::object();
+        j["step"] = spec.step;
+        j["input"] = spec.input;
+        j["inputUnit"] = siLabel(r.inputDimension);
+        Json outs = Json::array();
+        for (const auto& o : r.outputs) outs.push_back({{"key", o.key}, {"label", o.label}, {"unit", siLabel(o.dimension)}});
+        j["outputs"] = outs;
+        Json pts = Json::array();
+        for (const auto& p : r.points) {
+            Json v = Json::object();
+            for (std::size_t i = 0; i < r.outputs.size(); ++i)
+                v[r.outputs[i].key] = p.values[i] && std::isfinite(*p.values[i]) ? Json(*p.values[i]) : Json(nullptr);
+            pts.push_back({{"x", p.x}, {"text", p.text}, {"values", v},
+                           {"error", p.error ? Json(p.error->text()) : Json(nullptr)}, {"warnings", p.warnings}});
+        }
+        j["points"] = pts;
+        j["computed"] = r.computed();
+        text = j.dump(2) + "\n";
+    } else if (csv) {
+        auto q = [](const std::string& s) {
+            if (s.find_first_of(",\"\n") == std::string::npos) return s;
+            std::string o = "\"";
+            for (char c : s) {
+                if (c == '"') o += '"';
+                o += c;
+            }
+            return o + "\"";
+        };
+        std::ostringstream o;
+        o << q(spec.input + " [" + siLabel(r.inputDimension) + "]");
+        for (const auto& out : r.outputs) o << "," << q(out.key + " [" + siLabel(out.dimension) + "]");
+        o << ",error\n";
+        char buf[64];
+        for (const auto& p : r.points) {
+            std::snprintf(buf, sizeof buf, "%.10g", p.x);
+            o << buf;
+            for (const auto& v : p.values) {
+                o << ",";
+                if (v) {
+                    std::snprintf(buf, sizeof buf, "%.10g", *v);
+                    o << buf;
+                }
+            }
+            o << "," << (p.error ? q(p.error->text()) : std::string()) << "\n";
+        }
+        text = o.str();
+    } else {
+        text = cli::sweepText(*project, r);
+    }
+    std::optional<std::string> out;
+    if (auto it = a.options.find("-o"); it != a.options.end()) out = it->second;
+    const int rc = emit(text, out);
+    if (r.computed() == 0) {
+        std::cerr << "heatchain-cli: " << a.positional[0] << ": no point of the sweep could be computed\n";
+        return kCannotCompute;
+    }
+    return rc;
+}
+
 }  // namespace
 
 int main(int argc, char** argv) {
@@ -356,5 +491,6 @@ int main(int argc, char** argv) {
     if (verb == "diff") return diff(*args);
     if (verb == "state") return state(*args);
     if (verb == "substances") return substances(*args);
+    if (verb == "sweep") return sweepCommand(*args);
     return usage("unknown command \"" + verb + "\"");
 }

@@ -91,4 +91,19 @@ const Step* Project::findStep(std::string_view id) const {
     return nullptr;
 }
 
+const Utility* Project::findUtility(std::string_view id) const {
+    for (const Utility& u : utilities)
+        if (u.id == id) return &u;
+    return nullptr;
+}
+
+std::string_view utilityKindId(UtilityKind k) {
+    switch (k) {
+        case UtilityKind::Steam: return "steam";
+        case UtilityKind::Sensible: return "sensible";
+        case UtilityKind::Fixed: return "fixed";
+    }
+    return "fixed";
+}
+
 }  // namespace heatchain

@@ -9,8 +9,8 @@
 //
 // Writing is stable: fixed key order, 2-space indent, quantities exactly as
 // typed. Top-level order: format, version, meta, display, system, model,
-// substance, basis, atmosphere, surroundings, start, then unknown top-level
-// fields in their original order, then steps (last, because it is the long
+// substance, basis, atmosphere, surroundings, start, minApproach, utilities,
+// then unknown top-level fields in their original order, then steps (last, because it is the long
 // part a reviewer scrolls through). Inside a step: id, kind, to, at,
 // fraction, path, n, efficiency, source, sink, note, then unknown fields.
 // Dimensionless numbers are written as nlohmann/json prints the parsed
@@ -550,6 +550,109 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
     return s;
 }
 
+// ---- Utilities (issue 7: optional top-level "utilities" and "minApproach") ----
+
+constexpr std::string_view kUtilityFields[] = {"id", "kind", "name", "P", "in", "out", "cp", "density", "T"};
+
+std::string_view utilityOwnersOf(std::string_view field) {
+    if (field == "P") return "steam";
+    if (field == "T") return "fixed";
+    return "sensible";  // in, out, cp, density
+}
+
+Utility readUtility(const Reader& r, const Json& v, long index, std::set<std::string>& ids) {
+    const JsonPath path{{"utilities", -1}, {"", index}};
+    r.object(v, path, "a utility");
+    Utility u;
+    const Json* id = member(v, "id");
+    if (!id) r.fail(path, "the utility has no id; every utility needs a unique \"id\", e.g. \"lp-steam\"");
+    u.id = r.string(*id, child(path, "id"));
+    if (u.id.empty()) r.fail(child(path, "id"), "the utility id is empty");
+    if (!ids.insert(u.id).second)
+        r.fail(child(path, "id"), "the utility id " + inQuotes(u.id) + " is used twice; utility ids must be unique");
+    const Json* kind = member(v, "kind");
+    if (!kind) r.fail(path, "utility " + inQuotes(u.id) + " has no kind (steam, sensible or fixed)");
+    const std::string k = r.string(*kind, child(path, "kind"));
+    if (k == "steam") u.kind = UtilityKind::Steam;
+    else if (k == "sensible") u.kind = UtilityKind::Sensible;
+    else if (k == "fixed") u.kind = UtilityKind::Fixed;
+    else r.fail(child(path, "kind"), "unknown utility kind " + inQuotes(k) + "; valid kinds are steam, sensible, fixed");
+    for (auto it = v.begin(); it != v.end(); ++it) {
+        const std::string& key = it.key();
+        if (!isOneOf(key, kUtilityFields) || key == "id" || key == "kind" || key == "name") continue;
+        if (utilityOwnersOf(key) != k)
+            r.fail(child(path, key), inQuotes(key) + " does not belong to a " + k + " utility; it is for a " +
+                                         std::string(utilityOwnersOf(key)) + " utility");
+    }
+    u.name = r.optionalString(v, path, "name");
+    u.P = r.optionalQuantity(v, path, "P", Dimension::Pressure);
+    u.Tin = r.optionalQuantity(v, path, "in", Dimension::Temperature);
+    u.Tout = r.optionalQuantity(v, path, "out", Dimension::Temperature);
+    u.cp = r.optionalQuantity(v, path, "cp", Dimension::SpecificEntropy);
+    u.density = r.optionalQuantity(v, path, "density", Dimension::Density);
+    u.T = r.optionalQuantity(v, path, "T", Dimension::Temperature);
+    switch (u.kind) {
+        case UtilityKind::Steam:
+            if (!u.P) r.fail(path, "a steam utility needs its pressure, e.g. \"P\": \"3 barg\"");
+            if (!(u.P->si > 0)) r.fail(child(path, "P"), "the steam pressure must be above zero absolute");
+            break;
+        case UtilityKind::Sensible:
+            if (!u.Tin || !u.Tout || !u.cp)
+                r.fail(path, "a sensible utility needs \"in\" and \"out\" temperatures and \"cp\", e.g. "
+                             "{ \"in\": \"28 degC\", \"out\": \"36 degC\", \"cp\": \"4.18 kJ/(kg K)\" }");
+            if (!(u.Tin->si > 0) || !(u.Tout->si > 0))
+                r.fail(child(path, u.Tin->si > 0 ? "out" : "in"), "the temperature must be above absolute zero");
+            if (u.Tin->si == u.Tout->si)
+                r.fail(child(path, "out"), "\"in\" and \"out\" are equal; a sensible utility changes temperature "
+                                           "(for one temperature use kind \"fixed\")");
+            if (!(u.cp->si > 0)) r.fail(child(path, "cp"), "cp must be greater than zero");
+            if (u.density && !(u.density->si > 0)) r.fail(child(path, "density"), "density must be greater than zero");
+            break;
+        case UtilityKind::Fixed:
+            if (!u.T) r.fail(path, "a fixed utility needs its temperature, e.g. \"T\": \"900 degC\"");
+            if (!(u.T->si > 0)) r.fail(child(path, "T"), "the temperature must be above absolute zero");
+            break;
+    }
+    u.extra = Reader::unknownFields(v, kUtilityFields);
+    return u;
+}
+
+void readUtilities(const Reader& r, const Json& root, Project& p) {
+    if (const Json* m = member(root, "minApproach")) {
+        const JsonPath path{{"minApproach", -1}};
+        p.minApproach = r.quantity(*m, path, Dimension::TemperatureDifference);
+        if (!(p.minApproach->si >= 0)) r.fail(path, "the minimum approach temperature cannot be negative");
+    }
+    const Json* list = member(root, "utilities");
+    if (!list) return;
+    const JsonPath path{{"utilities", -1}};
+    if (!list->is_array()) r.fail(path, "\"utilities\" must be a list [...]; found " + jsonTypeName(*list));
+    std::set<std::string> ids;
+    long index = 0;
+    for (const Json& u : *list) p.utilities.push_back(readUtility(r, u, index++, ids));
+    p.hasUtilities = true;
+}
+
+// A step's source or sink naming a utility must name one of the list.
+void checkUtilityReferences(const Reader& r, const Project& p) {
+    for (std::size_t i = 0; i < p.steps.size(); ++i) {
+        const Step& s = p.steps[i];
+        for (const auto& [res, key] : {std::pair{&s.source, "source"}, std::pair{&s.sink, "sink"}}) {
+            if (!*res || !(*res)->utility) continue;
+            if ((*res)->T)
+                r.fail({{"steps", -1}, {"", static_cast<long>(i)}, {key, -1}, {"T", -1}},
+                       std::string("the ") + key + " names a utility and a temperature; give one");
+            if (p.findUtility(*(*res)->utility)) continue;
+            std::string known;
+            for (const Utility& u : p.utilities) known += (known.empty() ? "" : ", ") + u.id;
+            r.fail({{"steps", -1}, {"", static_cast<long>(i)}, {key, -1}, {"utility", -1}},
+                   "unknown utility " + inQuotes(*(*res)->utility) + "; " +
+                       (known.empty() ? std::string("the project defines no \"utilities\"")
+                                      : "the project's utilities are " + known));
+        }
+    }
+}
+
 // ---- Parse errors from nlohmann/json ----------------------------------------
 
 Error positioned(std::string message, std::string_view file, std::string_view text, std::size_t offset) {
@@ -696,6 +799,8 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
                             "\"P\": \"1.4 bar\" }");
     readStart(r, *start, p.start);
 
+    readUtilities(r, root, p);
+
     const Json* steps = member(root, "steps");
     if (!steps) r.fail(top, "\"steps\" is missing (an empty list [] is fine)");
     if (!steps->is_array()) r.fail({{"steps", -1}}, "\"steps\" must be a list [...]; found " + jsonTypeName(*steps));
@@ -704,9 +809,11 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
     p.steps.reserve(steps->size());
     long index = 0;
     for (const Json& s : *steps) p.steps.push_back(readStep(r, s, index++, p, ids, firstSeen));
+    checkUtilityReferences(r, p);
 
     p.extra = Reader::unknownFields(root, {"format", "version", "meta", "display", "system", "model", "substance",
-                                           "basis", "atmosphere", "surroundings", "start", "steps"});
+                                           "basis", "atmosphere", "surroundings", "start", "steps",
+                                           "minApproach", "utilities"});
     return p;
 }
 
@@ -781,6 +888,22 @@ Json stepJson(const Step& s, SystemKind system) {
     if (s.sink) j["sink"] = reservoirJson(*s.sink);
     if (s.note) j["note"] = *s.note;
     appendExtra(j, s.extra);
+    return j;
+}
+
+// Key order: id, kind, name, P, in, out, cp, density, T, then unknown fields.
+Json utilityJson(const Utility& u) {
+    Json j = Json::object();
+    j["id"] = u.id;
+    j["kind"] = std::string(utilityKindId(u.kind));
+    if (u.name) j["name"] = *u.name;
+    if (u.P) j["P"] = quantityJson(*u.P, Dimension::Pressure);
+    if (u.Tin) j["in"] = quantityJson(*u.Tin, Dimension::Temperature);
+    if (u.Tout) j["out"] = quantityJson(*u.Tout, Dimension::Temperature);
+    if (u.cp) j["cp"] = quantityJson(*u.cp, Dimension::SpecificEntropy);
+    if (u.density) j["density"] = quantityJson(*u.density, Dimension::Density);
+    if (u.T) j["T"] = quantityJson(*u.T, Dimension::Temperature);
+    appendExtra(j, u.extra);
     return j;
 }
 
@@ -897,6 +1020,14 @@ std::string writeProjectDump(const Project& p) {
     if (p.start.meltFraction) start["meltFraction"] = numberJson(*p.start.meltFraction);
     appendExtra(start, p.start.extra);
     j["start"] = std::move(start);
+
+    // Issue 7: after start, before the unknown fields.
+    if (p.minApproach) j["minApproach"] = quantityJson(*p.minApproach, Dimension::TemperatureDifference);
+    if (p.hasUtilities || !p.utilities.empty()) {
+        Json list = Json::array();
+        for (const Utility& u : p.utilities) list.push_back(utilityJson(u));
+        j["utilities"] = std::move(list);
+    }
 
     // Unknown top-level fields keep their order, before the long list of steps.
     Json extra = p.extra;

@@ -14,6 +14,40 @@ Json numberOrNull(double v) { return std::isfinite(v) ? Json(v) : Json(nullptr);
 
 Json optNumber(const std::optional<double>& v) { return v ? numberOrNull(*v) : Json(nullptr); }
 
+Json utilityStepJson(const StepUtility& u, double minApproach, const std::vector<SegmentResult>& segs) {
+    Json j = Json::object();
+    j["id"] = u.id;
+    j["kind"] = std::string(utilityKindId(u.kind));
+    j["role"] = u.asSource ? "source" : "sink";
+    j["flow"] = u.kind == UtilityKind::Sensible ? "counter-current" : "constant temperature";
+    j["T_mean_K"] = u.Tmean;
+    j["duty"] = u.duty;
+    j["mass"] = u.mass;
+    j["volume"] = optNumber(u.volume);
+    Json a = Json::object();
+    a["minimum_K"] = u.minApproach;
+    a["required_K"] = minApproach;
+    a["belowRequired"] = u.minApproach < minApproach - 1e-6 && u.duty > 0;
+    a["segment"] = u.segment;
+    a["segmentLabel"] = u.segment < segs.size() ? segs[u.segment].label : std::string();
+    a["position"] = u.position;
+    a["duty"] = u.approachDuty;
+    a["T_material_K"] = u.Tmaterial;
+    a["T_utility_K"] = u.Tutility;
+    j["approach"] = a;
+    Json line = Json::array();
+    for (const auto& p : u.line) line.push_back({{"Q", p.Q}, {"T_K", p.T}});
+    j["line"] = line;
+    return j;
+}
+
+Json stepExergyJson(const StepResult& s) {
+    return {{"start_J_per_kg", s.exergyStart}, {"end_J_per_kg", s.exergyEnd}, {"change", s.dEx},
+            {"heat", s.exergyHeat},            {"usefulWork", s.usefulWork}, {"supplied", s.exergySupplied},
+            {"destroyed", s.exergyDestroyed},  {"destroyedShare", s.exergyDestroyedShare},
+            {"secondLawEfficiency", optNumber(s.secondLawEfficiency)}};
+}
+
 }  // namespace
 
 Json stateToJson(const State& s) {
@@ -40,7 +74,9 @@ Json resultsToJson(const Project& project, const SequenceResult& r) {
     j["units"] = {{"Q", closed ? "J" : "W"},        {"W", closed ? "J" : "W"},
                   {"dH", closed ? "J" : "W"},       {"dU", closed ? "J" : "W"},
                   {"dS", closed ? "J/K" : "W/K"},   {"Sgen", closed ? "J/K" : "W/K"},
-                  {"exergyDestroyed", closed ? "J" : "W"}, {"massBasis", closed ? "kg" : "kg/s"}};
+                  {"exergyDestroyed", closed ? "J" : "W"}, {"massBasis", closed ? "kg" : "kg/s"},
+                  {"exergy", closed ? "J" : "W"},   {"utilityMass", closed ? "kg" : "kg/s"},
+                  {"utilityVolume", closed ? "m3" : "m3/s"}};
     j["massBasis"] = r.massBasis;
     j["start"] = r.startError ? Json(nullptr) : stateToJson(r.start);
     Json steps = Json::array();
@@ -64,6 +100,8 @@ Json resultsToJson(const Project& project, const SequenceResult& r) {
                                 {"end", stateToJson(g.end)}, {"Q", g.Q}});
             }
             st["segments"] = segs;
+            if (s.utility) st["utility"] = utilityStepJson(*s.utility, project.minApproachK(), s.segments);
+            st["exergy"] = r.exergyAvailable ? stepExergyJson(s) : Json(nullptr);
         } else {
             for (const char* k : {"start", "end", "Q", "W", "dH", "dU", "dS", "Sgen", "exergyDestroyed"})
                 st[k] = nullptr;
@@ -79,6 +117,45 @@ Json resultsToJson(const Project& project, const SequenceResult& r) {
                    {"dU", t.dU},     {"dS", t.dS},     {"Sgen", t.Sgen},
                    {"exergyDestroyed", t.exergyDestroyed},
                    {"heatingDuty", t.heatingDuty},     {"coolingDuty", t.coolingDuty}};
+    // Issue 7 (additive keys): exergy of the sequence and the utilities.
+    if (r.exergyAvailable) {
+        j["exergy"] = {{"T0_K", r.T0},
+                       {"P0_Pa", r.P0},
+                       {"deadState", r.deadState ? stateToJson(*r.deadState) : Json(nullptr)},
+                       {"start_J_per_kg", r.exergyStart},
+                       {"change", t.dEx},
+                       {"heatIn", t.exergyHeatIn},
+                       {"heatOut", t.exergyHeatOut},
+                       {"workIn", t.workIn},
+                       {"workOut", t.workOut},
+                       {"supplied", t.exergySupplied},
+                       {"destroyed", t.exergyDestroyed},
+                       {"secondLawEfficiency", optNumber(t.secondLawEfficiency)}};
+    } else {
+        j["exergy"] = nullptr;
+    }
+    j["minApproach_K"] = project.minApproachK();
+    Json utilities = Json::array();
+    for (const auto& u : r.utilities) {
+        Json uj = {{"id", u.id}, {"kind", std::string(utilityKindId(u.kind))}};
+        if (u.profile) {
+            uj["T_in_K"] = u.profile->Tin;
+            uj["T_out_K"] = u.profile->Tout;
+            uj["T_mean_K"] = u.profile->Tmean;
+            uj["P_Pa"] = u.kind == UtilityKind::Steam ? Json(u.profile->P) : Json(nullptr);
+            uj["latentHeat_J_per_kg"] = u.kind == UtilityKind::Steam ? Json(u.profile->latentHeat) : Json(nullptr);
+            uj["cp_J_per_kgK"] = u.kind == UtilityKind::Sensible ? Json(u.profile->cp) : Json(nullptr);
+        }
+        uj["steps"] = u.steps;
+        uj["heatSupplied"] = u.heatSupplied;
+        uj["heatAbsorbed"] = u.heatAbsorbed;
+        uj["mass"] = u.mass;
+        uj["volume"] = optNumber(u.volume);
+        uj["exergyGivenUp"] = r.exergyAvailable ? Json(u.exergyGivenUp) : Json(nullptr);
+        if (u.error) uj["error"] = u.error->text();
+        utilities.push_back(std::move(uj));
+    }
+    j["utilities"] = utilities;
     if (r.model) {
         j["modelName"] = std::string(r.model->name());
     }
@@ -92,7 +169,10 @@ std::string resultsToCsv(const Project& project, const SequenceResult& r) {
     std::ostringstream out;
     out << "step,kind,segment,T_start [K],P_start [Pa],T_end [K],P_end [Pa],phase_end,quality_end,"
         << "Q [" << E << "],W [" << E << "],dH [" << E << "],dS [" << S << "],Sgen [" << S
-        << "],exergy destroyed [" << E << "]\n";
+        << "],exergy destroyed [" << E << "]"
+        << ",utility,utility use [" << (closed ? "kg" : "kg/s") << "],utility volume [" << (closed ? "m3" : "m3/s")
+        << "],min approach [K],exergy change [" << E << "],exergy of heat [" << E << "],exergy supplied [" << E
+        << "],second-law efficiency,share of exergy destroyed\n";
     auto q = [](const std::string& s) {
         if (s.find_first_of(",\"\n") == std::string::npos) return s;
         std::string o = "\"";
@@ -110,26 +190,51 @@ std::string resultsToCsv(const Project& project, const SequenceResult& r) {
     auto qual = [&](const State& s) { return s.quality ? n(*s.quality) : std::string(); };
     for (const auto& s : r.steps) {
         if (!s.computed) {
-            out << q(s.id) << "," << stepKindId(s.kind) << ",,,,,,,,,,,,,\n";
+            out << q(s.id) << "," << stepKindId(s.kind) << ",,,,,,,,,,,,," << ",,,,,,,,,\n";
             continue;
         }
         out << q(s.id) << "," << stepKindId(s.kind) << ",," << n(s.start.T) << "," << n(s.start.P) << ","
             << n(s.end.T) << "," << n(s.end.P) << "," << phaseId(s.end.phase) << "," << qual(s.end) << ","
             << n(s.Q) << "," << n(s.W) << "," << n(s.dH) << "," << n(s.dS) << "," << n(s.Sgen) << ","
-            << n(s.exergyDestroyed) << "\n";
+            << n(s.exergyDestroyed);
+        if (s.utility) {
+            out << "," << q(s.utility->id) << "," << (s.utility->kind == UtilityKind::Fixed ? "" : n(s.utility->mass))
+                << "," << (s.utility->volume ? n(*s.utility->volume) : "") << "," << n(s.utility->minApproach);
+        } else {
+            out << ",,,,";
+        }
+        if (r.exergyAvailable) {
+            out << "," << n(s.dEx) << "," << n(s.exergyHeat) << "," << n(s.exergySupplied) << ","
+                << (s.secondLawEfficiency ? n(*s.secondLawEfficiency) : "") << "," << n(s.exergyDestroyedShare);
+        } else {
+            out << ",,,,,";
+        }
+        out << "\n";
         if (s.segments.size() > 1) {
             for (const auto& g : s.segments) {
                 out << q(s.id) << "," << stepKindId(s.kind) << "," << q(g.label) << "," << n(g.start.T) << ","
                     << n(g.start.P) << "," << n(g.end.T) << "," << n(g.end.P) << "," << phaseId(g.end.phase) << ","
-                    << qual(g.end) << "," << n(g.Q) << ",,,,,\n";
+                    << qual(g.end) << "," << n(g.Q) << ",,,,," << ",,,,,,,,,\n";
             }
         }
     }
     const auto& t = r.totals;
     out << "total,,,,,,,,," << n(t.Q) << "," << n(t.W) << "," << n(t.dH) << "," << n(t.dS) << "," << n(t.Sgen)
-        << "," << n(t.exergyDestroyed) << "\n";
-    out << "heating duty,,,,,,,,," << n(t.heatingDuty) << ",,,,,\n";
-    out << "cooling duty,,,,,,,,," << n(-t.coolingDuty) << ",,,,,\n";
+        << "," << n(t.exergyDestroyed) << ",,,,";
+    if (r.exergyAvailable)
+        out << "," << n(t.dEx) << "," << n(t.exergyHeatIn - t.exergyHeatOut) << "," << n(t.exergySupplied) << ","
+            << (t.secondLawEfficiency ? n(*t.secondLawEfficiency) : "") << "," << (t.exergyDestroyed > 0 ? "1" : "0");
+    else
+        out << ",,,,,";
+    out << "\n";
+    out << "heating duty,,,,,,,,," << n(t.heatingDuty) << ",,,,," << ",,,,,,,,,\n";
+    out << "cooling duty,,,,,,,,," << n(-t.coolingDuty) << ",,,,," << ",,,,,,,,,\n";
+    // One row per utility: its total use in the utility columns.
+    for (const auto& u : r.utilities) {
+        out << "utility total,,,,,,,,," << n(u.heatSupplied - u.heatAbsorbed) << ",,,,,," << q(u.id) << ","
+            << (u.kind == UtilityKind::Fixed ? "" : n(u.mass)) << "," << (u.volume ? n(*u.volume) : "") << ",,,"
+            << (r.exergyAvailable ? n(u.exergyGivenUp) : "") << ",,,\n";
+    }
     return out.str();
 }
 

@@ -5,11 +5,40 @@
 //   S_gen = ΔS − Q / T_reservoir   (internally reversible paths without a
 //                                   reservoir: S_gen = 0; adiabatic: ΔS)
 //   exergy destroyed = T0 · S_gen  (Gouy–Stodola theorem)
+//
+// Utilities (issue 7). A step's source or sink may name a utility. Its
+// temperature profile against the step's duty is: steam and fixed, constant;
+// sensible, linear and counter-current (the utility enters where the material
+// leaves). The approach temperature is checked at every sampled point of the
+// step's T–Q curve and at every segment end: below 0 is an error (heat would
+// flow from cold to hot), below the project's minApproach a warning. S_gen
+// uses the utility's T (steam, fixed) or its thermodynamic mean temperature
+// (sensible), so that Q / T_mean is the utility's own entropy change.
+//
+// Exergy (issue 7). Dead state: the substance at the surroundings' T0, P0,
+// same model. Specific exergy of a state:
+//   steady flow:  ψ = (h − h0) − T0 (s − s0)
+//   closed:       φ = (u − u0) + P0 (v − v0) − T0 (s − s0)
+// Exergy balance of a step (extensive):
+//   ΔEx = Ex_Q + W_u − X_destroyed,   X_destroyed = T0 · S_gen
+// with Ex_Q = Q (1 − T0 / T_res) the exergy carried in with the heat (for
+// heat taken at the material's own temperature, Ex_Q = Q − T0 ΔS), and the
+// useful work W_u = W (steady flow) or W + P0 ΔV (closed: the atmosphere does
+// −P0 ΔV of the work). Exergy supplied to a step is the sum of the positive
+// terms among Ex_Q, W_u and −ΔEx (heat exergy in, work in, exergy the material
+// gives up); the rest leaves as product, so the second-law efficiency
+//   η_II = 1 − X_destroyed / supplied   lies in [0, 1].
+// Heating from a source: supplied = Ex_Q, product ΔEx. Compression:
+// supplied = W, product ΔEx (+ heat exergy out). Expansion: supplied = −ΔEx,
+// product −W. Throttling: supplied = −ΔEx, η_II = 0. The sequence takes the
+// same rule over the whole chain: positive Ex_Q and W of all steps, plus the
+// material's exergy drop from the start to the last end state.
 #include "heatchain/solver.hpp"
 
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <limits>
 #include <string>
 
 #include "numerics/root.hpp"
@@ -511,7 +540,242 @@ Result<std::optional<double>> reservoirFor(const Ctx& c, const Step& step, std::
     return std::optional<double>{Tr};
 }
 
+// The step's heat exchange against a utility: direction, approach
+// temperature along the T–Q curve, and consumption.
+Result<StepUtility> serveByUtility(const Ctx& c, const Step& step, std::size_t idx, const Outcome& o,
+                                   const std::vector<Result<UtilityProfile>>& profiles, double Qcum) {
+    if (step.source && step.sink) return stepError(step, idx, "a step takes a source or a sink, not both");
+    const bool asSource = step.source.has_value();
+    const Reservoir& r = asSource ? *step.source : *step.sink;
+    const char* role = asSource ? "source" : "sink";
+    std::size_t ui = 0;
+    while (ui < c.project.utilities.size() && c.project.utilities[ui].id != *r.utility) ++ui;
+    if (ui >= profiles.size()) return stepError(step, idx, "unknown utility \"" + *r.utility + "\"");
+    if (!profiles[ui])
+        return stepError(step, idx, "utility \"" + *r.utility + "\": " + profiles[ui].error().message);
+    const UtilityProfile& u = *profiles[ui];
+    StepUtility su;
+    su.id = u.id;
+    su.kind = u.kind;
+    su.asSource = asSource;
+    su.counterCurrent = u.kind == UtilityKind::Sensible;
+    su.Tmean = u.Tmean;
+    su.duty = std::fabs(o.Q);
+    su.mass = su.duty * u.massPerHeat();
+    if (u.density) su.volume = su.mass / *u.density;
+    if (o.Q > 0 && !asSource)
+        return stepError(step, idx, "heat flows into the material in this step, so it needs a source, not a sink");
+    if (o.Q < 0 && asSource)
+        return stepError(step, idx, "heat leaves the material in this step, so it needs a sink, not a source");
+    if (u.kind == UtilityKind::Sensible) {
+        if (asSource && u.Tin < u.Tout)
+            return stepError(step, idx, "utility \"" + u.id + "\" warms from " + degC(u.Tin) + " to " + degC(u.Tout) +
+                                            ", so it can only take heat (a sink), not be a source");
+        if (!asSource && u.Tin > u.Tout)
+            return stepError(step, idx, "utility \"" + u.id + "\" cools from " + degC(u.Tin) + " to " + degC(u.Tout) +
+                                            ", so it can only give heat (a source), not be a sink");
+    }
+    su.line = {{Qcum, u.temperatureAt(0.0)}, {Qcum + o.Q, u.temperatureAt(1.0)}};
+    if (o.Q == 0) {
+        su.Tmaterial = o.end.T;
+        su.Tutility = u.temperatureAt(0.0);
+        su.minApproach = asSource ? su.Tutility - su.Tmaterial : su.Tmaterial - su.Tutility;
+        su.position = "end";
+        return su;
+    }
+    // Every segment's ends and every sampled curve point, with the duty
+    // exchanged from the step's start.
+    bool first = true;
+    double segStartQ = 0;
+    auto consider = [&](std::size_t seg, const char* pos, double qLocal, double Tm) {
+        const double f = std::clamp(qLocal / o.Q, 0.0, 1.0);
+        const double Tu = u.temperatureAt(f);
+        const double dT = asSource ? Tu - Tm : Tm - Tu;
+        if (first || dT < su.minApproach) {
+            first = false;
+            su.minApproach = dT;
+            su.segment = seg;
+            su.position = pos;
+            su.approachDuty = std::fabs(qLocal);
+            su.Tmaterial = Tm;
+            su.Tutility = Tu;
+        }
+    };
+    std::size_t bestPoint = 0;  // index of the closest sampled point in its segment's curve
+    for (std::size_t k = 0; k < o.segments.size(); ++k) {
+        const SegmentResult& g = o.segments[k];
+        auto track = [&](const char* pos, double q, double T, std::size_t i) {
+            const double before = su.minApproach;
+            const bool wasFirst = first;
+            consider(k, pos, q, T);
+            if (wasFirst || su.minApproach < before) bestPoint = i;
+        };
+        track("start", segStartQ, g.start.T, 0);
+        for (std::size_t i = 1; i + 1 < g.curve.size(); ++i) track("inside", g.curve[i].Q - Qcum, g.curve[i].T, i);
+        segStartQ += g.Q;
+        track("end", segStartQ, g.end.T, g.curve.empty() ? 0 : g.curve.size() - 1);
+    }
+    // Between two sampled points of a sensible isobaric segment the material's
+    // T(Q) is smooth but not straight (cp varies): search the interval around
+    // the closest sampled point with a golden section on T (Q = Q_i + m (h(T) − h_i)
+    // along an isobar; (T, P) states are the cheap ones), 20 steps at most
+    // (the interval shrinks to 1e-4 of one sample spacing; the approach, flat
+    // at its minimum, is then off by far less than 1e-4 K).
+    if (su.segment < o.segments.size()) {
+        const SegmentResult& g = o.segments[su.segment];
+        const auto& cv = g.curve;
+        bool isobaric = cv.size() >= 3 && g.start.T != g.end.T;
+        for (const auto& pt : cv) isobaric = isobaric && std::fabs(pt.P - g.start.P) <= 1e-12 * g.start.P;
+        if (isobaric) {
+            const std::size_t lo = bestPoint == 0 ? 0 : bestPoint - 1;
+            const std::size_t hi = std::min(bestPoint + 1, cv.size() - 1);
+            const CurvePoint& ref = cv[lo];
+            auto approachAt = [&](double T, double* Tm, double* q) -> double {
+                auto st = c.model.stateTP(T, g.start.P);
+                if (!st || isTwoPhase(st->phase)) return std::numeric_limits<double>::infinity();
+                *Tm = st->T;
+                *q = ref.Q - Qcum + c.m * (st->h - ref.h);
+                const double Tu = u.temperatureAt(std::clamp(*q / o.Q, 0.0, 1.0));
+                return asSource ? Tu - st->T : st->T - Tu;
+            };
+            const double gr = 0.5 * (std::sqrt(5.0) - 1.0);
+            double a = cv[lo].T, b = cv[hi].T;
+            double Tm1 = 0, Tm2 = 0, q1 = 0, q2 = 0;
+            double x1 = b - gr * (b - a), x2 = a + gr * (b - a);
+            double f1 = approachAt(x1, &Tm1, &q1), f2 = approachAt(x2, &Tm2, &q2);
+            for (int it = 0; it < 20 && std::fabs(b - a) > 1e-9; ++it) {
+                if (f1 < f2) {
+                    b = x2; x2 = x1; f2 = f1; Tm2 = Tm1; q2 = q1;
+                    x1 = b - gr * (b - a);
+                    f1 = approachAt(x1, &Tm1, &q1);
+                } else {
+                    a = x1; x1 = x2; f1 = f2; Tm1 = Tm2; q1 = q2;
+                    x2 = a + gr * (b - a);
+                    f2 = approachAt(x2, &Tm2, &q2);
+                }
+            }
+            const double f = std::min(f1, f2);
+            if (f < su.minApproach) {
+                const bool one = f1 <= f2;
+                su.minApproach = f;
+                su.Tmaterial = one ? Tm1 : Tm2;
+                su.approachDuty = std::fabs(one ? q1 : q2);
+                su.Tutility = u.temperatureAt(std::clamp((one ? q1 : q2) / o.Q, 0.0, 1.0));
+                su.position = "inside";
+            }
+        }
+    }
+    const double tol = 1e-9 * std::max(u.Tin, u.Tout);
+    if (su.minApproach < -tol) {
+        const std::string& label = o.segments[su.segment].label;
+        return stepError(step, idx, std::string("the ") + role + " \"" + u.id + "\" is " + degC(su.Tutility) +
+                                        " where the material is " + degC(su.Tmaterial) + " (" + su.position + " of " +
+                                        label + ", after " + num(su.approachDuty / 1e3, 5) +
+                                        (c.closed ? " kJ" : " kW") + " of the step's duty): heat cannot flow from cold to hot");
+    }
+    return su;
+}
+
+// Exergy of the steps and the sequence (definitions in the header comment).
+void exergyAccounts(const Project& project, const PropertyModel& model, SequenceResult& r) {
+    const bool closed = project.system == SystemKind::Closed;
+    r.P0 = project.surroundingsP.si;
+    auto dead = model.stateTP(r.T0, r.P0);
+    if (!dead) {
+        r.warnings.push_back("exergy not computed: the dead state (" + degC(r.T0) + ", " + bar(r.P0) +
+                             ") is outside the model: " + dead.error().message);
+        return;
+    }
+    r.deadState = *dead;
+    r.exergyAvailable = true;
+    const State& d = *dead;
+    auto ex = [&](const State& s) {
+        return closed ? (s.u - d.u) + r.P0 * (s.v - d.v) - r.T0 * (s.s - d.s) : (s.h - d.h) - r.T0 * (s.s - d.s);
+    };
+    const double m = r.massBasis;
+    r.exergyStart = ex(r.start);
+    auto& t = r.totals;
+    const State* last = nullptr;
+    for (auto& s : r.steps) {
+        if (!s.computed) continue;
+        s.exergyStart = ex(s.start);
+        s.exergyEnd = ex(s.end);
+        s.dEx = m * (s.exergyEnd - s.exergyStart);
+        s.usefulWork = closed ? s.W + r.P0 * m * (s.end.v - s.start.v) : s.W;
+        if (s.reservoirT) s.exergyHeat = s.Q * (1.0 - r.T0 / *s.reservoirT);
+        else s.exergyHeat = s.Q == 0 ? 0.0 : s.Q - r.T0 * (s.dS - s.Sgen);
+        s.exergySupplied = std::max(s.exergyHeat, 0.0) + std::max(s.usefulWork, 0.0) + std::max(-s.dEx, 0.0);
+        if (s.exergySupplied > 0)
+            s.secondLawEfficiency = std::clamp(1.0 - s.exergyDestroyed / s.exergySupplied, 0.0, 1.0);
+        if (s.exergyHeat > 0) t.exergyHeatIn += s.exergyHeat; else t.exergyHeatOut -= s.exergyHeat;
+        if (s.usefulWork > 0) t.workIn += s.usefulWork; else t.workOut -= s.usefulWork;
+        last = &s.end;
+    }
+    if (last) t.dEx = m * (ex(*last) - r.exergyStart);
+    t.exergySupplied = t.exergyHeatIn + t.workIn + std::max(-t.dEx, 0.0);
+    if (t.exergySupplied > 0) t.secondLawEfficiency = std::clamp(1.0 - t.exergyDestroyed / t.exergySupplied, 0.0, 1.0);
+    for (auto& s : r.steps)
+        if (s.computed && t.exergyDestroyed > 0) s.exergyDestroyedShare = s.exergyDestroyed / t.exergyDestroyed;
+}
+
 }  // namespace
+
+double UtilityProfile::massPerHeat() const {
+    switch (kind) {
+        case UtilityKind::Steam: return latentHeat > 0 ? 1.0 / latentHeat : 0.0;
+        case UtilityKind::Sensible: return 1.0 / (cp * std::fabs(Tin - Tout));
+        case UtilityKind::Fixed: return 0.0;
+    }
+    return 0.0;
+}
+
+Result<UtilityProfile> resolveUtility(const Utility& u) {
+    UtilityProfile p;
+    p.id = u.id;
+    p.kind = u.kind;
+    const std::string where = "utility \"" + u.id + "\"";
+    switch (u.kind) {
+        case UtilityKind::Steam: {
+            if (!u.P) return makeError("a steam utility needs its pressure P", where);
+            // The water reference model is built once (building it costs more
+            // than a whole solve) and only read afterwards.
+            static const Result<std::shared_ptr<const PropertyModel>> model = []() -> Result<std::shared_ptr<const PropertyModel>> {
+                const Substance* water = SubstanceLibrary::builtin().find("water");
+                if (!water) return makeError("the substance library has no water");
+                return makeModel(ModelKind::Reference, *water);
+            }();
+            if (!model) return makeError(model.error().message, where);
+            const double P = u.P->si;
+            auto liquid = (*model)->stateOnLineP(Transition::Boiling, P, 0.0);
+            auto vapour = (*model)->stateOnLineP(Transition::Boiling, P, 1.0);
+            if (!liquid || !vapour)
+                return makeError("no condensing steam at " + bar(P) + ": " +
+                                     (!liquid ? liquid.error().message : vapour.error().message),
+                                 where);
+            p.P = P;
+            p.Tin = p.Tout = p.Tmean = liquid->T;
+            p.latentHeat = vapour->h - liquid->h;
+            if (!(p.latentHeat > 0)) return makeError("no latent heat at " + bar(P) + " (at or above the critical point)", where);
+            return p;
+        }
+        case UtilityKind::Sensible: {
+            if (!u.Tin || !u.Tout || !u.cp) return makeError("a sensible utility needs in, out and cp", where);
+            p.Tin = u.Tin->si;
+            p.Tout = u.Tout->si;
+            p.cp = u.cp->si;
+            if (!(p.Tin > 0 && p.Tout > 0 && p.Tin != p.Tout && p.cp > 0))
+                return makeError("in and out must differ and be above absolute zero, cp above zero", where);
+            if (u.density) p.density = u.density->si;
+            p.Tmean = (p.Tin - p.Tout) / std::log(p.Tin / p.Tout);
+            return p;
+        }
+        case UtilityKind::Fixed:
+            if (!u.T || !(u.T->si > 0)) return makeError("a fixed utility needs its temperature T above absolute zero", where);
+            p.Tin = p.Tout = p.Tmean = u.T->si;
+            return p;
+    }
+    return makeError("unknown utility kind", where);
+}
 
 const Error* SequenceResult::firstError() const {
     if (startError) return &*startError;
@@ -573,6 +837,9 @@ SequenceResult solve(const Project& project, std::shared_ptr<const PropertyModel
     }
     r.start = *start;
     const Ctx c{project, *model, r.massBasis, project.system == SystemKind::Closed, r.T0, options.curvePointsPerStep};
+    std::vector<Result<UtilityProfile>> profiles;
+    profiles.reserve(project.utilities.size());
+    for (const Utility& u : project.utilities) profiles.push_back(resolveUtility(u));
     State cur = *start;
     double Qcum = 0;
     for (std::size_t i = 0; i < project.steps.size(); ++i) {
@@ -599,12 +866,30 @@ SequenceResult solve(const Project& project, std::shared_ptr<const PropertyModel
             break;
         }
         Outcome& o = *out;
-        auto res = reservoirFor(c, step, i, o, cur);
-        if (!res) {
-            sr.error = res.error();
-            break;
+        const Reservoir* named = step.source ? &*step.source : (step.sink ? &*step.sink : nullptr);
+        if (named && named->utility && !named->T) {
+            auto su = serveByUtility(c, step, i, o, profiles, Qcum);
+            if (!su) {
+                sr.error = su.error();
+                break;
+            }
+            if (o.Q != 0 && !o.adiabatic) sr.reservoirT = su->Tmean;
+            // 1 µK of slack: "38 degC" against "28 degC" is 10 K, not 9.999999999999943 K.
+            if (su->minApproach < project.minApproachK() - 1e-6 && o.Q != 0) {
+                o.warnings.push_back("approach to " + std::string(su->asSource ? "source" : "sink") + " \"" + su->id +
+                                     "\" is " + num(su->minApproach, 3) + " K, below the minimum " +
+                                     num(project.minApproachK(), 3) + " K (" + su->position + " of " +
+                                     o.segments[su->segment].label + ")");
+            }
+            sr.utility = std::move(*su);
+        } else {
+            auto res = reservoirFor(c, step, i, o, cur);
+            if (!res) {
+                sr.error = res.error();
+                break;
+            }
+            sr.reservoirT = *res;
         }
-        sr.reservoirT = *res;
         sr.end = o.end;
         sr.Q = o.Q;
         sr.W = o.W;
@@ -621,7 +906,11 @@ SequenceResult solve(const Project& project, std::shared_ptr<const PropertyModel
             // an internally reversible path generates none.
             sr.Sgen = 0;
         }
-        const double scale = std::fabs(sr.dS) + (sr.reservoirT ? std::fabs(sr.Q / *sr.reservoirT) : 0.0);
+        // Round-off is judged against the entropies themselves as well: an
+        // isentropic step has ΔS ≈ 0, and (P, s) inversions return s to about
+        // 1e-10 of its value, which would otherwise read as S_gen < 0.
+        const double scale = std::fabs(sr.dS) + (sr.reservoirT ? std::fabs(sr.Q / *sr.reservoirT) : 0.0) +
+                             c.m * std::max(std::fabs(cur.s), std::fabs(o.end.s));
         if (sr.Sgen < -1e-9 * scale - 1e-12) {
             sr.error = stepError(step, i, "this specification would destroy entropy (S_gen = " + num(sr.Sgen) +
                                               "): heat would have to flow from cold to hot, or an efficiency above 1");
@@ -648,6 +937,25 @@ SequenceResult solve(const Project& project, std::shared_ptr<const PropertyModel
         if (sr.Q > 0) t.heatingDuty += sr.Q; else t.coolingDuty -= sr.Q;
     }
     if (r.start.warnings) r.warnings.push_back("start state: " + describeWarnings(r.start.warnings));
+    exergyAccounts(project, *model, r);
+    // Totals per utility, in the project's order.
+    for (std::size_t k = 0; k < project.utilities.size(); ++k) {
+        UtilityTotal ut;
+        ut.id = project.utilities[k].id;
+        ut.kind = project.utilities[k].kind;
+        if (profiles[k]) ut.profile = *profiles[k];
+        else ut.error = profiles[k].error();
+        if (profiles[k] && profiles[k]->density) ut.volume = 0.0;
+        for (const auto& s : r.steps) {
+            if (!s.computed || !s.utility || s.utility->id != ut.id) continue;
+            ++ut.steps;
+            (s.utility->asSource ? ut.heatSupplied : ut.heatAbsorbed) += s.utility->duty;
+            ut.mass += s.utility->mass;
+            if (ut.volume && s.utility->volume) *ut.volume += *s.utility->volume;
+            if (r.exergyAvailable) ut.exergyGivenUp += s.exergyHeat;
+        }
+        r.utilities.push_back(std::move(ut));
+    }
     return r;
 }
 

@@ -258,7 +258,7 @@ TEST(ProjectFile, CustomSubstanceIsKeptAsWritten) {
 
 TEST(ProjectFile, UnknownFieldsAreKeptInOrderAfterKnownOnes) {
     std::string text = replaced(kFormatExample, "\"steps\": [",
-                                "\"utilities\": [{\"name\": \"LP steam\"}], \"zeta\": 1, \"alpha\": true,\n  \"steps\": [");
+                                "\"spares\": [{\"name\": \"LP steam\"}], \"zeta\": 1, \"alpha\": true,\n  \"steps\": [");
     text = replaced(text, "\"note\": \"flue-gas side\"", "\"note\": \"flue-gas side\", \"cost-code\": \"E-12\"");
     text = replaced(text, "{ \"P\": \"14 barg\" }", "{ \"P\": \"14 barg\", \"tolerance\": \"0.1 bar\" }");
     text = replaced(text, "\"notes\": \"Free text for the reviewer.\"",
@@ -283,7 +283,7 @@ TEST(ProjectFile, UnknownFieldsAreKeptInOrderAfterKnownOnes) {
     const std::string written = writeProject(*r);
     // Top-level unknowns in their original order, after "start", before "steps".
     const auto start = written.find("\"start\"");
-    const auto utilities = written.find("\"utilities\"");
+    const auto utilities = written.find("\"spares\"");
     const auto zeta = written.find("\"zeta\"");
     const auto alpha = written.find("\"alpha\"");
     const auto steps = written.find("\"steps\"");

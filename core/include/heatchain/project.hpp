@@ -79,6 +79,28 @@ struct Step {
     Json extra = Json::object();          // unknown fields, kept and written back
 };
 
+// A plant utility a step can take its heat from or give it to (issue 7),
+// defined once in the project's top-level "utilities" list:
+//   steam     condensing (or raised) steam at a pressure P; its saturation
+//             temperature and latent heat come from the water reference model
+//   sensible  a stream that changes temperature from `in` to `out` with a
+//             constant cp (cooling water, hot oil, brine); optional density
+//   fixed     a source or sink at one temperature T (furnace, ambient air)
+enum class UtilityKind { Steam, Sensible, Fixed };
+std::string_view utilityKindId(UtilityKind k);  // "steam", "sensible", "fixed"
+
+struct Utility {
+    std::string id;
+    UtilityKind kind = UtilityKind::Fixed;
+    std::optional<std::string> name;     // free text for people
+    std::optional<Quantity> P;           // steam
+    std::optional<Quantity> Tin, Tout;   // sensible ("in", "out")
+    std::optional<Quantity> cp;          // sensible, J/(kg K)
+    std::optional<Quantity> density;     // sensible, optional, kg/m3
+    std::optional<Quantity> T;           // fixed
+    Json extra = Json::object();         // unknown fields, kept
+};
+
 struct StartSpec {
     std::optional<Quantity> T;
     std::optional<Quantity> P;
@@ -118,7 +140,16 @@ struct Project {
     Json surroundingsExtra = Json::object();
     StartSpec start;
     std::vector<Step> steps;
-    Json extra = Json::object();              // unknown top-level fields (e.g. "utilities" until issue 7)
+    Json extra = Json::object();              // unknown top-level fields
+    // Issue 7 (optional fields of version 1): utilities and the smallest
+    // temperature difference a heat exchanger with a utility should keep.
+    std::vector<Utility> utilities;
+    bool hasUtilities = false;                // written back only if it was in the file (or set)
+    std::optional<Quantity> minApproach;      // default kDefaultMinApproach
+
+    static constexpr double kDefaultMinApproach = 10.0;  // K, a common first-estimate design value (from memory)
+    double minApproachK() const { return minApproach ? minApproach->si : kDefaultMinApproach; }
+    const Utility* findUtility(std::string_view id) const;
 
     UnitContext unitContext() const { return UnitContext{atmosphere.si}; }
     // kg or kg/s the extensive results are multiplied by.

@@ -33,6 +33,70 @@ struct SegmentResult {
     std::vector<CurvePoint> curve;
 };
 
+// ---- Utilities (issue 7) ------------------------------------------------
+// A utility's temperature profile, resolved from its definition.
+struct UtilityProfile {
+    std::string id;
+    UtilityKind kind = UtilityKind::Fixed;
+    double Tin = 0, Tout = 0;   // K; equal for steam and fixed
+    // The temperature the utility exchanges heat at, for S_gen and exergy:
+    // steam and fixed: T; sensible: the thermodynamic mean temperature
+    // (T_in − T_out) / ln(T_in / T_out), at which Q / T_mean is exactly the
+    // entropy change of a constant-cp stream between T_in and T_out.
+    double Tmean = 0;
+    double P = 0;               // Pa, steam
+    double latentHeat = 0;      // J/kg, steam (h_g − h_f at P, IAPWS-IF97)
+    double cp = 0;              // J/(kg K), sensible
+    std::optional<double> density;  // kg/m3, sensible
+    // kg of utility per J of heat: 1/latent (steam), 1/(cp |T_in − T_out|)
+    // (sensible), 0 (fixed: no stream to count).
+    double massPerHeat() const;
+    // Utility temperature where a fraction f ∈ [0, 1] of the step's duty has
+    // been exchanged, counted from the step's start. Sensible utilities run
+    // counter-current: the utility enters (T_in) where the material leaves.
+    double temperatureAt(double f) const { return Tout + (Tin - Tout) * f; }
+};
+Result<UtilityProfile> resolveUtility(const Utility& u);
+
+struct UtilityLinePoint {
+    double Q;  // cumulative heat into the material from the sequence start, as CurvePoint::Q
+    double T;  // K, utility temperature
+};
+
+// How a step served by a utility exchanges heat with it.
+struct StepUtility {
+    std::string id;
+    UtilityKind kind = UtilityKind::Fixed;
+    bool asSource = true;        // source (heats the material) or sink (cools it)
+    bool counterCurrent = false; // sensible utilities
+    double Tmean = 0;            // K, used for S_gen and exergy
+    double duty = 0;             // |Q|, W or J
+    double mass = 0;             // utility used: kg/s (steady flow) or kg (closed); 0 for fixed
+    std::optional<double> volume;  // m3/s or m3, sensible with density
+    // Smallest approach temperature (utility − material when heating,
+    // material − utility when cooling), and where it is.
+    double minApproach = 0;      // K
+    std::size_t segment = 0;     // index into StepResult::segments
+    std::string position;        // "start", "end" or "inside" of that segment
+    double approachDuty = 0;     // |heat| exchanged from the step's start to that point, W or J
+    double Tmaterial = 0, Tutility = 0;  // K at that point
+    std::vector<UtilityLinePoint> line;  // the utility's T–Q line over the step (for the chart)
+};
+
+// Totals per utility over the sequence, in the project's utility order.
+struct UtilityTotal {
+    std::string id;
+    UtilityKind kind = UtilityKind::Fixed;
+    int steps = 0;                  // steps served
+    double heatSupplied = 0;        // heat given to the material (as a source), W or J
+    double heatAbsorbed = 0;        // heat taken from the material (as a sink), W or J
+    double mass = 0;                // kg/s or kg
+    std::optional<double> volume;   // m3/s or m3
+    double exergyGivenUp = 0;       // Σ Q (1 − T0/T_mean), Q into the material; W or J
+    std::optional<UtilityProfile> profile;  // the resolved profile
+    std::optional<Error> error;             // why it could not be resolved
+};
+
 struct StepResult {
     std::string id;
     StepKind kind = StepKind::Heat;
@@ -44,12 +108,26 @@ struct StepResult {
     std::optional<double> reservoirT;  // the source or sink temperature used, K
     std::vector<SegmentResult> segments;
     std::vector<std::string> warnings;
+    std::optional<StepUtility> utility;  // when the source or sink names a utility
+
+    // Exergy (see solver.cpp, "Exergy"): specific exergy of the start and end
+    // states relative to the dead state (J/kg); extensive change, exergy
+    // carried in with the heat, the exergy supplied to the step and the
+    // second-law efficiency 1 − destroyed / supplied (none when nothing is
+    // supplied). Valid when SequenceResult::exergyAvailable.
+    double exergyStart = 0, exergyEnd = 0;
+    double dEx = 0, exergyHeat = 0, usefulWork = 0, exergySupplied = 0;
+    std::optional<double> secondLawEfficiency;
+    double exergyDestroyedShare = 0;  // of the sequence total, 0–1 (bar chart)
 };
 
 struct Totals {
     double Q = 0, W = 0, dH = 0, dU = 0, dS = 0, Sgen = 0, exergyDestroyed = 0;
     double heatingDuty = 0;  // sum of positive Q
     double coolingDuty = 0;  // sum of |negative Q|
+    // Exergy of the sequence as one process (start state to last end state).
+    double dEx = 0, exergyHeatIn = 0, exergyHeatOut = 0, workIn = 0, workOut = 0, exergySupplied = 0;
+    std::optional<double> secondLawEfficiency;
 };
 
 struct SequenceResult {
@@ -62,6 +140,13 @@ struct SequenceResult {
     std::vector<StepResult> steps;
     Totals totals;
     std::vector<std::string> warnings;  // sequence-wide (e.g. model range notes)
+    std::vector<UtilityTotal> utilities;  // one per project utility
+    // Exergy needs the dead state: the substance at the surroundings' T and P,
+    // same model. When it cannot be computed, exergy fields stay 0.
+    bool exergyAvailable = false;
+    std::optional<State> deadState;
+    double P0 = 101325.0;
+    double exergyStart = 0;            // J/kg, of the start state
 
     // The first error of the sequence (start or a step), if any.
     const Error* firstError() const;
