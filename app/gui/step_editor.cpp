@@ -199,6 +199,8 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
                 if (!q) return;
                 if (!(s.*member)) s.*member = Reservoir{};
                 (s.*member)->T = *q;
+                // A typed temperature replaces a named utility: the file may carry one or the other.
+                (s.*member)->utility.reset();
             });
         });
     };
