@@ -269,6 +269,9 @@ Result<State> PropertyModel::stateTV(double T, double v) const {
         auto up = phaseState(upperPhase(line), T, *Psat);
         if (lo && up) {
             if (v >= lo->v && v <= up->v) {
+                // At the critical point the two ends coincide and the lever
+                // rule is 0/0: the state is the single critical state.
+                if (!(up->v > lo->v)) return *lo;
                 return mix(*lo, *up, line, (v - lo->v) / (up->v - lo->v));
             }
             if (v > up->v) {

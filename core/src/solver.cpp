@@ -621,7 +621,12 @@ SequenceResult solve(const Project& project, std::shared_ptr<const PropertyModel
             // an internally reversible path generates none.
             sr.Sgen = 0;
         }
-        const double scale = std::fabs(sr.dS) + (sr.reservoirT ? std::fabs(sr.Q / *sr.reservoirT) : 0.0);
+        // Round-off is judged against the entropy the material carries (m·s),
+        // as energy closure is against m·h: an isentropic step has ΔS ≈ 0 and
+        // the inversion's last bits would otherwise read as entropy destroyed.
+        const double carriedS = c.m * std::max(std::fabs(cur.s), std::fabs(o.end.s));
+        const double scale = std::fabs(sr.dS) + carriedS +
+                             (sr.reservoirT ? std::fabs(sr.Q / *sr.reservoirT) : 0.0);
         if (sr.Sgen < -1e-9 * scale - 1e-12) {
             sr.error = stepError(step, i, "this specification would destroy entropy (S_gen = " + num(sr.Sgen) +
                                               "): heat would have to flow from cold to hot, or an efficiency above 1");

@@ -461,6 +461,10 @@ TEST(Robustness, ExtremeFlowsAndEfficiencies) {
             auto r = solve(*p);
             if (!r.ok()) {
                 EXPECT_FALSE(r.firstError()->message.empty());
+                // Efficiencies of 0.5 and above on a positive flow are ordinary
+                // machines and must compute (an isentropic expansion was once
+                // refused for 1e-10 W/K of round-off "entropy destroyed").
+                EXPECT_LT(std::stod(eta), 0.5) << basis << " η=" << eta << ": " << r.firstError()->text();
                 continue;
             }
             LawTally tally;
@@ -468,5 +472,5 @@ TEST(Robustness, ExtremeFlowsAndEfficiencies) {
             computed += tally.computed;
         }
     }
-    EXPECT_GE(computed, 30);
+    EXPECT_GE(computed, 27);  // 3 positive flows × 3 efficiencies ≥ 0.5 × 3 steps
 }
