@@ -190,7 +190,7 @@ public:
         if (v.is_string()) {
             auto x = parseQuantity(v.get_ref<const std::string&>(), Dimension::Dimensionless, units);
             if (!x) fail(path, x.error().message);
-            return Number{v, *x};
+            return Number{v, *x, {}};
         }
         fail(path, "expected a number; found " + jsonTypeName(v));
     }

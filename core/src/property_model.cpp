@@ -199,7 +199,16 @@ Result<State> PropertyModel::stateP(double P, Property which, double value) cons
         if (!pa) return std::nullopt;
         // For a span without a phase change inside it the phase is fixed, except
         // above the critical pressure where liquid turns supercritical smoothly.
+        // When the phase at both ends is the middle's, the span holds one
+        // phase and the root search evaluates it directly: asking the model
+        // for the stable phase at every iterate re-solves the phase-change
+        // line each time (the simple models find it by Newton on g), which
+        // was most of the cost of an inversion. Otherwise (liquid turning
+        // supercritical) the phase is asked at every temperature.
+        const auto phaseA = spanPhase(ea), phaseB = spanPhase(eb);
+        const bool onePhase = phaseA && phaseB && *phaseA == *pa && *phaseB == *pa;
         auto stateAt = [&](double T) -> std::optional<State> {
+            if (onePhase) return evalPhase(*pa, T);
             auto ph = spanPhase(T);
             return evalPhase(ph ? *ph : *pa, T);
         };
@@ -269,6 +278,9 @@ Result<State> PropertyModel::stateTV(double T, double v) const {
         auto up = phaseState(upperPhase(line), T, *Psat);
         if (lo && up) {
             if (v >= lo->v && v <= up->v) {
+                // At the critical point the two ends coincide and the lever
+                // rule is 0/0: the state is the single critical state.
+                if (!(up->v > lo->v)) return *lo;
                 return mix(*lo, *up, line, (v - lo->v) / (up->v - lo->v));
             }
             if (v > up->v) {

@@ -105,8 +105,11 @@ TEST(SimpleModel, MeltingDeltaSIsDeltaHOverT) {
         auto s = at(*m, Phase::Solid, *T, P), l = at(*m, Phase::Liquid, *T, P);
         expectExact(l.h - s.h, kDhFus, l.h, s.h);
         expectExact(l.s - s.s, kDhFus / kTm, l.s, s.s);
-        if (P == 30e6) EXPECT_TRUE(s.warnings & WarnMeltingLineApprox);
-        else EXPECT_FALSE(s.warnings & WarnMeltingLineApprox);
+        if (P == 30e6) {
+            EXPECT_TRUE(s.warnings & WarnMeltingLineApprox);
+        } else {
+            EXPECT_FALSE(s.warnings & WarnMeltingLineApprox);
+        }
     }
 }
 

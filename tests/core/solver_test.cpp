@@ -68,8 +68,9 @@ void checkLaws(const Project& p, const SequenceResult& r) {
             << "Gouy–Stodola for step " << s.id;
         double qseg = 0;
         for (const auto& g : s.segments) qseg += g.Q;
-        if (s.kind != StepKind::Compress && s.kind != StepKind::Expand)
+        if (s.kind != StepKind::Compress && s.kind != StepKind::Expand) {
             EXPECT_NEAR(qseg, s.Q, 1e-9 * std::max(1.0, std::fabs(s.Q))) << "segments add up for " << s.id;
+        }
     }
 }
 

@@ -273,10 +273,14 @@ TEST(SubstanceLibrary, EveryBlockCarriesItsSource) {
         };
         EXPECT_TRUE(hasSource("molarMass")) << f.path << ": molarMass";
         for (const char* block : {"critical", "triple", "melting", "boiling", "sublimation", "pengRobinson"})
-            if (j.contains(block)) EXPECT_TRUE(hasSource(block)) << f.path << ": " << block;
-        if (j.contains("phases"))
-            for (const auto& [phase, body] : j["phases"].items())
+            if (j.contains(block)) {
+                EXPECT_TRUE(hasSource(block)) << f.path << ": " << block;
+            }
+        if (j.contains("phases")) {
+            for (const auto& [phase, body] : j["phases"].items()) {
                 EXPECT_TRUE(hasSource("phases." + phase)) << f.path << ": phases." << phase;
+            }
+        }
     }
 }
 

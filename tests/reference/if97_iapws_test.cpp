@@ -184,7 +184,9 @@ TEST(If97AgainstIapws, RandomStatesAllRegionsAndInputPairs) {
         EXPECT_LT(dh, 1e-8) << r.kind << " " << r.a << " " << r.b << " h " << s->h << " vs " << r.h;
         EXPECT_LT(ds, 1e-8) << r.kind << " " << r.a << " " << r.b << " s " << s->s << " vs " << r.s;
         EXPECT_LT(dv, 1e-8) << r.kind << " " << r.a << " " << r.b << " v " << s->v << " vs " << r.v;
-        if (r.kind == "PH" || r.kind == "PS") EXPECT_NEAR(s->T, r.T, 1e-6 * r.T) << r.kind << " " << r.a;
+        if (r.kind == "PH" || r.kind == "PS") {
+            EXPECT_NEAR(s->T, r.T, 1e-6 * r.T) << r.kind << " " << r.a;
+        }
     }
     std::printf("compared %d states; largest relative deviation h %.3g (%s), s %.3g (%s), v %.3g (%s)\n", count,
                 worst[0], worstAt[0].c_str(), worst[1], worstAt[1].c_str(), worst[2], worstAt[2].c_str());
