@@ -21,6 +21,7 @@ ExergyWidget::ExergyWidget(ProjectDocument* doc, QWidget* parent) : QWidget(pare
 void ExergyWidget::refresh() {
     chart_.setData(doc_->project(), doc_->result());
     chart_.setSelectedStep(doc_->selectedStep());
+    updateGeometry();
     update();
 }
 

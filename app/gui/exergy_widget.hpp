@@ -14,7 +14,10 @@ public:
     explicit ExergyWidget(ProjectDocument* doc, QWidget* parent = nullptr);
     const view::ExergyBarChart& chart() const { return chart_; }
     QSize sizeHint() const override { return {460, 240}; }
-    QSize minimumSizeHint() const override { return {240, 120}; }
+    // Tall enough for every bar to carry its label (up to a dozen steps).
+    QSize minimumSizeHint() const override {
+        return {240, 24 + int(chart_.preferredHeight(std::min<int>(12, int(chart_.bars().size()))) * 0.8)};
+    }
 
 public slots:
     void refresh();

@@ -173,12 +173,6 @@ void MainWindow::buildDocks() {
     ledgerDock->setObjectName(QStringLiteral("ledgerDock"));
     ledgerDock->setWidget(ledgerView_);
     addDockWidget(Qt::BottomDockWidgetArea, ledgerDock);
-    secondLaw_ = new SecondLawPanel(&doc_, this);
-    auto* secondLawDock = new QDockWidget(tr("Utilities and exergy"), this);
-    secondLawDock->setObjectName(QStringLiteral("secondLawDock"));
-    secondLawDock->setWidget(secondLaw_);
-    tabifyDockWidget(ledgerDock, secondLawDock);
-    ledgerDock->raise();
 
     messages_ = new MessagesPanel(&doc_, this);
     auto* msgDock = new QDockWidget(tr("Messages"), this);
@@ -190,6 +184,13 @@ void MainWindow::buildDocks() {
         msgDock->setWindowTitle(e + w == 0 ? tr("Messages") : tr("Messages — %1 error(s), %2 warning(s)").arg(e).arg(w));
     });
     resizeDocks({ledgerDock, msgDock}, {215, 64}, Qt::Vertical);
+    // Utilities and the second law: a tab beside the ledger.
+    secondLaw_ = new SecondLawPanel(&doc_, this);
+    auto* secondLawDock = new QDockWidget(tr("Utilities and exergy"), this);
+    secondLawDock->setObjectName(QStringLiteral("secondLawDock"));
+    secondLawDock->setWidget(secondLaw_);
+    tabifyDockWidget(ledgerDock, secondLawDock);
+    ledgerDock->raise();
     resizeDocks({editorDock, chartDock}, {440, 520}, Qt::Horizontal);
     viewMenu_ = new QMenu(tr("&View"), this);
     viewMenu_->addAction(editorDock->toggleViewAction());

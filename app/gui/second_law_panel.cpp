@@ -57,7 +57,7 @@ void SecondLawPanel::refresh() {
     QSignalBlocker block(this);
     clearContents();
     setHorizontalHeaderLabels({tr("Step"), tr("Utility"), tr("Uses"), tr("Approach min [%1]").arg(dTU),
-                               tr("where"), tr("Ex supplied [%1]").arg(eU), tr("Ex destroyed [%1]").arg(eU),
+                               tr("Where"), tr("Ex supplied [%1]").arg(eU), tr("Ex destroyed [%1]").arg(eU),
                                tr("share"), tr("η_II")});
     stepOfRow_.clear();
     utilityOfRow_.clear();
@@ -83,7 +83,7 @@ void SecondLawPanel::refresh() {
                 row[ColUse] = cell(utilityUseText(su.kind, su.mass, su.volume, r.system, u, ctx));
                 if (su.volume) row[ColUse]->setToolTip(utilityMassText(su.kind, su.mass, r.system, u, ctx));
                 row[ColApproach] = cell(formatDisplay(su.minApproach, Dimension::TemperatureDifference, u, ctx, 4));
-                if (su.minApproach < minAp - 1e-9) {
+                if (approachBelowMinimum(su, minAp)) {
                     row[ColApproach]->setForeground(ink::error());
                     row[ColApproach]->setToolTip(tr("closer than the worksheet's minimum approach of %1")
                                                      .arg(formatWithUnit(minAp, Dimension::TemperatureDifference, u, ctx, 3)));

@@ -371,8 +371,10 @@ void StepEditor::setRow(QWidget* w, bool visible) { formLayout_->setRowVisible(w
 void StepEditor::fillUtilityChoices(QComboBox* box, QuantityField* field, const std::optional<Reservoir>& r) {
     box->clear();
     box->addItem(tr("temperature…"), QString());
-    for (const Utility& u : doc_->project().utilities)
-        box->addItem(u.name ? QStringLiteral("%1 — %2").arg(qs(u.id), qs(*u.name)) : qs(u.id), qs(u.id));
+    for (const Utility& u : doc_->project().utilities) {
+        box->addItem(qs(u.id), qs(u.id));
+        if (u.name) box->setItemData(box->count() - 1, qs(*u.name), Qt::ToolTipRole);
+    }
     int i = 0;
     if (r && r->utility) {
         i = box->findData(qs(*r->utility));
@@ -480,7 +482,7 @@ void StepEditor::refresh() {
             }
             if (sr.utility) {
                 const StepUtility& su = *sr.utility;
-                const bool tight = su.minApproach < doc_->project().minApproachK() - 1e-9;
+                const bool tight = approachBelowMinimum(su, doc_->project().minApproachK());
                 html += QStringLiteral("<tr><td colspan='3'><hr/></td></tr>");
                 html += row(su.asSource ? tr("Source") : tr("Sink"),
                             QStringLiteral("<b>%1</b>").arg(qs(su.id).toHtmlEscaped()), utilityKindText(su.kind));

@@ -72,7 +72,7 @@ void ExergyBarChart::paint(QPainter& p, const QRectF& rect) const {
         p.drawLine(QPointF(px, L.plot.top()), QPointF(px, barsBottom));
         p.setPen(ink::muted());
         p.drawText(QRectF(px - 40, barsBottom + 2, 80, fm.height()), Qt::AlignHCenter,
-                   formatNumber(x, 4, 3));
+                   formatNumber(x, 6, x == 0 || step >= 1 ? 0 : int(std::ceil(-std::log10(step)))));
     }
     p.setPen(ink::text());
     p.drawText(QRectF(L.plot.left(), barsBottom + fm.height() + 4, L.plot.width(), fm.height()),

@@ -8,6 +8,7 @@
 
 #include "heatchain_qt/format.hpp"
 #include "heatchain_qt/palette.hpp"
+#include "heatchain_qt/utility_text.hpp"
 
 namespace heatchain::view {
 
@@ -105,6 +106,7 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
             r.step = int(i);
             r.source = u.asSource;
             r.label = QString::fromStdString(u.id);
+            r.utility = true;
             r.colour = stepColour(int(i));
             for (const UtilityLinePoint& lp : u.line)
                 r.pts.emplace_back(toDisplay(lp.Q, xDim, units_, ctx_), Y(lp.T));
@@ -114,7 +116,7 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
             const double q = qStart + (st.Q >= 0 ? u.approachDuty : -u.approachDuty);
             Approach a{int(i), toDisplay(q, xDim, units_, ctx_), Y(u.Tmaterial), Y(u.Tutility),
                        toDisplay(u.minApproach, Dimension::TemperatureDifference, units_, ctx_),
-                       u.minApproach < minApproachK_ - 1e-9};
+                       approachBelowMinimum(u, minApproachK_)};
             stepApproaches_.push_back(a);
             if (u.minApproach < minDT) {
                 minDT = u.minApproach;
@@ -139,7 +141,7 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
                     bestDT = dT;
                     best = Approach{int(i), X(c), Y(c.T), T,
                                     toDisplay(dT, Dimension::TemperatureDifference, units_, ctx_),
-                                    dT < minApproachK_ - 1e-9};
+                                    dT < minApproachK_ - 1e-6};
                 }
             }
             if (best) {
@@ -258,6 +260,7 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
         p.drawText(top + QPointF(8, 14), QStringLiteral("saturation"));
     }
 
+    QStringList labelled;  // a utility's id once, on its first line
     for (const ReservoirLine& r : reservoirs_) {
         if (r.pts.size() < 2) continue;
         QPolygonF line;
@@ -268,11 +271,14 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
         p.drawPolyline(line);
         // Words on every line would bury a long sheet: label the selected
         // step's line, or all of them on a short sheet.
-        if (reservoirs_.size() <= 12 || r.step == selected_) {
+        if ((reservoirs_.size() <= 12 && !(r.utility && labelled.contains(r.label))) || r.step == selected_) {
+            labelled << r.label;
             p.setPen(r.colour.darker(120));
             const QPointF a = line.front(), b = line.back();
             const QPointF left = a.x() <= b.x() ? a : b;
-            p.drawText(left + QPointF(2, -3), r.label);
+            // Below the line's left end: away from the frame for a source
+            // near the top, and on the free side of a sink.
+            p.drawText(left + QPointF(3, QFontMetricsF(p.font()).ascent() + 2), r.label);
         }
     }
 

@@ -62,6 +62,7 @@ public:
         std::vector<QPointF> pts;  // (Q cumulative, T) in display units
         bool source = true;
         QString label;             // "source", "sink" or the utility id
+        bool utility = false;      // core's utility line (else a typed temperature)
         QColor colour;
     };
     const std::vector<ReservoirLine>& reservoirLines() const { return reservoirs_; }
