@@ -303,7 +303,8 @@ void SweepDialog::showResult() {
         if (pt.error) {
             status->setForeground(ink::error());
             status->setToolTip(qs(pt.error->text()));
-            failed << tr("%1 = %2: %3").arg(qs(r.spec.input), qs(pt.text), qs(pt.error->text()));
+            failed << tr("%1 = %2: %3").arg(qs(r.spec.input), formatWithUnit(pt.x, r.inputDimension, us, ctx, 5),
+                                             qs(pt.error->message));
         } else if (!pt.warnings.empty()) {
             status->setForeground(ink::warning());
             QStringList w;

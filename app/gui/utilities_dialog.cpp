@@ -8,6 +8,10 @@
 #include <QPushButton>
 #include <QVBoxLayout>
 
+#include "heatchain/solver.hpp"
+#include "heatchain_qt/format.hpp"
+#include "heatchain_qt/palette.hpp"
+#include "heatchain_qt/utility_text.hpp"
 #include "project_edit.hpp"
 
 namespace heatchain::gui {
@@ -44,18 +48,23 @@ UtilitiesDialog::UtilitiesDialog(const Project& project, QWidget* parent)
 
     table_ = new QTableWidget(0, ColumnCount, this);
     table_->setHorizontalHeaderLabels({tr("Id"), tr("Kind"), tr("Name"), tr("Steam P"), tr("In T"),
-                                       tr("Out T"), tr("cp"), tr("Density"), tr("Fixed T")});
+                                       tr("Out T"), tr("cp"), tr("Density"), tr("Fixed T"), tr("Gives")});
     table_->verticalHeader()->hide();
     table_->horizontalHeader()->setSectionResizeMode(QHeaderView::Interactive);
     table_->horizontalHeader()->setStretchLastSection(true);
     table_->setColumnWidth(ColId, 110);
     table_->setColumnWidth(ColKind, 100);
     table_->setColumnWidth(ColName, 190);
-    for (int c = ColP; c < ColumnCount; ++c) table_->setColumnWidth(c, 100);
+    for (int c = ColP; c < ColGives; ++c) table_->setColumnWidth(c, 100);
     table_->setSelectionBehavior(QAbstractItemView::SelectRows);
     table_->setSelectionMode(QAbstractItemView::SingleSelection);
     outer->addWidget(table_, 1);
     for (const Utility& u : project.utilities) addRow(u, qs(u.id));
+    // Each row says what core makes of it as it is typed: the steam's
+    // saturation temperature and latent heat, or the reason it cannot.
+    connect(table_, &QTableWidget::itemChanged, this, [this](QTableWidgetItem* it) {
+        if (it->column() != ColGives) updateResolved(it->row());
+    });
 
     auto* rowButtons = new QHBoxLayout;
     auto addButton = [&](const QString& label, UtilityKind k) {
@@ -100,7 +109,7 @@ UtilitiesDialog::UtilitiesDialog(const Project& project, QWidget* parent)
     connect(buttons, &QDialogButtonBox::accepted, this, &UtilitiesDialog::accept);
     connect(buttons, &QDialogButtonBox::rejected, this, &QDialog::reject);
     outer->addWidget(buttons);
-    resize(1000, 420);
+    resize(1180, 420);
 }
 
 void UtilitiesDialog::addRow(const Utility& u, const QString& originalId) {
@@ -126,6 +135,9 @@ void UtilitiesDialog::addRow(const Utility& u, const QString& originalId) {
     table_->setItem(r, ColCp, new QTableWidgetItem(text(u.cp)));
     table_->setItem(r, ColDensity, new QTableWidgetItem(text(u.density)));
     table_->setItem(r, ColT, new QTableWidgetItem(text(u.T)));
+    auto* gives = new QTableWidgetItem;
+    gives->setFlags(Qt::ItemIsSelectable | Qt::ItemIsEnabled);
+    table_->setItem(r, ColGives, gives);
     updateRowKind(r);
 }
 
@@ -134,9 +146,53 @@ UtilityKind UtilitiesDialog::rowKind(int row) const {
     return kind ? UtilityKind(kind->currentData().toInt()) : UtilityKind::Fixed;
 }
 
-void UtilitiesDialog::updateRowKind(int row) {
+void UtilitiesDialog::updateResolved(int row) {
+    QTableWidgetItem* gives = table_->item(row, ColGives);
+    if (!gives) return;
     const UtilityKind k = rowKind(row);
-    for (int c = ColP; c < ColumnCount; ++c) {
+    Utility u;
+    u.kind = k;
+    u.id = table_->item(row, ColId) ? table_->item(row, ColId)->text().toStdString() : std::string();
+    QString problem;
+    auto read = [&](int c, Dimension d) -> std::optional<Quantity> {
+        if (!usesColumn(k, c) || !table_->item(row, c)) return std::nullopt;
+        const QString t = table_->item(row, c)->text().trimmed();
+        if (t.isEmpty()) return std::nullopt;
+        auto v = parseTypedQuantity(t.toStdString(), d, base_);
+        if (!v) {
+            if (problem.isEmpty())
+                problem = QStringLiteral("%1: %2").arg(table_->horizontalHeaderItem(c)->text(), qs(v.error().message));
+            return std::nullopt;
+        }
+        return *v;
+    };
+    u.P = read(ColP, Dimension::Pressure);
+    u.Tin = read(ColIn, Dimension::Temperature);
+    u.Tout = read(ColOut, Dimension::Temperature);
+    u.cp = read(ColCp, Dimension::SpecificEntropy);
+    u.density = read(ColDensity, Dimension::Density);
+    u.T = read(ColT, Dimension::Temperature);
+    QString shown;
+    if (problem.isEmpty()) {
+        auto prof = resolveUtility(u);
+        if (!prof) problem = qs(prof.error().message);
+        else {
+            const UnitSystem us = base_.displayUnits;
+            shown = view::utilityTemperaturesText(*prof, us, base_.unitContext());
+            if (k == UtilityKind::Steam)
+                shown += tr(", latent %1").arg(view::formatWithUnit(prof->latentHeat, Dimension::SpecificEnergy, us, {}, 4));
+        }
+    }
+    QSignalBlocker block(table_);
+    gives->setText(problem.isEmpty() ? shown : problem);
+    gives->setToolTip(problem.isEmpty() ? shown : problem);
+    gives->setForeground(problem.isEmpty() ? view::ink::text() : view::ink::error());
+}
+
+void UtilitiesDialog::updateRowKind(int row) {
+    updateResolved(row);
+    const UtilityKind k = rowKind(row);
+    for (int c = ColP; c < ColGives; ++c) {
         QTableWidgetItem* it = table_->item(row, c);
         if (!it) continue;
         const bool used = usesColumn(k, c);

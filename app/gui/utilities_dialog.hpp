@@ -20,7 +20,7 @@ class UtilitiesDialog : public QDialog {
 public:
     explicit UtilitiesDialog(const Project& project, QWidget* parent = nullptr);
 
-    enum Column { ColId, ColKind, ColName, ColP, ColIn, ColOut, ColCp, ColDensity, ColT, ColumnCount };
+    enum Column { ColId, ColKind, ColName, ColP, ColIn, ColOut, ColCp, ColDensity, ColT, ColGives, ColumnCount };
 
     // For tests and the keyboard: add a row of `kind`, set a cell's text.
     int addUtility(UtilityKind kind);
@@ -39,6 +39,7 @@ public:
 private:
     void addRow(const Utility& u, const QString& originalId);
     void updateRowKind(int row);
+    void updateResolved(int row);
     UtilityKind rowKind(int row) const;
 
     Project base_;

@@ -293,8 +293,8 @@ private slots:
     }
 
     void sweepListsPointsThatFail() {
-        // Preheating toluene past the steam's condensing temperature (about
-        // 143.6 °C at 3 barg) cannot be done by that steam: those points fail.
+        // Preheating toluene at 1.2 bar past its boiling point leaves nothing
+        // for the next step to boil: those points fail in core.
         const Project p = sample("solvent-recovery");
         gui::SweepDialog dlg(p, 0);
         choose(dlg.inputBox(), QStringLiteral("to.T"));
@@ -308,7 +308,9 @@ private slots:
         QVERIFY(core.ok());
         QStringList failedTexts;
         for (const SweepPoint& pt : core->points)
-            if (pt.error) failedTexts << QString::fromStdString(pt.text);
+            if (pt.error)
+                failedTexts << view::formatWithUnit(pt.x, core->inputDimension, p.displayUnits, p.unitContext(), 5) +
+                                   QStringLiteral(": ") + QString::fromStdString(pt.error->message);
         QVERIFY(!failedTexts.isEmpty());
         QVERIFY(failedTexts.size() < int(core->points.size()));
         const QString listed = dlg.failures()->toPlainText();

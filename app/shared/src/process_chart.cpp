@@ -276,9 +276,9 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
             p.setPen(r.colour.darker(120));
             const QPointF a = line.front(), b = line.back();
             const QPointF left = a.x() <= b.x() ? a : b;
-            // Below the line's left end: away from the frame for a source
-            // near the top, and on the free side of a sink.
-            p.drawText(left + QPointF(3, QFontMetricsF(p.font()).ascent() + 2), r.label);
+            // On the side away from the material (below a source, above a
+            // sink), where the line's left end leaves room.
+            p.drawText(left + QPointF(3, r.source ? QFontMetricsF(p.font()).ascent() + 2 : -3), r.label);
         }
     }
 
