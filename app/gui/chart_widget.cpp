@@ -42,7 +42,7 @@ void ChartWidget::paintEvent(QPaintEvent*) {
     if (chart_.kind() == view::ProcessChart::Kind::TemperatureDuty) {
         if (auto a = chart_.smallestApproach()) {
             p.setFont(font());
-            p.setPen(view::ink::error());
+            p.setPen(a->belowMinimum ? view::ink::error() : view::ink::muted());
             const auto& steps = doc_->project().steps;
             const QString id = a->step >= 0 && a->step < int(steps.size())
                                    ? QString::fromStdString(steps[std::size_t(a->step)].id) : QString();

@@ -25,6 +25,8 @@
 #include "heatchain_qt/step_icons.hpp"
 #include "project_edit.hpp"
 #include "settings_dialog.hpp"
+#include "sweep_dialog.hpp"
+#include "utilities_dialog.hpp"
 
 namespace heatchain::gui {
 
@@ -84,6 +86,11 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
 
     buildDocks();
     buildActions();
+    // Utilities and sweeps (issue 7): their own menu, before View.
+    auto* process = new QMenu(tr("&Process"), this);
+    process->addAction(tr("&Utilities and minimum approach…"), this, &MainWindow::editUtilities);
+    process->addAction(tr("&Sweep an input…"), this, &MainWindow::openSweep);
+    menuBar()->insertMenu(viewMenu_->menuAction(), process);
 
     statusSolve_ = new QLabel(this);
     statusMessages_ = new QLabel(this);
@@ -151,6 +158,11 @@ void MainWindow::buildDocks() {
     auto* charts = new QSplitter(Qt::Vertical, this);
     charts->addWidget(ts_);
     charts->addWidget(tq_);
+    exergy_ = new ExergyWidget(&doc_, this);
+    charts->addWidget(exergy_);
+    charts->setStretchFactor(0, 3);
+    charts->setStretchFactor(1, 3);
+    charts->setStretchFactor(2, 2);
     auto* chartDock = new QDockWidget(tr("Charts"), this);
     chartDock->setObjectName(QStringLiteral("chartDock"));
     chartDock->setWidget(charts);
@@ -172,11 +184,19 @@ void MainWindow::buildDocks() {
         msgDock->setWindowTitle(e + w == 0 ? tr("Messages") : tr("Messages — %1 error(s), %2 warning(s)").arg(e).arg(w));
     });
     resizeDocks({ledgerDock, msgDock}, {215, 64}, Qt::Vertical);
+    // Utilities and the second law: a tab beside the ledger.
+    secondLaw_ = new SecondLawPanel(&doc_, this);
+    auto* secondLawDock = new QDockWidget(tr("Utilities and exergy"), this);
+    secondLawDock->setObjectName(QStringLiteral("secondLawDock"));
+    secondLawDock->setWidget(secondLaw_);
+    tabifyDockWidget(ledgerDock, secondLawDock);
+    ledgerDock->raise();
     resizeDocks({editorDock, chartDock}, {440, 520}, Qt::Horizontal);
     viewMenu_ = new QMenu(tr("&View"), this);
     viewMenu_->addAction(editorDock->toggleViewAction());
     viewMenu_->addAction(chartDock->toggleViewAction());
     viewMenu_->addAction(ledgerDock->toggleViewAction());
+    viewMenu_->addAction(secondLawDock->toggleViewAction());
     viewMenu_->addAction(msgDock->toggleViewAction());
 }
 
@@ -336,6 +356,19 @@ void MainWindow::setDisplayUnits(UnitSystem u) {
 void MainWindow::copyLedger() {
     QApplication::clipboard()->setText(ledger_->toTabSeparated());
     statusBar()->showMessage(tr("Ledger copied as tab-separated text."), 4000);
+}
+
+void MainWindow::editUtilities() {
+    UtilitiesDialog dlg(doc_.project(), this);
+    if (dlg.exec() != QDialog::Accepted || !dlg.edited()) return;
+    doc_.undoStack()->push(new EditProjectSettings(&doc_, *dlg.edited(), tr("Edit utilities")));
+}
+
+void MainWindow::openSweep() {
+    // Sweeps a copy of the worksheet as it is now; the worksheet is not changed.
+    auto* dlg = new SweepDialog(doc_.project(), doc_.selectedStep(), this);
+    dlg->setAttribute(Qt::WA_DeleteOnClose);
+    dlg->show();
 }
 
 void MainWindow::editSettings() {

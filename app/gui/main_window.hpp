@@ -11,6 +11,8 @@
 #include "chain_view.hpp"
 #include "chart_widget.hpp"
 #include "document.hpp"
+#include "exergy_widget.hpp"
+#include "second_law_panel.hpp"
 #include "ledger_model.hpp"
 #include "messages_panel.hpp"
 #include "step_editor.hpp"
@@ -30,6 +32,8 @@ public:
     ChartWidget* tsChart() const { return ts_; }
     ChartWidget* tqChart() const { return tq_; }
     MessagesPanel* messages() const { return messages_; }
+    ExergyWidget* exergyChart() const { return exergy_; }
+    SecondLawPanel* secondLaw() const { return secondLaw_; }
     QLineEdit* quickAdd() const { return quickAdd_; }
 
     // When false, errors are recorded in lastError() instead of a dialog
@@ -59,6 +63,8 @@ private:
     bool saveAsDialog();
     bool confirmDiscard();
     void editSettings();
+    void editUtilities();
+    void openSweep();
     void showAbout();
     void addStep(int index, StepKind kind);
     void removeSelected();
@@ -78,6 +84,8 @@ private:
     ChartWidget* ts_;
     ChartWidget* tq_;
     MessagesPanel* messages_;
+    ExergyWidget* exergy_ = nullptr;
+    SecondLawPanel* secondLaw_ = nullptr;
     QLineEdit* quickAdd_;
     QMenu* recentMenu_ = nullptr;
     QMenu* viewMenu_ = nullptr;

@@ -6,6 +6,7 @@
 #include "commands.hpp"
 #include "heatchain_qt/format.hpp"
 #include "heatchain_qt/step_icons.hpp"
+#include "heatchain_qt/utility_text.hpp"
 #include "project_edit.hpp"
 
 namespace heatchain::gui {
@@ -73,6 +74,21 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
     sink_ = new QuantityField(form_);
     sink_->setPlaceholder(tr("none"));
     note_ = new QuantityField(form_);
+    // Source and sink: a typed temperature or a named utility, side by side.
+    auto reservoirRow = [this](QComboBox*& box, QuantityField* field) {
+        box = new QComboBox(form_);
+        box->setSizeAdjustPolicy(QComboBox::AdjustToContents);
+        box->setToolTip(tr("A temperature you type, or one of the worksheet's utilities "
+                           "(Edit ▸ Utilities…)"));
+        auto* row = new QWidget(form_);
+        auto* l = new QHBoxLayout(row);
+        l->setContentsMargins(0, 0, 0, 0);
+        l->addWidget(box);
+        l->addWidget(field, 1);
+        return row;
+    };
+    QWidget* sourceRow = reservoirRow(sourceUtility_, source_);
+    QWidget* sinkRow = reservoirRow(sinkUtility_, sink_);
 
     formLayout_->addRow(tr("Name"), id_);
     formLayout_->addRow(tr("Kind"), kind_);
@@ -82,8 +98,8 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
     formLayout_->addRow(tr("Path"), path_);
     formLayout_->addRow(tr("Exponent n"), n_);
     formLayout_->addRow(tr("Efficiency"), efficiency_);
-    formLayout_->addRow(tr("Source T"), source_);
-    formLayout_->addRow(tr("Sink T"), sink_);
+    formLayout_->addRow(tr("Source"), sourceRow);
+    formLayout_->addRow(tr("Sink"), sinkRow);
     formLayout_->addRow(tr("Note"), note_);
     outer->addWidget(form_);
 
@@ -206,6 +222,32 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
     };
     reservoirCommit(source_, &Step::source, tr("source temperature"));
     reservoirCommit(sink_, &Step::sink, tr("sink temperature"));
+    // Choosing a utility replaces a typed temperature (a reservoir carries
+    // one or the other); choosing "temperature…" drops the utility and puts
+    // the cursor in the field for the value.
+    auto utilityCommit = [this](QComboBox* box, QuantityField* field, std::optional<Reservoir> Step::*member,
+                                const QString& name) {
+        connect(box, &QComboBox::activated, this, [this, box, field, member, name] {
+            const QString id = box->currentData().toString();
+            const Step* s = step();
+            if (!s) return;
+            const auto& cur = s->*member;
+            if (id.isEmpty()) {
+                if (cur && cur->utility) apply(name, [&](Step& st) { (st.*member).reset(); });
+                field->lineEdit()->setFocus();
+                return;
+            }
+            if (cur && cur->utility && *cur->utility == id.toStdString()) return;
+            apply(name, [&](Step& st) {
+                Reservoir r;
+                if (st.*member) r.extra = (st.*member)->extra;
+                r.utility = id.toStdString();
+                st.*member = r;
+            });
+        });
+    };
+    utilityCommit(sourceUtility_, source_, &Step::source, tr("source utility"));
+    utilityCommit(sinkUtility_, sink_, &Step::sink, tr("sink utility"));
     connect(note_, &QuantityField::committed, this, [this](const QString& t) {
         apply(tr("note"), [&](Step& s) {
             if (t.isEmpty()) s.note.reset();
@@ -326,6 +368,29 @@ void StepEditor::fillTargetChoices(StepKind k, Target current) {
 
 void StepEditor::setRow(QWidget* w, bool visible) { formLayout_->setRowVisible(w, visible); }
 
+void StepEditor::fillUtilityChoices(QComboBox* box, QuantityField* field, const std::optional<Reservoir>& r) {
+    box->clear();
+    box->addItem(tr("temperature…"), QString());
+    for (const Utility& u : doc_->project().utilities) {
+        box->addItem(qs(u.id), qs(u.id));
+        if (u.name) box->setItemData(box->count() - 1, qs(*u.name), Qt::ToolTipRole);
+    }
+    int i = 0;
+    if (r && r->utility) {
+        i = box->findData(qs(*r->utility));
+        if (i < 0) {  // named but not defined: show it, core reports the error
+            box->addItem(tr("%1 (not defined)").arg(qs(*r->utility)), qs(*r->utility));
+            i = box->count() - 1;
+        }
+    }
+    box->setCurrentIndex(i);
+    box->setEnabled(box->count() > 1);
+    // The typed field stays for typing over a utility, but says what is in use.
+    field->setPlaceholder(r && r->utility ? tr("or type a temperature instead of the utility")
+                          : field == source_ ? tr("none (S_gen not charged to a source)")
+                                             : tr("none"));
+}
+
 void StepEditor::refresh() {
     filling_ = true;
     const Step* s = step();
@@ -370,6 +435,8 @@ void StepEditor::refresh() {
     efficiency_->showValue(typedText(s->efficiency));
     source_->showValue(typedText(s->source));
     sink_->showValue(typedText(s->sink));
+    fillUtilityChoices(sourceUtility_, source_, s->source);
+    fillUtilityChoices(sinkUtility_, sink_, s->sink);
     note_->showValue(s->note ? qs(*s->note) : QString());
 
     // ---- result at a glance -------------------------------------------
@@ -409,6 +476,24 @@ void StepEditor::refresh() {
             html += row(tr("ΔS"), formatWithUnit(sr.dS, sD, u, ctx));
             html += row(tr("S_gen"), formatWithUnit(sr.Sgen, sD, u, ctx));
             html += row(tr("Exergy destroyed"), formatWithUnit(sr.exergyDestroyed, eD, u, ctx));
+            if (r.exergyAvailable) {
+                html += row(tr("Exergy supplied"), formatWithUnit(sr.exergySupplied, eD, u, ctx));
+                html += row(tr("η<sub>II</sub>"), efficiencyText(sr.secondLawEfficiency));
+            }
+            if (sr.utility) {
+                const StepUtility& su = *sr.utility;
+                const bool tight = approachBelowMinimum(su, doc_->project().minApproachK());
+                html += QStringLiteral("<tr><td colspan='3'><hr/></td></tr>");
+                html += row(su.asSource ? tr("Source") : tr("Sink"),
+                            QStringLiteral("<b>%1</b>").arg(qs(su.id).toHtmlEscaped()), utilityKindText(su.kind));
+                html += row(tr("Uses"), utilityUseText(su.kind, su.mass, su.volume, r.system, u, ctx),
+                            su.volume ? utilityMassText(su.kind, su.mass, r.system, u, ctx) : QString());
+                html += row(tr("Approach min"),
+                            QStringLiteral("<span style='color:%1'>%2</span>")
+                                .arg(tight ? QStringLiteral("#b42318") : QStringLiteral("#22262b"),
+                                     formatWithUnit(su.minApproach, Dimension::TemperatureDifference, u, ctx)),
+                            approachWhereText(sr).toHtmlEscaped());
+            }
             html += QStringLiteral("</table>");
         } else {
             html = tr("<span style='color:#b42318'>Not computed.</span>");

@@ -28,6 +28,10 @@ public:
     QComboBox* targetBox() const { return targetKind_; }
     QComboBox* pathBox() const { return path_; }
     QComboBox* atBox() const { return at_; }
+    // Beside the source / sink temperature: "temperature…" (item 0) or one of
+    // the worksheet's utilities (item data: the utility id).
+    QComboBox* sourceBox() const { return sourceUtility_; }
+    QComboBox* sinkBox() const { return sinkUtility_; }
 
 public slots:
     void refresh();
@@ -41,6 +45,7 @@ private:
     const Step* step() const;
     void fillTargetChoices(StepKind k, Target current);
     void setRow(QWidget* w, bool visible);
+    void fillUtilityChoices(QComboBox* box, QuantityField* field, const std::optional<Reservoir>& r);
 
     ProjectDocument* doc_;
     bool filling_ = false;
@@ -58,6 +63,8 @@ private:
     QuantityField* efficiency_;
     QuantityField* source_;
     QuantityField* sink_;
+    QComboBox* sourceUtility_;
+    QComboBox* sinkUtility_;
     QuantityField* note_;
     QGroupBox* resultBox_;
     QLabel* resultText_;

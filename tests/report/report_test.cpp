@@ -314,3 +314,65 @@ TEST(Exports, ChartsAsSvgAndPng) {
     EXPECT_EQ(runCommand(cli("chart " + sample("boiler-feed") + " --ts -o " + scratch("x.gif").string())).exit, 2);
     EXPECT_EQ(runCommand(cli("chart " + sample("boiler-feed") + " -o " + scratch("x.svg").string())).exit, 2);
 }
+
+// Issue 7: the utilities table, each served step's approach and the exergy
+// account, against core's results as `compute --json` gives them.
+TEST(Report, UtilitiesAndExergyOfSolventRecovery) {
+    const fs::path pdf = scratch("solvent-utilities.pdf");
+    auto run = runCommand(cli("report " + sample("solvent-recovery") + " -o " + pdf.string()));
+    ASSERT_EQ(run.exit, 0) << run.err;
+    const std::string layout = pdfText(pdf, true);
+    const std::string flat = squeeze(layout);
+    const auto json = computeJson(sample("solvent-recovery"));
+    ASSERT_TRUE(json.is_object());
+    for (const char* heading : {"Utilities and approach temperatures", "Steps served by a utility", "Exergy account",
+                                "Exergy destroyed by step"})
+        EXPECT_NE(flat.find(heading), std::string::npos) << heading;
+
+    // Per utility: the use in display units (metric engineering: t/h, m3/h).
+    ASSERT_EQ(json["utilities"].size(), 2u);
+    const auto steam = numbersIn(lineStarting(layout, "lp-steam"));
+    const auto cw = numbersIn(lineStarting(layout, "cw"));
+    ASSERT_FALSE(steam.empty()) << lineStarting(layout, "lp-steam");
+    ASSERT_FALSE(cw.empty()) << lineStarting(layout, "cw");
+    auto has = [](const std::vector<double>& xs, double v) {
+        return std::any_of(xs.begin(), xs.end(), [&](double x) { return std::fabs(x - v) <= std::fabs(v) * 5e-4 + 1e-4; });
+    };
+    const double steamTph = json["utilities"][0]["mass"].get<double>() * 3.6;  // kg/s → t/h
+    const double cwM3h = json["utilities"][1]["volume"].get<double>() * 3600;  // m3/s → m3/h
+    EXPECT_TRUE(has(steam, steamTph)) << lineStarting(layout, "lp-steam") << " lacks " << steamTph;
+    EXPECT_TRUE(has(cw, cwM3h)) << lineStarting(layout, "cw") << " lacks " << cwM3h;
+
+    // Each served step's smallest approach, with where it is.
+    for (const auto& st : json["steps"]) {
+        if (!st.contains("utility") || st["utility"].is_null()) continue;
+        const std::string id = st["id"];
+        const auto& a = st["utility"]["approach"];
+        const std::string where = a["position"].get<std::string>() + " of " + a["segmentLabel"].get<std::string>();
+        EXPECT_NE(flat.find(where), std::string::npos) << id << ": " << where;
+        const double dT = a["minimum_K"];
+        const std::string sentence = "smallest approach";
+        EXPECT_NE(flat.find(sentence), std::string::npos);
+        // The served-steps table row of this step: "<#> <id> <utility> (...) ..."
+        std::istringstream in(layout);
+        std::string line;
+        bool found = false;
+        const std::regex re("^\\s*\\d+\\s+" + id + "\\s+" + st["utility"]["id"].get<std::string>() + " \\(");
+        while (std::getline(in, line))
+            if (std::regex_search(line, re)) {
+                // Printed to 0.1 K.
+                for (double x : numbersIn(line)) found = found || std::fabs(x - dT) <= 0.05 + 1e-9;
+                if (found) break;
+            }
+        EXPECT_TRUE(found) << id << " approach " << dT;
+    }
+
+    // The exergy account's sequence row: destroyed and η_II (as %).
+    const auto seq = numbersIn(lineStarting(layout, "Sequence"));
+    ASSERT_GE(seq.size(), 4u) << lineStarting(layout, "Sequence");
+    EXPECT_TRUE(has(seq, json["exergy"]["destroyed"].get<double>() / 1e3)) << lineStarting(layout, "Sequence");
+    // η_II is printed to 0.1 %.
+    const double eta = json["exergy"]["secondLawEfficiency"].get<double>() * 100;
+    EXPECT_TRUE(std::any_of(seq.begin(), seq.end(), [&](double x) { return std::fabs(x - eta) <= 0.05 + 1e-9; }))
+        << lineStarting(layout, "Sequence") << " lacks " << eta;
+}

@@ -470,4 +470,14 @@ void paintChartFigure(QPainter& p, const QRectF& rect, const view::ProcessChart&
     p.restore();
 }
 
+void paintExergyFigure(QPainter& p, const QRectF& rect, const view::ExergyBarChart& chart, double logicalWidth) {
+    const double scale = rect.width() / logicalWidth;
+    p.save();
+    p.translate(rect.topLeft());
+    p.scale(scale, scale);
+    p.setFont(chartFont());
+    chart.paint(p, QRectF(0, 0, logicalWidth, rect.height() / scale));
+    p.restore();
+}
+
 }  // namespace heatchain::report_detail

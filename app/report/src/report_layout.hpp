@@ -18,6 +18,7 @@
 
 #include "heatchain/project.hpp"
 #include "heatchain/solver.hpp"
+#include "heatchain_qt/exergy_chart.hpp"
 #include "heatchain_qt/process_chart.hpp"
 
 namespace heatchain::report_detail {
@@ -111,6 +112,8 @@ private:
 void paintChartFigure(QPainter& p, const QRectF& rect, const view::ProcessChart& chart,
                       const SequenceResult& result, double logicalWidth, bool legend);
 // Height of the legend strip, as a share of the logical chart layout.
+// The exergy-destroyed bars, drawn at `logicalWidth` and scaled into `rect`.
+void paintExergyFigure(QPainter& p, const QRectF& rect, const view::ExergyBarChart& chart, double logicalWidth);
 double legendHeight(const SequenceResult& result, double logicalWidth);
 
 }  // namespace heatchain::report_detail

@@ -20,6 +20,8 @@
 #include "heatchain_qt/format.hpp"
 #include "heatchain_qt/palette.hpp"
 #include "heatchain_qt/process_chart.hpp"
+#include "heatchain_qt/exergy_chart.hpp"
+#include "heatchain_qt/utility_text.hpp"
 #include "report_layout.hpp"
 
 namespace heatchain {
@@ -395,13 +397,135 @@ void writeContent(Layout& L, const Content& c) {
                         small, view::ink::text());
     }
 
-    // ---- 6 Steps ---------------------------------------------------------------------
+    // ---- 6 Utilities -------------------------------------------------------------------
+    bool anyUtility = !p.utilities.empty();
+    for (const StepResult& s : r.steps) anyUtility = anyUtility || s.utility.has_value();
+    int section = 6;
+    if (anyUtility) {
+        L.heading(QString::number(section), QStringLiteral("Utilities and approach temperatures"), L.mm(30));
+        L.paragraph(QStringLiteral("Minimum approach asked for: %1. Steam condenses (or is raised) at its saturation "
+                                   "temperature; a sensible stream runs counter-current between its in and out "
+                                   "temperatures.")
+                        .arg(withUnit(p.minApproachK(), Dimension::TemperatureDifference)),
+                    small, view::ink::text());
+        const QString eu = unitSymbol(E, us);
+        std::vector<TableColumn> ucol = {
+            {QStringLiteral("Utility"), {}, 1.5},
+            {QStringLiteral("Kind"), {}, 1.0},
+            {QStringLiteral("Temperature(s)"), {}, 2.4},
+            {QStringLiteral("Steps"), {}, 0.6, Qt::AlignRight},
+            {QStringLiteral("Heat supplied"), eu, 1.2, Qt::AlignRight},
+            {QStringLiteral("Heat absorbed"), eu, 1.2, Qt::AlignRight},
+            {QStringLiteral("Mass"), {}, 1.3, Qt::AlignRight},
+            {QStringLiteral("Volume"), {}, 1.3, Qt::AlignRight},
+        };
+        std::vector<TableRow> urows;
+        for (const UtilityTotal& t : r.utilities) {
+            TableRow row;
+            const QString temps = t.profile ? view::utilityTemperaturesText(*t.profile, us, ctx)
+                                  : t.error  ? QStringLiteral("not resolved: %1").arg(qs(t.error->message))
+                                             : QString();
+            row.cells = {qs(t.id), view::utilityKindText(t.kind), temps, QString::number(t.steps),
+                         fmt(t.heatSupplied, E), fmt(t.heatAbsorbed, E),
+                         view::utilityMassText(t.kind, t.mass, r.system, us, ctx),
+                         t.volume ? view::utilityUseText(t.kind, t.mass, t.volume, r.system, us, ctx) : QStringLiteral("–")};
+            urows.push_back(std::move(row));
+        }
+        L.table(ucol, urows, 7.5, QStringLiteral("Utilities, continued"));
+        const QString dTu = unitSymbol(Dimension::TemperatureDifference, us);
+        std::vector<TableColumn> acol = {
+            {QStringLiteral("#"), {}, 0.5, Qt::AlignRight},
+            {QStringLiteral("Step"), {}, 1.8},
+            {QStringLiteral("Utility"), {}, 1.6},
+            {QStringLiteral("Duty"), eu, 1.1, Qt::AlignRight},
+            {QStringLiteral("Uses"), {}, 1.3, Qt::AlignRight},
+            {QStringLiteral("Approach min"), dTu, 1.1, Qt::AlignRight},
+            {QStringLiteral("Where"), {}, 2.6},
+        };
+        std::vector<TableRow> arows;
+        QStringList tight;
+        for (std::size_t i = 0; i < r.steps.size(); ++i) {
+            const StepResult& s = r.steps[i];
+            if (!s.computed || !s.utility) continue;
+            const StepUtility& su = *s.utility;
+            TableRow row;
+            row.marker = view::stepColour(int(i));
+            const bool below = view::approachBelowMinimum(su, p.minApproachK());
+            row.cells = {QString::number(i + 1), qs(s.id),
+                         QStringLiteral("%1 (%2)").arg(qs(su.id), su.asSource ? QStringLiteral("source") : QStringLiteral("sink")),
+                         fmt(su.duty, E), view::utilityUseText(su.kind, su.mass, su.volume, r.system, us, ctx),
+                         fmt(su.minApproach, Dimension::TemperatureDifference) + (below ? QStringLiteral(" ⚠") : QString()),
+                         view::approachWhereText(s)};
+            if (below) tight << qs(s.id);
+            arows.push_back(std::move(row));
+        }
+        if (!arows.empty()) {
+            L.subheading(QStringLiteral("Steps served by a utility"), L.mm(20));
+            L.table(acol, arows, 7.5, QStringLiteral("Steps served by a utility, continued"));
+        }
+        if (!tight.isEmpty())
+            L.paragraph(QStringLiteral("⚠ closer than the minimum approach: %1.").arg(tight.join(QStringLiteral(", "))),
+                        L.font(8, true), view::ink::error());
+        ++section;
+    }
+
+    // ---- Exergy ---------------------------------------------------------------------
+    if (r.exergyAvailable) {
+        L.heading(QString::number(section), QStringLiteral("Exergy account"), L.mm(60));
+        L.paragraph(QStringLiteral("Relative to the dead state T0 = %1, P0 = %2. Exergy supplied: the exergy the heat "
+                                   "and work bring in; η_II = 1 − destroyed / supplied (none where nothing is supplied).")
+                        .arg(withUnit(r.T0, Dimension::Temperature), withUnit(r.P0, Dimension::Pressure)),
+                    small, view::ink::text());
+        const QString eu = unitSymbol(E, us);
+        std::vector<TableColumn> xcol = {
+            {QStringLiteral("#"), {}, 0.5, Qt::AlignRight},
+            {QStringLiteral("Step"), {}, 2.0},
+            {QStringLiteral("Exergy change"), eu, 1.3, Qt::AlignRight},
+            {QStringLiteral("Supplied"), eu, 1.3, Qt::AlignRight},
+            {QStringLiteral("Destroyed"), eu, 1.3, Qt::AlignRight},
+            {QStringLiteral("Share"), QStringLiteral("%"), 0.9, Qt::AlignRight},
+            {QStringLiteral("η_II"), QStringLiteral("%"), 0.9, Qt::AlignRight},
+        };
+        std::vector<TableRow> xrows;
+        auto pct = [](const std::optional<double>& v) {
+            return v ? view::formatNumber(100.0 * *v, 4, 1) : QStringLiteral("–");
+        };
+        for (std::size_t i = 0; i < r.steps.size(); ++i) {
+            const StepResult& s = r.steps[i];
+            TableRow row;
+            row.marker = view::stepColour(int(i));
+            if (!s.computed) {
+                const QString dash = QStringLiteral("–");
+                row.cells = {QString::number(i + 1), qs(s.id), dash, dash, dash, dash, dash};
+            } else {
+                row.cells = {QString::number(i + 1), qs(s.id), fmt(s.dEx, E), fmt(s.exergySupplied, E),
+                             fmt(s.exergyDestroyed, E), pct(s.exergyDestroyedShare), pct(s.secondLawEfficiency)};
+            }
+            xrows.push_back(std::move(row));
+        }
+        const Totals& t = r.totals;
+        xrows.push_back({{QString(), QStringLiteral("Sequence"), fmt(t.dEx, E), fmt(t.exergySupplied, E),
+                          fmt(t.exergyDestroyed, E), QStringLiteral("100"), pct(t.secondLawEfficiency)},
+                         TableRow::Style::Total});
+        L.table(xcol, xrows, 7.5, QStringLiteral("Exergy account, continued"));
+        view::ExergyBarChart bars;
+        bars.setData(p, r);
+        const double logicalW = 760;
+        const double wanted = bars.preferredHeight(int(bars.bars().size())) * (L.width() / logicalW);
+        const double h = std::min(wanted, L.mm(150));
+        L.subheading(QStringLiteral("Exergy destroyed by step: where the losses are"), h);
+        L.figure(h, [&](QPainter& painter, const QRectF& rect) { paintExergyFigure(painter, rect, bars, logicalW); });
+        ++section;
+    }
+
+    // ---- Steps ---------------------------------------------------------------------
     L.newPage();
-    L.heading(QStringLiteral("6"), QStringLiteral("Steps in detail"), L.mm(40));
+    const QString stepsNo = QString::number(section);
+    L.heading(stepsNo, QStringLiteral("Steps in detail"), L.mm(40));
     for (std::size_t i = 0; i < r.steps.size() && i < p.steps.size(); ++i) {
         const StepResult& s = r.steps[i];
         const Step& in = p.steps[i];
-        L.subheading(QStringLiteral("6.%1   %2  ·  %3").arg(i + 1).arg(qs(s.id), view::stepKindTitle(s.kind)), L.mm(30));
+        L.subheading(QStringLiteral("%1.%2   %3  ·  %4").arg(stepsNo).arg(i + 1).arg(qs(s.id), view::stepKindTitle(s.kind)), L.mm(30));
         auto inputs = stepInputs(in);
         L.keyValues(inputs, L.mm(45), small);
         if (!s.computed) {
@@ -438,6 +562,15 @@ void writeContent(Layout& L, const Content& c) {
                                fmt(s.exergyDestroyed, E),
                                s.reservoirT ? fmt(*s.reservoirT, Dimension::Temperature) : QStringLiteral("–")}}},
                     7.5);
+            if (s.utility) {
+                const StepUtility& su = *s.utility;
+                L.paragraph(QStringLiteral("%1 %2: uses %3; smallest approach %4 at the %5.")
+                                .arg(su.asSource ? QStringLiteral("Source") : QStringLiteral("Sink"), qs(su.id),
+                                     view::utilityUseText(su.kind, su.mass, su.volume, r.system, us, ctx),
+                                     withUnit(su.minApproach, Dimension::TemperatureDifference),
+                                     view::approachWhereText(s)),
+                            small, view::approachBelowMinimum(su, p.minApproachK()) ? view::ink::error() : view::ink::text());
+            }
             if (s.segments.size() > 1) {
                 std::vector<TableColumn> gcol = {
                     {QStringLiteral("Segment"), {}, 2.2},

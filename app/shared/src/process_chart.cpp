@@ -8,6 +8,7 @@
 
 #include "heatchain_qt/format.hpp"
 #include "heatchain_qt/palette.hpp"
+#include "heatchain_qt/utility_text.hpp"
 
 namespace heatchain::view {
 
@@ -46,6 +47,8 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
     reservoirs_.clear();
     dome_.clear();
     approach_.reset();
+    stepApproaches_.clear();
+    minApproachK_ = project.minApproachK();
 
     const Dimension xDim = kind_ == Kind::TemperatureEntropy ? Dimension::SpecificEntropy
                                                               : energyDimension(system_);
@@ -96,23 +99,56 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
             stepPts = s.raw;
             series_.push_back(std::move(s));
         }
-        if (kind_ == Kind::TemperatureDuty && st.reservoirT && !stepPts.empty()) {
+        if (kind_ == Kind::TemperatureDuty && st.utility && !st.utility->line.empty()) {
+            // A served step: core's own utility line and closest point.
+            const StepUtility& u = *st.utility;
+            ReservoirLine r;
+            r.step = int(i);
+            r.source = u.asSource;
+            r.label = QString::fromStdString(u.id);
+            r.utility = true;
+            r.colour = stepColour(int(i));
+            for (const UtilityLinePoint& lp : u.line)
+                r.pts.emplace_back(toDisplay(lp.Q, xDim, units_, ctx_), Y(lp.T));
+            reservoirs_.push_back(std::move(r));
+            // approachDuty is counted from the step's start as |heat|; the
+            // cumulative axis runs the way the step's Q does.
+            const double q = qStart + (st.Q >= 0 ? u.approachDuty : -u.approachDuty);
+            Approach a{int(i), toDisplay(q, xDim, units_, ctx_), Y(u.Tmaterial), Y(u.Tutility),
+                       toDisplay(u.minApproach, Dimension::TemperatureDifference, units_, ctx_),
+                       approachBelowMinimum(u, minApproachK_)};
+            stepApproaches_.push_back(a);
+            if (u.minApproach < minDT) {
+                minDT = u.minApproach;
+                approach_ = a;
+            }
+        } else if (kind_ == Kind::TemperatureDuty && st.reservoirT && !stepPts.empty()) {
             ReservoirLine r;
             r.step = int(i);
             r.source = st.Q >= 0;
-            r.T = Y(*st.reservoirT);
-            r.x0 = X(stepPts.front());
-            r.x1 = X(stepPts.back());
+            r.label = r.source ? QStringLiteral("source") : QStringLiteral("sink");
+            const double T = Y(*st.reservoirT);
+            r.pts = {{X(stepPts.front()), T}, {X(stepPts.back()), T}};
             r.colour = stepColour(int(i));
             reservoirs_.push_back(r);
             // Approach: how far the reservoir stays hotter (source) or colder
             // (sink) than the material along the step, in kelvin.
+            std::optional<Approach> best;
+            double bestDT = std::numeric_limits<double>::infinity();
             for (const CurvePoint& c : stepPts) {
                 const double dT = r.source ? *st.reservoirT - c.T : c.T - *st.reservoirT;
-                if (dT < minDT) {
-                    minDT = dT;
-                    approach_ = Approach{int(i), X(c), Y(c.T), r.T,
-                                         toDisplay(dT, Dimension::TemperatureDifference, units_, ctx_)};
+                if (dT < bestDT) {
+                    bestDT = dT;
+                    best = Approach{int(i), X(c), Y(c.T), T,
+                                    toDisplay(dT, Dimension::TemperatureDifference, units_, ctx_),
+                                    dT < minApproachK_ - 1e-6};
+                }
+            }
+            if (best) {
+                stepApproaches_.push_back(*best);
+                if (bestDT < minDT) {
+                    minDT = bestDT;
+                    approach_ = best;
                 }
             }
         }
@@ -135,10 +171,8 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
     };
     for (const Series& s : series_)
         for (QPointF v : s.pts) grow(v);
-    for (const ReservoirLine& r : reservoirs_) {
-        grow({r.x0, r.T});
-        grow({r.x1, r.T});
-    }
+    for (const ReservoirLine& r : reservoirs_)
+        for (QPointF v : r.pts) grow(v);
     if (!std::isfinite(x0)) {
         x0 = 0; x1 = 1; y0 = 0; y1 = 100;
     }
@@ -226,17 +260,25 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
         p.drawText(top + QPointF(8, 14), QStringLiteral("saturation"));
     }
 
+    QStringList labelled;  // a utility's id once, on its first line
     for (const ReservoirLine& r : reservoirs_) {
-        const QPointF a = f.map({r.x0, r.T}), b = f.map({r.x1, r.T});
+        if (r.pts.size() < 2) continue;
+        QPolygonF line;
+        for (QPointF v : r.pts) line << f.map(v);
         QPen pen(r.colour, r.step == selected_ ? 2.2 : 1.4, Qt::DashLine);
         p.setPen(pen);
-        p.drawLine(a, b);
+        p.setBrush(Qt::NoBrush);
+        p.drawPolyline(line);
         // Words on every line would bury a long sheet: label the selected
         // step's line, or all of them on a short sheet.
-        if (reservoirs_.size() <= 12 || r.step == selected_) {
+        if ((reservoirs_.size() <= 12 && !(r.utility && labelled.contains(r.label))) || r.step == selected_) {
+            labelled << r.label;
             p.setPen(r.colour.darker(120));
-            p.drawText(QPointF(std::min(a.x(), b.x()) + 2, a.y() - 3),
-                       r.source ? QStringLiteral("source") : QStringLiteral("sink"));
+            const QPointF a = line.front(), b = line.back();
+            const QPointF left = a.x() <= b.x() ? a : b;
+            // On the side away from the material (below a source, above a
+            // sink), where the line's left end leaves room.
+            p.drawText(left + QPointF(3, r.source ? QFontMetricsF(p.font()).ascent() + 2 : -3), r.label);
         }
     }
 
@@ -289,25 +331,31 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
         }
     }
 
-    if (approach_) {
-        const QPointF m = f.map({approach_->Q, approach_->T});
-        const QPointF r = f.map({approach_->Q, approach_->Treservoir});
-        p.setPen(QPen(ink::error(), 1.4));
-        p.drawLine(m, r);
-        p.setBrush(Qt::NoBrush);
-        p.drawEllipse(m, 5, 5);
-        const QString label = QStringLiteral("ΔT min %1 %2")
-                                  .arg(formatNumber(approach_->dT, 4, 1),
-                                       unitSymbol(Dimension::TemperatureDifference, units_));
-        const QFontMetricsF fm(p.font());
-        QRectF box(QPointF(0, 0), QSizeF(fm.horizontalAdvance(label) + 8, fm.height() + 4));
+    // Each step's closest point: a short bar from material to source/sink.
+    // Red (with its value) when closer than the worksheet's minimum, quiet
+    // otherwise; the sheet's smallest approach always carries its value.
+    const QFontMetricsF fm(p.font());
+    const QString dTUnit = unitSymbol(Dimension::TemperatureDifference, units_);
+    auto label = [&](const Approach& a, QPointF m, QPointF r, const QColor& ink) {
+        const QString text = QStringLiteral("ΔT %1 %2").arg(formatNumber(a.dT, 4, 1), dTUnit);
+        QRectF box(QPointF(0, 0), QSizeF(fm.horizontalAdvance(text) + 8, fm.height() + 4));
         box.moveCenter((m + r) / 2 + QPointF(box.width() / 2 + 6, 0));
         if (box.right() > f.plot.right()) box.moveRight((m.x() + r.x()) / 2 - 6);
         p.setPen(Qt::NoPen);
         p.setBrush(QColor(255, 255, 255, 225));
         p.drawRect(box);
-        p.setPen(ink::error());
-        p.drawText(box, Qt::AlignCenter, label);
+        p.setPen(ink);
+        p.drawText(box, Qt::AlignCenter, text);
+    };
+    for (const Approach& a : stepApproaches_) {
+        const bool sheetMin = approach_ && a.step == approach_->step;
+        const QPointF m = f.map({a.Q, a.T}), r = f.map({a.Q, a.Treservoir});
+        const QColor ink = a.belowMinimum ? ink::error() : ink::axis();
+        p.setPen(QPen(ink, a.belowMinimum ? 1.6 : 1.0, a.belowMinimum ? Qt::SolidLine : Qt::DotLine));
+        p.drawLine(m, r);
+        p.setBrush(Qt::NoBrush);
+        p.drawEllipse(m, a.belowMinimum || sheetMin ? 5 : 3.5, a.belowMinimum || sheetMin ? 5 : 3.5);
+        if (a.belowMinimum || sheetMin || a.step == selected_) label(a, m, r, ink);
     }
     p.restore();
 }

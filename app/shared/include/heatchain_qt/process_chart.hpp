@@ -3,8 +3,11 @@
 // window and the PDF report:
 //   - T–s: every step's path in its own colour over the saturation dome;
 //   - T–Q: temperature against cumulative duty, each step's heat source or
-//     sink temperature as a line over the step's duty span, and the smallest
-//     approach temperature marked.
+//     sink as a line over the step's duty span (a utility's own T–Q line from
+//     core: flat for steam and fixed, sloped counter-current for a sensible
+//     stream), each served step's closest point marked with its approach
+//     (red below the worksheet's minimum approach), and the smallest
+//     approach of the sheet.
 // The chart only converts core's SI curves to display units and draws them.
 #include <QColor>
 #include <QPainter>
@@ -46,8 +49,23 @@ public:
     struct Approach {
         int step = -1;
         double Q = 0, T = 0, Treservoir = 0, dT = 0;
+        bool belowMinimum = false;  // closer than the worksheet's minimum approach
     };
     std::optional<Approach> smallestApproach() const { return approach_; }
+    // One closest point per step that has a source or sink (display units).
+    const std::vector<Approach>& stepApproaches() const { return stepApproaches_; }
+
+    // A source or sink line as drawn (display units): two points for a flat
+    // temperature, core's utility line for a served step.
+    struct ReservoirLine {
+        int step = -1;
+        std::vector<QPointF> pts;  // (Q cumulative, T) in display units
+        bool source = true;
+        QString label;             // "source", "sink" or the utility id
+        bool utility = false;      // core's utility line (else a typed temperature)
+        QColor colour;
+    };
+    const std::vector<ReservoirLine>& reservoirLines() const { return reservoirs_; }
 
     QString xTitle() const { return xTitle_; }
     QString yTitle() const { return yTitle_; }
@@ -59,12 +77,6 @@ private:
         QColor colour;
         std::vector<QPointF> pts;  // (x, y) in display units
         std::vector<CurvePoint> raw;
-    };
-    struct ReservoirLine {
-        int step = -1;
-        double x0 = 0, x1 = 0, T = 0;  // display units
-        bool source = true;
-        QColor colour;
     };
     struct Frame {
         QRectF plot;
@@ -83,6 +95,8 @@ private:
     std::vector<ReservoirLine> reservoirs_;
     std::vector<QPointF> dome_;  // closed outline, display units
     std::optional<Approach> approach_;
+    double minApproachK_ = Project::kDefaultMinApproach;
+    std::vector<Approach> stepApproaches_;
     double xmin_ = 0, xmax_ = 1, ymin_ = 0, ymax_ = 1;
     QString xTitle_, yTitle_, xUnit_, yUnit_;
 };

@@ -1,0 +1,53 @@
+#include "exergy_widget.hpp"
+
+#include <QMouseEvent>
+#include <QPainter>
+
+#include "heatchain_qt/format.hpp"
+#include "heatchain_qt/palette.hpp"
+#include "heatchain_qt/utility_text.hpp"
+
+namespace heatchain::gui {
+
+ExergyWidget::ExergyWidget(ProjectDocument* doc, QWidget* parent) : QWidget(parent), doc_(doc) {
+    connect(doc_, &ProjectDocument::changed, this, &ExergyWidget::refresh);
+    connect(doc_, &ProjectDocument::selectionChanged, this, [this](int i) {
+        chart_.setSelectedStep(i);
+        update();
+    });
+    refresh();
+}
+
+void ExergyWidget::refresh() {
+    chart_.setData(doc_->project(), doc_->result());
+    chart_.setSelectedStep(doc_->selectedStep());
+    updateGeometry();
+    update();
+}
+
+QRectF ExergyWidget::chartRect() const { return QRectF(rect()).adjusted(4, 24, -6, -2); }
+
+void ExergyWidget::paintEvent(QPaintEvent*) {
+    QPainter p(this);
+    p.fillRect(rect(), Qt::white);
+    QFont f = font();
+    f.setBold(true);
+    p.setFont(f);
+    p.setPen(view::ink::text());
+    p.drawText(QRectF(8, 2, width() - 16, 20), Qt::AlignVCenter, tr("Exergy destroyed by step"));
+    p.setFont(font());
+    const SequenceResult& r = doc_->result();
+    if (r.exergyAvailable) {
+        p.setPen(view::ink::muted());
+        p.drawText(QRectF(8, 2, width() - 16, 20), Qt::AlignVCenter | Qt::AlignRight,
+                   tr("sequence η_II %1").arg(view::efficiencyText(r.totals.secondLawEfficiency)));
+    }
+    chart_.paint(p, chartRect());
+}
+
+void ExergyWidget::mousePressEvent(QMouseEvent* e) {
+    const int step = chart_.stepAt(e->position(), chartRect(), font());
+    if (step >= 0) doc_->setSelectedStep(step);
+}
+
+}  // namespace heatchain::gui

@@ -1,0 +1,151 @@
+#include "second_law_panel.hpp"
+
+#include <QHeaderView>
+
+#include "heatchain_qt/format.hpp"
+#include "heatchain_qt/palette.hpp"
+#include "heatchain_qt/utility_text.hpp"
+
+namespace heatchain::gui {
+
+using namespace heatchain::view;
+
+namespace {
+QString qs(const std::string& s) { return QString::fromStdString(s); }
+}
+
+SecondLawPanel::SecondLawPanel(ProjectDocument* doc, QWidget* parent) : QTableWidget(parent), doc_(doc) {
+    setColumnCount(ColumnCount);
+    verticalHeader()->hide();
+    verticalHeader()->setDefaultSectionSize(20);
+    horizontalHeader()->setDefaultAlignment(Qt::AlignRight | Qt::AlignVCenter);
+    horizontalHeader()->setHighlightSections(false);
+    setEditTriggers(QAbstractItemView::NoEditTriggers);
+    setSelectionBehavior(QAbstractItemView::SelectRows);
+    setSelectionMode(QAbstractItemView::SingleSelection);
+    setShowGrid(false);
+    setAlternatingRowColors(true);
+    setWordWrap(false);
+    connect(doc_, &ProjectDocument::changed, this, &SecondLawPanel::refresh);
+    connect(this, &QTableWidget::currentCellChanged, this, [this](int row) {
+        if (row >= 0 && row < int(stepOfRow_.size()) && stepOfRow_[std::size_t(row)] >= 0 &&
+            stepOfRow_[std::size_t(row)] != doc_->selectedStep())
+            doc_->setSelectedStep(stepOfRow_[std::size_t(row)]);
+    });
+    refresh();
+}
+
+int SecondLawPanel::rowOfStep(int index) const {
+    for (std::size_t r = 0; r < stepOfRow_.size(); ++r)
+        if (stepOfRow_[r] == index) return int(r);
+    return -1;
+}
+
+int SecondLawPanel::rowOfUtility(const QString& id) const {
+    for (std::size_t r = 0; r < utilityOfRow_.size(); ++r)
+        if (utilityOfRow_[r] == id) return int(r);
+    return -1;
+}
+
+void SecondLawPanel::refresh() {
+    const Project& p = doc_->project();
+    const SequenceResult& r = doc_->result();
+    const UnitSystem u = p.displayUnits;
+    const UnitContext ctx = p.unitContext();
+    const Dimension eD = energyDimension(r.system);
+    const QString eU = unitSymbol(eD, u), dTU = unitSymbol(Dimension::TemperatureDifference, u);
+    QSignalBlocker block(this);
+    clearContents();
+    setHorizontalHeaderLabels({tr("Step"), tr("Utility"), tr("Uses"), tr("Approach min [%1]").arg(dTU),
+                               tr("Where"), tr("Ex supplied [%1]").arg(eU), tr("Ex destroyed [%1]").arg(eU),
+                               tr("share"), tr("η_II")});
+    stepOfRow_.clear();
+    utilityOfRow_.clear();
+    std::vector<std::vector<QTableWidgetItem*>> rows;
+    auto cell = [](const QString& t, bool left = false) {
+        auto* it = new QTableWidgetItem(t);
+        it->setTextAlignment((left ? Qt::AlignLeft : Qt::AlignRight) | Qt::AlignVCenter);
+        return it;
+    };
+    const double minAp = p.minApproachK();
+    for (std::size_t i = 0; i < r.steps.size(); ++i) {
+        const StepResult& s = r.steps[i];
+        std::vector<QTableWidgetItem*> row(ColumnCount, nullptr);
+        row[ColStep] = cell(qs(s.id), true);
+        row[ColStep]->setForeground(stepColour(int(i)));
+        if (!s.computed) {
+            row[ColUtility] = cell(tr("not computed"), true);
+            row[ColUtility]->setForeground(ink::error());
+        } else {
+            if (s.utility) {
+                const StepUtility& su = *s.utility;
+                row[ColUtility] = cell(QStringLiteral("%1 (%2)").arg(qs(su.id), su.asSource ? tr("source") : tr("sink")), true);
+                row[ColUse] = cell(utilityUseText(su.kind, su.mass, su.volume, r.system, u, ctx));
+                if (su.volume) row[ColUse]->setToolTip(utilityMassText(su.kind, su.mass, r.system, u, ctx));
+                row[ColApproach] = cell(formatDisplay(su.minApproach, Dimension::TemperatureDifference, u, ctx, 4));
+                if (approachBelowMinimum(su, minAp)) {
+                    row[ColApproach]->setForeground(ink::error());
+                    row[ColApproach]->setToolTip(tr("closer than the worksheet's minimum approach of %1")
+                                                     .arg(formatWithUnit(minAp, Dimension::TemperatureDifference, u, ctx, 3)));
+                }
+                row[ColWhere] = cell(approachWhereText(s), true);
+            } else if (s.reservoirT) {
+                row[ColUtility] = cell(tr("%1 (typed)").arg(formatWithUnit(*s.reservoirT, Dimension::Temperature, u, ctx, 4)), true);
+            }
+            if (r.exergyAvailable) {
+                row[ColSupplied] = cell(formatDisplay(s.exergySupplied, eD, u, ctx));
+                row[ColDestroyed] = cell(formatDisplay(s.exergyDestroyed, eD, u, ctx));
+                row[ColShare] = cell(QStringLiteral("%1 %").arg(formatNumber(100 * s.exergyDestroyedShare, 3, 1)));
+                row[ColEta] = cell(efficiencyText(s.secondLawEfficiency));
+            }
+        }
+        rows.push_back(row);
+        stepOfRow_.push_back(int(i));
+        utilityOfRow_.emplace_back();
+    }
+    QFont bold = font();
+    bold.setBold(true);
+    // The sequence as one process.
+    {
+        std::vector<QTableWidgetItem*> row(ColumnCount, nullptr);
+        row[ColStep] = cell(tr("Sequence"), true);
+        if (r.exergyAvailable) {
+            row[ColSupplied] = cell(formatDisplay(r.totals.exergySupplied, eD, u, ctx));
+            row[ColDestroyed] = cell(formatDisplay(r.totals.exergyDestroyed, eD, u, ctx));
+            row[ColShare] = cell(QStringLiteral("100 %"));
+            row[ColEta] = cell(efficiencyText(r.totals.secondLawEfficiency));
+        }
+        for (auto* it : row) if (it) it->setFont(bold);
+        rows.push_back(row);
+        stepOfRow_.push_back(-1);
+        utilityOfRow_.emplace_back();
+    }
+    // Utilities in total.
+    for (const UtilityTotal& t : r.utilities) {
+        std::vector<QTableWidgetItem*> row(ColumnCount, nullptr);
+        row[ColStep] = cell(tr("utility total"), true);
+        row[ColStep]->setForeground(ink::muted());
+        row[ColUtility] = cell(QStringLiteral("%1 (%2)").arg(qs(t.id), utilityKindText(t.kind)), true);
+        row[ColUtility]->setFont(bold);
+        if (t.error) {
+            row[ColUse] = cell(qs(t.error->message), true);
+            row[ColUse]->setForeground(ink::error());
+        } else {
+            row[ColUse] = cell(t.steps == 0 ? tr("unused") : utilityUseText(t.kind, t.mass, t.volume, r.system, u, ctx));
+            if (t.volume) row[ColUse]->setToolTip(utilityMassText(t.kind, t.mass, r.system, u, ctx));
+            const double duty = t.heatSupplied + t.heatAbsorbed;
+            row[ColWhere] = cell(tr("%1 step(s), %2").arg(t.steps).arg(formatWithUnit(duty, eD, u, ctx, 4)), true);
+            if (t.profile) row[ColWhere]->setToolTip(utilityTemperaturesText(*t.profile, u, ctx));
+        }
+        rows.push_back(row);
+        stepOfRow_.push_back(-1);
+        utilityOfRow_.push_back(qs(t.id));
+    }
+    setRowCount(int(rows.size()));
+    for (std::size_t i = 0; i < rows.size(); ++i)
+        for (int c = 0; c < ColumnCount; ++c)
+            if (rows[i][std::size_t(c)]) setItem(int(i), c, rows[i][std::size_t(c)]);
+    resizeColumnsToContents();
+}
+
+}  // namespace heatchain::gui

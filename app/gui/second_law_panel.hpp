@@ -1,0 +1,30 @@
+#pragma once
+// Utilities and the second law, beside the ledger: per step its utility,
+// how much of it the step uses, the smallest approach and where, exergy
+// supplied and destroyed and η_II; then each utility's total use and the
+// sequence's η_II. Every number is core's, formatted in display units.
+#include <QTableWidget>
+
+#include "document.hpp"
+
+namespace heatchain::gui {
+
+class SecondLawPanel : public QTableWidget {
+    Q_OBJECT
+public:
+    explicit SecondLawPanel(ProjectDocument* doc, QWidget* parent = nullptr);
+    enum Column { ColStep, ColUtility, ColUse, ColApproach, ColWhere, ColSupplied, ColDestroyed, ColShare, ColEta, ColumnCount };
+    // Row of step `index` (−1 when not shown), for tests and selection.
+    int rowOfStep(int index) const;
+    int rowOfUtility(const QString& id) const;
+
+public slots:
+    void refresh();
+
+private:
+    ProjectDocument* doc_;
+    std::vector<int> stepOfRow_;
+    std::vector<QString> utilityOfRow_;
+};
+
+}  // namespace heatchain::gui
