@@ -19,7 +19,6 @@ using namespace heatchain::view;
 
 namespace {
 QString qs(const std::string& s) { return QString::fromStdString(s); }
-QString qs(std::string_view s) { return QString::fromUtf8(s.data(), qsizetype(s.size())); }
 
 struct InputChoice {
     const char* key;
