@@ -39,6 +39,9 @@ QTreeWidgetItem* row(QTreeWidgetItem* parent, const QString& what, const QString
                      const QString& change = {}) {
     auto* item = new QTreeWidgetItem(parent, {what, before, after, change});
     for (int c = 1; c < 4; ++c) item->setTextAlignment(c, Qt::AlignRight | Qt::AlignVCenter);
+    // Long notes are elided in the columns; the whole text on hover.
+    for (int c = 0; c < 3; ++c)
+        if (item->text(c).size() > 24) item->setToolTip(c, item->text(c));
     return item;
 }
 
@@ -144,8 +147,11 @@ void CompareDialog::rebuild() {
                 what = c.moved && !c.fields.empty() ? tr("%1 — moved and changed").arg(qs(c.id))
                        : c.moved                    ? tr("%1 — moved").arg(qs(c.id))
                                                     : tr("%1 — changed").arg(qs(c.id));
-                before = tr("step %1").arg(c.positionBefore);
-                after = tr("step %1").arg(c.positionAfter);
+                // Positions only when the order changed; otherwise they are noise.
+                if (c.moved) {
+                    before = tr("step %1").arg(c.positionBefore);
+                    after = tr("step %1").arg(c.positionAfter);
+                }
                 colour = c.moved ? kMoved : QColor();
                 break;
             }

@@ -6,6 +6,7 @@
 #include <QClipboard>
 #include <QCloseEvent>
 #include <QDockWidget>
+#include <QFile>
 #include <QFileDialog>
 #include <QFileInfo>
 #include <QHeaderView>
@@ -612,6 +613,18 @@ void MainWindow::startUp(const QStringList& arguments) {
     // cleanly left behind (over whatever this start opens).
     if (!arguments.contains(QStringLiteral("--no-recovery")) && !arguments.contains(QStringLiteral("--quit-after-show")))
         QTimer::singleShot(0, this, &MainWindow::offerRecovery);
+    // --compare=<file>: open the comparison with that revision once up.
+    for (const QString& a : arguments) {
+        if (a.startsWith(QStringLiteral("--compare="))) {
+            const QString other = a.mid(10);
+            QTimer::singleShot(0, this, [this, other] {
+                if (CompareDialog* d = compareWith(other)) {
+                    d->setAttribute(Qt::WA_DeleteOnClose);
+                    d->show();
+                }
+            });
+        }
+    }
     for (const QString& a : arguments) {
         if (!a.startsWith(QLatin1Char('-'))) {
             openFile(a);
@@ -720,14 +733,40 @@ void MainWindow::autosaveNow() {
 }
 
 bool MainWindow::offerRecovery() {
-    const QList<AutosaveEntry> left = autosave_->orphans();
+    QList<AutosaveEntry> left = autosave_->orphans();
+    // An autosave that says exactly what its file says holds nothing to
+    // recover: drop it without a question.
+    for (auto it = left.begin(); it != left.end();) {
+        QFile sheet(it->worksheetFile);
+        auto original = it->originalPath.isEmpty() ? Result<Project>(makeError("never saved"))
+                                                   : loadProject(std::filesystem::path(it->originalPath.toStdString()));
+        if (original && sheet.open(QIODevice::ReadOnly) &&
+            sheet.readAll() == QByteArray::fromStdString(writeProject(original.value()))) {
+            AutosaveStore::discard(*it);
+            it = left.erase(it);
+        } else {
+            ++it;
+        }
+    }
     if (left.isEmpty()) return false;
     const AutosaveEntry& e = left.front();
     const QLocale loc;
+    const qint64 minutes = e.saved.secsTo(QDateTime::currentDateTime()) / 60;
+    const QString ago = minutes < 1 ? tr("less than a minute ago")
+                        : minutes < 120 ? tr("%1 min ago").arg(minutes)
+                        : minutes < 48 * 60 ? tr("%1 h ago").arg(minutes / 60)
+                                            : tr("%1 days ago").arg(minutes / (24 * 60));
     QString text = tr("Heatchain did not close normally. A worksheet it autosaved can be recovered.\n\n");
     text += tr("“%1”\n").arg(e.title.isEmpty() ? tr("Untitled worksheet") : e.title);
     text += e.originalPath.isEmpty() ? tr("never saved to a file\n") : tr("from %1\n").arg(e.originalPath);
-    text += tr("autosaved %1\n\n").arg(loc.toString(e.saved, QLocale::ShortFormat));
+    text += tr("autosaved %1 (%2)\n").arg(loc.toString(e.saved, QLocale::ShortFormat), ago);
+    const QFileInfo originalInfo(e.originalPath);
+    if (!e.originalPath.isEmpty() && originalInfo.exists() && originalInfo.lastModified() > e.saved)
+        text += tr("Note: the file was changed after this autosave (%1); saving the recovered worksheet would replace "
+                   "that version.\n").arg(loc.toString(originalInfo.lastModified(), QLocale::ShortFormat));
+    else if (!e.originalPath.isEmpty() && !originalInfo.exists())
+        text += tr("Note: that file no longer exists.\n");
+    text += QLatin1Char('\n');
     text += tr("Recover opens it with its changes not yet saved; Save writes to the original file only when you choose. "
                "Discard deletes the autosave. Later keeps it for the next start.");
     if (left.size() > 1) text += tr("\n\n%n more autosave(s) will be offered afterwards.", nullptr, int(left.size()) - 1);
