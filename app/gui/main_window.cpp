@@ -102,12 +102,19 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     buildActions();
 
     statusSolve_ = new QLabel(this);
+    // The solve time changes on every edit. A label whose width follows its
+    // text would relayout the status bar, and with it repaint the whole
+    // window, on each keystroke: a fixed size keeps the update to the label.
+    statusTime_ = new QLabel(this);
+    statusTime_->setFixedSize(statusTime_->fontMetrics().horizontalAdvance(tr("solved in 8888.88 ms")) + 8,
+                              statusTime_->sizeHint().height());
     statusMessages_ = new QLabel(this);
     auto* caution = new QLabel(tr("Idealised paths — have results checked by a qualified engineer."), this);
     caution->setStyleSheet(QStringLiteral("color: #8a5a00;"));
     caution->setToolTip(tr(kCaution));
     statusBar()->addWidget(statusMessages_);
     statusBar()->addWidget(statusSolve_);
+    statusBar()->addWidget(statusTime_);
     statusBar()->addPermanentWidget(caution);
 
     connect(&doc_, &ProjectDocument::changed, this, [this] {
@@ -562,18 +569,23 @@ void MainWindow::updateTitle() {
 void MainWindow::updateStatus() {
     const SequenceResult& r = doc_.result();
     const Project& p = doc_.project();
-    statusSolve_->setText(tr("%1 · %2 · %3 steps · solved in %4 ms")
-                              .arg(qs(p.substance.name.empty() ? p.substanceId : p.substance.name),
-                                   r.model ? qs(r.model->name()) : qs(modelId(p.model)))
-                              .arg(p.steps.size())
-                              .arg(QString::number(doc_.lastSolveMs(), 'f', 2)));
+    const QString solveText = tr("%1 · %2 · %3 steps ·")
+                                  .arg(qs(p.substance.name.empty() ? p.substanceId : p.substance.name),
+                                       r.model ? qs(r.model->name()) : qs(modelId(p.model)))
+                                  .arg(p.steps.size());
+    if (statusSolve_->text() != solveText) statusSolve_->setText(solveText);
+    statusTime_->setText(tr("solved in %1 ms").arg(QString::number(doc_.lastSolveMs(), 'f', 2)));
     const int e = messages_->errorCount(), w = messages_->warningCount();
+    // (QLabel relayouts on every setText, even of the same text.)
+    auto setMessages = [this](const QString& t) {
+        if (statusMessages_->text() != t) statusMessages_->setText(t);
+    };
     if (e > 0)
-        statusMessages_->setText(tr("<span style='color:#b42318'><b>%1 error(s)</b></span>, %2 warning(s)").arg(e).arg(w));
+        setMessages(tr("<span style='color:#b42318'><b>%1 error(s)</b></span>, %2 warning(s)").arg(e).arg(w));
     else if (w > 0)
-        statusMessages_->setText(tr("<span style='color:#8a5a00'>%1 warning(s)</span>").arg(w));
+        setMessages(tr("<span style='color:#8a5a00'>%1 warning(s)</span>").arg(w));
     else
-        statusMessages_->setText(tr("<span style='color:#2e7d32'>no warnings</span>"));
+        setMessages(tr("<span style='color:#2e7d32'>no warnings</span>"));
 }
 
 void MainWindow::showAbout() {

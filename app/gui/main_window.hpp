@@ -147,6 +147,7 @@ private:
     QMenu* recentMenu_ = nullptr;
     QMenu* viewMenu_ = nullptr;
     QLabel* statusSolve_;
+    QLabel* statusTime_;
     QLabel* statusMessages_;
     QList<QAction*> unitActions_;
     bool interactive_ = true;

@@ -1,5 +1,7 @@
 #include "step_editor.hpp"
 
+#include "heatchain/project_file.hpp"
+
 #include <QHBoxLayout>
 #include <QVBoxLayout>
 
@@ -325,9 +327,32 @@ void StepEditor::fillTargetChoices(StepKind k, Target current) {
 void StepEditor::setRow(QWidget* w, bool visible) { formLayout_->setRowVisible(w, visible); }
 
 void StepEditor::refresh() {
-    filling_ = true;
     const Step* s = step();
     const int index = doc_->selectedStep();
+    {
+        // An edit elsewhere on a long sheet leaves this panel as it was;
+        // refilling it would relayout and repaint the dock on every edit.
+        // The key: the selected step as saved, its results and the units.
+        QString key = QString::number(index) + QLatin1Char('|') + QString::number(int(doc_->project().displayUnits)) +
+                      QLatin1Char('|') + QString::number(doc_->project().steps.size());
+        if (s) {
+            Project one;
+            one.steps.push_back(*s);
+            key += QString::fromStdString(writeProject(one));
+            if (index < int(doc_->result().steps.size())) {
+                const StepResult& sr = doc_->result().steps[std::size_t(index)];
+                for (double v : {sr.start.T, sr.start.P, sr.start.h, sr.start.s, sr.end.T, sr.end.P, sr.end.h, sr.end.s,
+                                 sr.Q, sr.W, sr.dH, sr.dU, sr.dS, sr.Sgen, sr.exergyDestroyed})
+                    key += QLatin1Char('|') + QString::number(v, 'g', 17);
+                key += QString::number(int(sr.computed)) + phaseText(sr.start) + phaseText(sr.end);
+                if (sr.error) key += QString::fromStdString(sr.error->message);
+                for (const std::string& w : sr.warnings) key += QString::fromStdString(w);
+            }
+        }
+        if (key == shownKey_) return;
+        shownKey_ = key;
+    }
+    filling_ = true;
     form_->setVisible(s != nullptr);
     resultBox_->setVisible(s != nullptr);
     empty_->setVisible(s == nullptr);

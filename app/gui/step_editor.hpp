@@ -44,6 +44,7 @@ private:
 
     ProjectDocument* doc_;
     bool filling_ = false;
+    QString shownKey_;  // what the editor shows; refresh() skips an identical refill
     QLabel* header_;
     QWidget* form_;
     QFormLayout* formLayout_;
