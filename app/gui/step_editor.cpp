@@ -91,9 +91,7 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
 
     resultBox_ = new QGroupBox(tr("Result"), this);
     auto* rl = new QVBoxLayout(resultBox_);
-    resultText_ = new QLabel(resultBox_);
-    resultText_->setTextFormat(Qt::RichText);
-    resultText_->setTextInteractionFlags(Qt::TextSelectableByMouse);
+    resultText_ = new ResultTable(resultBox_);
     messages_ = new QLabel(resultBox_);
     messages_->setWordWrap(true);
     messages_->setTextFormat(Qt::RichText);
@@ -399,42 +397,37 @@ void StepEditor::refresh() {
     const SequenceResult& r = doc_->result();
     const UnitSystem u = doc_->project().displayUnits;
     const UnitContext ctx = doc_->project().unitContext();
-    QString html;
+    QVector<ResultTable::Row> rows;
     QString msgs;
     if (index < int(r.steps.size())) {
         const StepResult& sr = r.steps[std::size_t(index)];
         if (sr.computed) {
             const Dimension eD = energyDimension(r.system), sD = entropyDimension(r.system);
-            auto row = [&](const QString& name, const QString& a, const QString& b = {}) {
-                return QStringLiteral("<tr><td style='color:#555;padding-right:10px'>%1</td>"
-                                      "<td align='right'>%2</td><td align='right' "
-                                      "style='padding-left:8px'>%3</td></tr>")
-                    .arg(name, a, b);
-            };
-            html = QStringLiteral("<table cellspacing='0' cellpadding='1'>");
-            html += row(QString(), tr("<i>start</i>"), tr("<i>end</i>"));
-            html += row(tr("T"), formatWithUnit(sr.start.T, Dimension::Temperature, u, ctx),
-                        formatWithUnit(sr.end.T, Dimension::Temperature, u, ctx));
-            html += row(tr("P"), formatWithUnit(sr.start.P, Dimension::Pressure, u, ctx),
-                        formatWithUnit(sr.end.P, Dimension::Pressure, u, ctx));
+            rows.push_back({QString(), tr("start"), tr("end"), false, true});
+            rows.push_back({tr("T"), formatWithUnit(sr.start.T, Dimension::Temperature, u, ctx),
+                            formatWithUnit(sr.end.T, Dimension::Temperature, u, ctx)});
+            rows.push_back({tr("P"), formatWithUnit(sr.start.P, Dimension::Pressure, u, ctx),
+                            formatWithUnit(sr.end.P, Dimension::Pressure, u, ctx)});
             // Two-line phase text keeps the start/end columns inside the dock.
-            auto phase2 = [](QString t) { return t.toHtmlEscaped().replace(QStringLiteral(", "), QStringLiteral("<br/>")); };
-            html += row(tr("phase"), phase2(phaseText(sr.start)), phase2(phaseText(sr.end)));
-            html += row(tr("h"), formatWithUnit(sr.start.h, Dimension::SpecificEnergy, u, ctx),
-                        formatWithUnit(sr.end.h, Dimension::SpecificEnergy, u, ctx));
-            html += row(tr("s"), formatWithUnit(sr.start.s, Dimension::SpecificEntropy, u, ctx),
-                        formatWithUnit(sr.end.s, Dimension::SpecificEntropy, u, ctx));
-            html += QStringLiteral("<tr><td colspan='3'><hr/></td></tr>");
-            html += row(tr("Q"), formatWithUnit(sr.Q, eD, u, ctx));
-            html += row(tr("W"), formatWithUnit(sr.W, eD, u, ctx));
-            html += row(tr("ΔH"), formatWithUnit(sr.dH, eD, u, ctx));
-            html += row(tr("ΔU"), formatWithUnit(sr.dU, eD, u, ctx));
-            html += row(tr("ΔS"), formatWithUnit(sr.dS, sD, u, ctx));
-            html += row(tr("S_gen"), formatWithUnit(sr.Sgen, sD, u, ctx));
-            html += row(tr("Exergy destroyed"), formatWithUnit(sr.exergyDestroyed, eD, u, ctx));
-            html += QStringLiteral("</table>");
+            const QStringList pa = phaseText(sr.start).split(QStringLiteral(", "));
+            const QStringList pb = phaseText(sr.end).split(QStringLiteral(", "));
+            for (qsizetype k = 0; k < std::max(pa.size(), pb.size()); ++k)
+                rows.push_back({k == 0 ? tr("phase") : QString(), k < pa.size() ? pa[k] : QString(),
+                                k < pb.size() ? pb[k] : QString()});
+            rows.push_back({tr("h"), formatWithUnit(sr.start.h, Dimension::SpecificEnergy, u, ctx),
+                            formatWithUnit(sr.end.h, Dimension::SpecificEnergy, u, ctx)});
+            rows.push_back({tr("s"), formatWithUnit(sr.start.s, Dimension::SpecificEntropy, u, ctx),
+                            formatWithUnit(sr.end.s, Dimension::SpecificEntropy, u, ctx)});
+            rows.push_back({QString(), QString(), QString(), true});
+            rows.push_back({tr("Q"), formatWithUnit(sr.Q, eD, u, ctx)});
+            rows.push_back({tr("W"), formatWithUnit(sr.W, eD, u, ctx)});
+            rows.push_back({tr("ΔH"), formatWithUnit(sr.dH, eD, u, ctx)});
+            rows.push_back({tr("ΔU"), formatWithUnit(sr.dU, eD, u, ctx)});
+            rows.push_back({tr("ΔS"), formatWithUnit(sr.dS, sD, u, ctx)});
+            rows.push_back({tr("S_gen"), formatWithUnit(sr.Sgen, sD, u, ctx)});
+            rows.push_back({tr("Exergy destroyed"), formatWithUnit(sr.exergyDestroyed, eD, u, ctx)});
         } else {
-            html = tr("<span style='color:#b42318'>Not computed.</span>");
+            rows.push_back({tr("Not computed."), QString(), QString()});
         }
         if (sr.error)
             msgs += QStringLiteral("<p style='color:#b42318'><b>Error:</b> %1</p>")
@@ -443,8 +436,8 @@ void StepEditor::refresh() {
             msgs += QStringLiteral("<p style='color:#8a5a00'><b>Warning:</b> %1</p>")
                         .arg(qs(w).toHtmlEscaped());
     }
-    resultText_->setText(html);
-    messages_->setText(msgs);
+    resultText_->setRows(std::move(rows));
+    if (messages_->text() != msgs) messages_->setText(msgs);
     messages_->setVisible(!msgs.isEmpty());
     filling_ = false;
 }

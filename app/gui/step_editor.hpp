@@ -13,6 +13,7 @@
 
 #include "document.hpp"
 #include "quantity_field.hpp"
+#include "result_table.hpp"
 
 namespace heatchain::gui {
 
@@ -61,7 +62,7 @@ private:
     QuantityField* sink_;
     QuantityField* note_;
     QGroupBox* resultBox_;
-    QLabel* resultText_;
+    ResultTable* resultText_;
     QLabel* messages_;
     QLabel* empty_;
 };
