@@ -679,7 +679,7 @@ void MainWindow::buildNotice() {
     noticeText_->setTextFormat(Qt::PlainText);
     noticeText_->setWordWrap(true);
     noticeReload_ = new QPushButton(tr("Reload"), notice_);
-    auto* dismiss = new QPushButton(tr("Keep mine"), notice_);
+    auto* dismiss = noticeDismiss_ = new QPushButton(tr("Keep mine"), notice_);
     dismiss->setToolTip(tr("Hide this notice. Save will still ask before overwriting the other version."));
     row->addWidget(noticeText_, 1);
     row->addWidget(noticeReload_);
@@ -713,6 +713,7 @@ void MainWindow::checkDiskNow() {
                                 : tr("“%1” was removed or renamed on disk. Save writes it again.").arg(name));
     noticeReload_->setVisible(exists);
     noticeReload_->setText(doc_.isModified() ? tr("Reload (drop my edits)") : tr("Reload"));
+    noticeDismiss_->setText(doc_.isModified() ? tr("Keep mine") : tr("Dismiss"));
     notice_->show();
 }
 

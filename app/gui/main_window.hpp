@@ -161,6 +161,7 @@ private:
     QFrame* notice_ = nullptr;
     QLabel* noticeText_ = nullptr;
     QPushButton* noticeReload_ = nullptr;
+    QPushButton* noticeDismiss_ = nullptr;
 
 };
 

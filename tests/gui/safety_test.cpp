@@ -14,6 +14,8 @@
 #include "heatchain/project_file.hpp"
 #include "heatchain/solver.hpp"
 #include "heatchain_qt/format.hpp"
+#include "heatchain_qt/process_chart.hpp"
+#include <cmath>
 #include "main_window.hpp"
 
 using namespace heatchain;
@@ -170,6 +172,60 @@ private slots:
         QCOMPARE(withoutSaveStamp(readAll(original)), autosaved);
         QVERIFY(!w.document()->isModified());
         QVERIFY(filesIn(folder, QStringLiteral("*.hchain")).isEmpty());
+    }
+
+    void autosaveEqualToItsFileIsDroppedWithoutAQuestion() {
+        QTemporaryDir dir;
+        const QString folder = dir.filePath(QStringLiteral("autosave"));
+        const QString original = dir.filePath(QStringLiteral("line.hchain"));
+        writeBytes(original, canonicalBase());
+        {
+            auto* crashed = new MainWindow;
+            crashed->setAutosaveFolder(folder);
+            QVERIFY(crashed->openFile(original));
+            crashed->document()->markModified();  // modified flag, same content
+            crashed->autosaveNow();
+            QCOMPARE(filesIn(folder, QStringLiteral("*.hchain")).size(), 1);
+            delete crashed;
+        }
+        MainWindow w;
+        w.setAutosaveFolder(folder);
+        Answers none;
+        w.setAsker(none.asker());
+        QVERIFY(!w.offerRecovery());
+        QVERIFY(none.asked.isEmpty());
+        QVERIFY(filesIn(folder, QStringLiteral("*.hchain")).isEmpty());
+    }
+
+    void chartLinesKeepTheirShape() {
+        // A straight run collapses to its ends; a corner survives; no dropped
+        // point lies farther than the tolerance from the kept line.
+        QPolygonF straight;
+        for (int i = 0; i <= 63; ++i) straight << QPointF(i * 2.0, 100 - i * 1.5);
+        const QPolygonF s = view::simplifyPolyline(straight, 0.25);
+        QCOMPARE(s.size(), 2);
+        QCOMPARE(s.front(), straight.front());
+        QCOMPARE(s.back(), straight.back());
+        QPolygonF corner;
+        for (int i = 0; i <= 20; ++i) corner << QPointF(i, 0);
+        for (int i = 1; i <= 20; ++i) corner << QPointF(20, i);
+        const QPolygonF c = view::simplifyPolyline(corner, 0.25);
+        QCOMPARE(c.size(), 3);
+        QCOMPARE(c[1], QPointF(20, 0));
+        QPolygonF wave;
+        for (int i = 0; i <= 200; ++i) wave << QPointF(i, 30 * std::sin(i / 15.0));
+        const QPolygonF w = view::simplifyPolyline(wave, 0.25);
+        QVERIFY(w.size() < wave.size());
+        for (QPointF v : wave) {
+            double best = 1e9;
+            for (qsizetype k = 0; k + 1 < w.size(); ++k) {
+                const QPointF a = w[k], d = w[k + 1] - a, r = v - a;
+                const double t = std::clamp((r.x() * d.x() + r.y() * d.y()) / (d.x() * d.x() + d.y() * d.y()), 0.0, 1.0);
+                const QPointF q = a + t * d - v;
+                best = std::min(best, std::hypot(q.x(), q.y()));
+            }
+            QVERIFY2(best <= 0.25 + 1e-9, qPrintable(QString::number(best)));
+        }
     }
 
     void autosaveRunsOnItsTimerAndACleanCloseRemovesIt() {
