@@ -270,6 +270,9 @@ class ConnectorLayer : public QGraphicsItem {
 public:
     QRectF boundingRect() const override { return bounds_; }
     void setPaths(std::vector<QPolygonF> paths) {
+        // The layer spans the whole chain: updating it repaints the whole
+        // viewport, so only when an arrow actually moved.
+        if (paths == paths_) return;
         prepareGeometryChange();
         paths_ = std::move(paths);
         QRectF b;

@@ -11,6 +11,8 @@ namespace heatchain::gui {
 ChartWidget::ChartWidget(ProjectDocument* doc, view::ProcessChart::Kind kind, QWidget* parent)
     : QWidget(parent), doc_(doc), chart_(kind) {
     setMouseTracking(true);
+    // paintEvent fills every pixel: no need to paint the dock beneath first.
+    setAttribute(Qt::WA_OpaquePaintEvent);
     title_ = kind == view::ProcessChart::Kind::TemperatureEntropy
                  ? tr("Temperature – entropy")
                  : tr("Temperature – cumulative duty");

@@ -1,13 +1,36 @@
 #include "document.hpp"
 
+#include <QCryptographicHash>
 #include <QDateTime>
 #include <QElapsedTimer>
+#include <QFile>
+#include <QFileInfo>
 #include <filesystem>
 
 #include "heatchain/project_file.hpp"
 #include "project_edit.hpp"
 
 namespace heatchain::gui {
+
+DiskStamp DiskStamp::ofBytes(const QByteArray& bytes, const QString& path) {
+    DiskStamp d;
+    const QFileInfo info(path);
+    d.exists = true;
+    d.size = bytes.size();
+    d.modified = info.lastModified();
+    d.sha256 = QCryptographicHash::hash(bytes, QCryptographicHash::Sha256);
+    return d;
+}
+
+DiskStamp DiskStamp::of(const QString& path) {
+    if (path.isEmpty()) return {};
+    QFile f(path);
+    if (!f.open(QIODevice::ReadOnly)) return {};
+    // Hash rather than trust modification time and size alone: an edit of
+    // the same length within the file system's time resolution changes
+    // neither.
+    return ofBytes(f.readAll(), path);
+}
 
 ProjectDocument::ProjectDocument(QObject* parent) : QObject(parent) {
     connect(&undo_, &QUndoStack::cleanChanged, this, &ProjectDocument::fileStateChanged);
@@ -36,10 +59,30 @@ int ProjectDocument::indexOf(std::string_view stepId) const {
 }
 
 Status ProjectDocument::open(const QString& path) {
+    // Stamp before reading: a change made between the two can then only
+    // cause one needless question at Save, never a silent overwrite.
+    DiskStamp stamp = DiskStamp::of(path);
     auto loaded = loadProject(std::filesystem::path(path.toStdString()));
     if (!loaded) return loaded.error();
     reset(std::move(loaded.value()), path);
+    stamp_ = std::move(stamp);
     return Ok{};
+}
+
+bool ProjectDocument::fileChangedOnDisk() const {
+    if (filePath_.isEmpty() || !stamp_.exists) return false;
+    const QFileInfo info(filePath_);
+    if (!info.exists()) return true;
+    // A different size settles it; otherwise the content decides (a touched
+    // but unchanged file is not a change worth a question).
+    if (info.size() != stamp_.size) return true;
+    return !(DiskStamp::of(filePath_) == stamp_);
+}
+
+void ProjectDocument::markModified() {
+    if (dirty_) return;
+    dirty_ = true;
+    emit fileStateChanged();
 }
 
 Status ProjectDocument::saveAs(const QString& path) {
@@ -49,9 +92,12 @@ Status ProjectDocument::saveAs(const QString& path) {
         project_.meta.modified =
             QDateTime::currentDateTimeUtc().toString(Qt::ISODate).toStdString();
     }
-    auto st = saveProject(project_, std::filesystem::path(path.toStdString()));
+    const std::string bytes = writeProject(project_);
+    auto st = writeFileAtomically(std::filesystem::path(path.toStdString()), bytes, true);
     if (!st) return st;
     filePath_ = path;
+    stamp_ = DiskStamp::ofBytes(QByteArray::fromStdString(bytes), path);
+    dirty_ = false;
     undo_.setClean();
     emit fileStateChanged();
     return Ok{};
@@ -61,6 +107,8 @@ void ProjectDocument::reset(Project project, const QString& path) {
     undo_.clear();
     project_ = std::move(project);
     filePath_ = path;
+    stamp_ = DiskStamp::of(path);
+    dirty_ = false;
     selected_ = project_.steps.empty() ? -1 : 0;
     recompute();
     emit changed();

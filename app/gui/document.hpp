@@ -4,6 +4,8 @@
 // through a QUndoCommand that calls setProject()/mutate(); the document then
 // re-solves the whole sequence and emits one signal, changed(). Views redraw
 // from project() and result() and never talk to each other.
+#include <QByteArray>
+#include <QDateTime>
 #include <QObject>
 #include <QString>
 #include <QUndoStack>
@@ -16,6 +18,19 @@
 #include "heatchain/solver.hpp"
 
 namespace heatchain::gui {
+
+// What the worksheet's file looked like when it was last read or written:
+// enough to tell whether someone else has changed it since.
+struct DiskStamp {
+    bool exists = false;
+    qint64 size = -1;
+    QDateTime modified;
+    QByteArray sha256;  // of the bytes
+    bool operator==(const DiskStamp& o) const { return exists == o.exists && sha256 == o.sha256; }
+    // The current state of `path` (hash read from the file).
+    static DiskStamp of(const QString& path);
+    static DiskStamp ofBytes(const QByteArray& bytes, const QString& path);
+};
 
 class ProjectDocument : public QObject {
     Q_OBJECT
@@ -38,11 +53,21 @@ public:
 
     // File: replacing the worksheet clears the undo history.
     QString filePath() const { return filePath_; }
-    bool isModified() const { return !undo_.isClean(); }
+    bool isModified() const { return dirty_ || !undo_.isClean(); }
+    // Marks the worksheet as differing from its file although the undo stack
+    // is clean (a recovered autosave). Cleared by the next save.
+    void markModified();
     // Opens `path`; on error the current worksheet stays exactly as it was.
     Status open(const QString& path);
     Status saveAs(const QString& path);
     void reset(Project project, const QString& path = {});
+
+    // The file as this worksheet last read or wrote it, and whether the file
+    // now differs from that (changed, replaced or removed by someone else).
+    const DiskStamp& diskStamp() const { return stamp_; }
+    bool fileChangedOnDisk() const;
+    // After the user has seen a change and chose to keep their version.
+    void acceptDiskState() { stamp_ = DiskStamp::of(filePath_); }
 
     // For undo commands only: replace the whole project, or change it in place.
     void setProject(Project project);
@@ -66,6 +91,8 @@ private:
     std::string modelKey_;  // model kind + substance; the model is rebuilt only when it changes
     QUndoStack undo_;
     QString filePath_;
+    DiskStamp stamp_;
+    bool dirty_ = false;
     int selected_ = -1;
     double lastSolveMs_ = 0;
 };

@@ -22,6 +22,22 @@ MessagesPanel::MessagesPanel(ProjectDocument* doc, QWidget* parent) : QTreeWidge
 }
 
 void MessagesPanel::refresh() {
+    // Most edits leave the messages as they were: compare before rebuilding
+    // (a rebuilt tree repaints, every keystroke).
+    QStringList now;
+    {
+        const SequenceResult& r = doc_->result();
+        if (r.startError) now << QString::fromStdString(r.startError->text());
+        for (const std::string& w : r.warnings) now << QString::fromStdString(w);
+        for (std::size_t i = 0; i < r.steps.size(); ++i) {
+            const StepResult& s = r.steps[i];
+            const QString where = QStringLiteral("%1  %2|").arg(i + 1).arg(QString::fromStdString(s.id));
+            if (s.error) now << where + QString::fromStdString(s.error->message);
+            for (const std::string& w : s.warnings) now << where + QString::fromStdString(w);
+        }
+    }
+    if (now == shown_ && topLevelItemCount() > 0) return;
+    shown_ = now;
     clear();
     errors_ = warnings_ = 0;
     const SequenceResult& r = doc_->result();

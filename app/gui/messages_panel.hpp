@@ -1,6 +1,7 @@
 #pragma once
 // Warnings and errors of the solved sequence, one line each with the step it
 // belongs to; clicking a line selects that step.
+#include <QStringList>
 #include <QTreeWidget>
 
 #include "document.hpp"
@@ -23,6 +24,7 @@ public slots:
 private:
     ProjectDocument* doc_;
     int errors_ = 0, warnings_ = 0;
+    QStringList shown_;  // what the tree shows, to skip rebuilding it unchanged
 };
 
 }  // namespace heatchain::gui

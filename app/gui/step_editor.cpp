@@ -1,5 +1,7 @@
 #include "step_editor.hpp"
 
+#include "heatchain/project_file.hpp"
+
 #include <QHBoxLayout>
 #include <QVBoxLayout>
 
@@ -105,9 +107,7 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
 
     resultBox_ = new QGroupBox(tr("Result"), this);
     auto* rl = new QVBoxLayout(resultBox_);
-    resultText_ = new QLabel(resultBox_);
-    resultText_->setTextFormat(Qt::RichText);
-    resultText_->setTextInteractionFlags(Qt::TextSelectableByMouse);
+    resultText_ = new ResultTable(resultBox_);
     messages_ = new QLabel(resultBox_);
     messages_->setWordWrap(true);
     messages_->setTextFormat(Qt::RichText);
@@ -392,9 +392,32 @@ void StepEditor::fillUtilityChoices(QComboBox* box, QuantityField* field, const 
 }
 
 void StepEditor::refresh() {
-    filling_ = true;
     const Step* s = step();
     const int index = doc_->selectedStep();
+    {
+        // An edit elsewhere on a long sheet leaves this panel as it was;
+        // refilling it would relayout and repaint the dock on every edit.
+        // The key: the selected step as saved, its results and the units.
+        QString key = QString::number(index) + QLatin1Char('|') + QString::number(int(doc_->project().displayUnits)) +
+                      QLatin1Char('|') + QString::number(doc_->project().steps.size());
+        if (s) {
+            Project one;
+            one.steps.push_back(*s);
+            key += QString::fromStdString(writeProject(one));
+            if (index < int(doc_->result().steps.size())) {
+                const StepResult& sr = doc_->result().steps[std::size_t(index)];
+                for (double v : {sr.start.T, sr.start.P, sr.start.h, sr.start.s, sr.end.T, sr.end.P, sr.end.h, sr.end.s,
+                                 sr.Q, sr.W, sr.dH, sr.dU, sr.dS, sr.Sgen, sr.exergyDestroyed})
+                    key += QLatin1Char('|') + QString::number(v, 'g', 17);
+                key += QString::number(int(sr.computed)) + phaseText(sr.start) + phaseText(sr.end);
+                if (sr.error) key += QString::fromStdString(sr.error->message);
+                for (const std::string& w : sr.warnings) key += QString::fromStdString(w);
+            }
+        }
+        if (key == shownKey_) return;
+        shownKey_ = key;
+    }
+    filling_ = true;
     form_->setVisible(s != nullptr);
     resultBox_->setVisible(s != nullptr);
     empty_->setVisible(s == nullptr);
@@ -443,60 +466,53 @@ void StepEditor::refresh() {
     const SequenceResult& r = doc_->result();
     const UnitSystem u = doc_->project().displayUnits;
     const UnitContext ctx = doc_->project().unitContext();
-    QString html;
+    QVector<ResultTable::Row> rows;
     QString msgs;
     if (index < int(r.steps.size())) {
         const StepResult& sr = r.steps[std::size_t(index)];
         if (sr.computed) {
             const Dimension eD = energyDimension(r.system), sD = entropyDimension(r.system);
-            auto row = [&](const QString& name, const QString& a, const QString& b = {}) {
-                return QStringLiteral("<tr><td style='color:#555;padding-right:10px'>%1</td>"
-                                      "<td align='right'>%2</td><td align='right' "
-                                      "style='padding-left:8px'>%3</td></tr>")
-                    .arg(name, a, b);
-            };
-            html = QStringLiteral("<table cellspacing='0' cellpadding='1'>");
-            html += row(QString(), tr("<i>start</i>"), tr("<i>end</i>"));
-            html += row(tr("T"), formatWithUnit(sr.start.T, Dimension::Temperature, u, ctx),
-                        formatWithUnit(sr.end.T, Dimension::Temperature, u, ctx));
-            html += row(tr("P"), formatWithUnit(sr.start.P, Dimension::Pressure, u, ctx),
-                        formatWithUnit(sr.end.P, Dimension::Pressure, u, ctx));
+            rows.push_back({QString(), tr("start"), tr("end"), false, true});
+            rows.push_back({tr("T"), formatWithUnit(sr.start.T, Dimension::Temperature, u, ctx),
+                            formatWithUnit(sr.end.T, Dimension::Temperature, u, ctx)});
+            rows.push_back({tr("P"), formatWithUnit(sr.start.P, Dimension::Pressure, u, ctx),
+                            formatWithUnit(sr.end.P, Dimension::Pressure, u, ctx)});
             // Two-line phase text keeps the start/end columns inside the dock.
-            auto phase2 = [](QString t) { return t.toHtmlEscaped().replace(QStringLiteral(", "), QStringLiteral("<br/>")); };
-            html += row(tr("phase"), phase2(phaseText(sr.start)), phase2(phaseText(sr.end)));
-            html += row(tr("h"), formatWithUnit(sr.start.h, Dimension::SpecificEnergy, u, ctx),
-                        formatWithUnit(sr.end.h, Dimension::SpecificEnergy, u, ctx));
-            html += row(tr("s"), formatWithUnit(sr.start.s, Dimension::SpecificEntropy, u, ctx),
-                        formatWithUnit(sr.end.s, Dimension::SpecificEntropy, u, ctx));
-            html += QStringLiteral("<tr><td colspan='3'><hr/></td></tr>");
-            html += row(tr("Q"), formatWithUnit(sr.Q, eD, u, ctx));
-            html += row(tr("W"), formatWithUnit(sr.W, eD, u, ctx));
-            html += row(tr("ΔH"), formatWithUnit(sr.dH, eD, u, ctx));
-            html += row(tr("ΔU"), formatWithUnit(sr.dU, eD, u, ctx));
-            html += row(tr("ΔS"), formatWithUnit(sr.dS, sD, u, ctx));
-            html += row(tr("S_gen"), formatWithUnit(sr.Sgen, sD, u, ctx));
-            html += row(tr("Exergy destroyed"), formatWithUnit(sr.exergyDestroyed, eD, u, ctx));
+            const QStringList pa = phaseText(sr.start).split(QStringLiteral(", "));
+            const QStringList pb = phaseText(sr.end).split(QStringLiteral(", "));
+            for (qsizetype k = 0; k < std::max(pa.size(), pb.size()); ++k)
+                rows.push_back({k == 0 ? tr("phase") : QString(), k < pa.size() ? pa[k] : QString(),
+                                k < pb.size() ? pb[k] : QString()});
+            rows.push_back({tr("h"), formatWithUnit(sr.start.h, Dimension::SpecificEnergy, u, ctx),
+                            formatWithUnit(sr.end.h, Dimension::SpecificEnergy, u, ctx)});
+            rows.push_back({tr("s"), formatWithUnit(sr.start.s, Dimension::SpecificEntropy, u, ctx),
+                            formatWithUnit(sr.end.s, Dimension::SpecificEntropy, u, ctx)});
+            rows.push_back({QString(), QString(), QString(), true});
+            rows.push_back({tr("Q"), formatWithUnit(sr.Q, eD, u, ctx)});
+            rows.push_back({tr("W"), formatWithUnit(sr.W, eD, u, ctx)});
+            rows.push_back({tr("ΔH"), formatWithUnit(sr.dH, eD, u, ctx)});
+            rows.push_back({tr("ΔU"), formatWithUnit(sr.dU, eD, u, ctx)});
+            rows.push_back({tr("ΔS"), formatWithUnit(sr.dS, sD, u, ctx)});
+            rows.push_back({tr("S_gen"), formatWithUnit(sr.Sgen, sD, u, ctx)});
+            rows.push_back({tr("Exergy destroyed"), formatWithUnit(sr.exergyDestroyed, eD, u, ctx)});
             if (r.exergyAvailable) {
-                html += row(tr("Exergy supplied"), formatWithUnit(sr.exergySupplied, eD, u, ctx));
-                html += row(tr("η<sub>II</sub>"), efficiencyText(sr.secondLawEfficiency));
+                rows.push_back({tr("Exergy supplied"), formatWithUnit(sr.exergySupplied, eD, u, ctx)});
+                rows.push_back({tr("η II"), efficiencyText(sr.secondLawEfficiency)});
             }
             if (sr.utility) {
                 const StepUtility& su = *sr.utility;
                 const bool tight = approachBelowMinimum(su, doc_->project().minApproachK());
-                html += QStringLiteral("<tr><td colspan='3'><hr/></td></tr>");
-                html += row(su.asSource ? tr("Source") : tr("Sink"),
-                            QStringLiteral("<b>%1</b>").arg(qs(su.id).toHtmlEscaped()), utilityKindText(su.kind));
-                html += row(tr("Uses"), utilityUseText(su.kind, su.mass, su.volume, r.system, u, ctx),
-                            su.volume ? utilityMassText(su.kind, su.mass, r.system, u, ctx) : QString());
-                html += row(tr("Approach min"),
-                            QStringLiteral("<span style='color:%1'>%2</span>")
-                                .arg(tight ? QStringLiteral("#b42318") : QStringLiteral("#22262b"),
-                                     formatWithUnit(su.minApproach, Dimension::TemperatureDifference, u, ctx)),
-                            approachWhereText(sr).toHtmlEscaped());
+                rows.push_back({QString(), QString(), QString(), true});
+                rows.push_back({su.asSource ? tr("Source") : tr("Sink"), qs(su.id), utilityKindText(su.kind)});
+                rows.push_back({tr("Uses"), utilityUseText(su.kind, su.mass, su.volume, r.system, u, ctx),
+                                su.volume ? utilityMassText(su.kind, su.mass, r.system, u, ctx) : QString()});
+                rows.push_back({tr("Approach min"),
+                                formatWithUnit(su.minApproach, Dimension::TemperatureDifference, u, ctx) +
+                                    (tight ? tr(" (below minimum)") : QString()),
+                                approachWhereText(sr)});
             }
-            html += QStringLiteral("</table>");
         } else {
-            html = tr("<span style='color:#b42318'>Not computed.</span>");
+            rows.push_back({tr("Not computed."), QString(), QString()});
         }
         if (sr.error)
             msgs += QStringLiteral("<p style='color:#b42318'><b>Error:</b> %1</p>")
@@ -505,8 +521,8 @@ void StepEditor::refresh() {
             msgs += QStringLiteral("<p style='color:#8a5a00'><b>Warning:</b> %1</p>")
                         .arg(qs(w).toHtmlEscaped());
     }
-    resultText_->setText(html);
-    messages_->setText(msgs);
+    resultText_->setRows(std::move(rows));
+    if (messages_->text() != msgs) messages_->setText(msgs);
     messages_->setVisible(!msgs.isEmpty());
     filling_ = false;
 }

@@ -13,6 +13,7 @@
 
 #include "document.hpp"
 #include "quantity_field.hpp"
+#include "result_table.hpp"
 
 namespace heatchain::gui {
 
@@ -49,6 +50,7 @@ private:
 
     ProjectDocument* doc_;
     bool filling_ = false;
+    QString shownKey_;  // what the editor shows; refresh() skips an identical refill
     QLabel* header_;
     QWidget* form_;
     QFormLayout* formLayout_;
@@ -67,7 +69,7 @@ private:
     QComboBox* sinkUtility_;
     QuantityField* note_;
     QGroupBox* resultBox_;
-    QLabel* resultText_;
+    ResultTable* resultText_;
     QLabel* messages_;
     QLabel* empty_;
 };

@@ -1,6 +1,7 @@
 #include "heatchain_qt/process_chart.hpp"
 
 #include <QFontMetricsF>
+#include <QPaintEngine>
 #include <QPainterPath>
 #include <algorithm>
 #include <cmath>
@@ -32,6 +33,70 @@ static int decimalsFor(double tickStep) {
     return d;
 }
 
+QPolygonF simplifyPolyline(const QPolygonF& line, double tolerance) {
+    const qsizetype n = line.size();
+    if (n < 3) return line;
+    std::vector<char> keep(std::size_t(n), 0);
+    keep.front() = keep.back() = 1;
+    std::vector<std::pair<qsizetype, qsizetype>> stack{{0, n - 1}};
+    const double tol2 = tolerance * tolerance;
+    // Every pass splits a range at an interior point or ends it: at most n
+    // passes.
+    while (!stack.empty()) {
+        const auto [a, b] = stack.back();
+        stack.pop_back();
+        if (b - a < 2) continue;
+        const QPointF A = line[a], d = line[b] - A;
+        const double len2 = d.x() * d.x() + d.y() * d.y();
+        double worst = -1;
+        qsizetype at = -1;
+        for (qsizetype i = a + 1; i < b; ++i) {
+            const QPointF v = line[i] - A;
+            // Squared distance to the chord (to A when the chord is a point).
+            double dist2;
+            if (len2 <= 1e-18) {
+                dist2 = v.x() * v.x() + v.y() * v.y();
+            } else {
+                const double cross = v.x() * d.y() - v.y() * d.x();
+                dist2 = cross * cross / len2;
+            }
+            if (dist2 > worst) { worst = dist2; at = i; }
+        }
+        if (worst > tol2) {
+            keep[std::size_t(at)] = 1;
+            stack.push_back({a, at});
+            stack.push_back({at, b});
+        }
+    }
+    QPolygonF out;
+    out.reserve(n);
+    for (qsizetype i = 0; i < n; ++i)
+        if (keep[std::size_t(i)]) out << line[i];
+    return out;
+}
+
+namespace {
+// Display conversion of one dimension as a + b·x. Unit conversions are
+// linear or affine (temperature scales, gauge pressure), so two calls give
+// the line and a per-point call to the unit tables is not needed; a third
+// point confirms it, else every point is converted the long way.
+struct DisplayMap {
+    Dimension dim;
+    UnitSystem units;
+    UnitContext ctx;
+    double a = 0, b = 1;
+    bool affine = false;
+    DisplayMap(Dimension d, UnitSystem u, const UnitContext& c) : dim(d), units(u), ctx(c) {
+        a = toDisplay(0.0, d, u, c);
+        b = toDisplay(1.0, d, u, c) - a;
+        const double probe = toDisplay(1000.0, d, u, c);
+        affine = std::isfinite(a) && std::isfinite(b) &&
+                 std::fabs(probe - (a + 1000.0 * b)) <= 1e-9 * std::max(1.0, std::fabs(probe));
+    }
+    double operator()(double si) const { return affine ? a + b * si : toDisplay(si, dim, units, ctx); }
+};
+}  // namespace
+
 QPointF ProcessChart::Frame::map(QPointF v) const {
     const double fx = (v.x() - x0) / (x1 - x0);
     const double fy = (v.y() - y0) / (y1 - y0);
@@ -58,11 +123,11 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
               + QStringLiteral(" [%1]").arg(xUnit_);
     yTitle_ = QStringLiteral("T [%1]").arg(yUnit_);
 
-    auto X = [&](const CurvePoint& c) {
-        return kind_ == Kind::TemperatureEntropy ? toDisplay(c.s, xDim, units_, ctx_)
-                                                 : toDisplay(c.Q, xDim, units_, ctx_);
-    };
-    auto Y = [&](double T) { return toDisplay(T, Dimension::Temperature, units_, ctx_); };
+    linesFor_ = QRectF();
+    lines_.clear();
+    const DisplayMap toX(xDim, units_, ctx_), toY(Dimension::Temperature, units_, ctx_);
+    auto X = [&](const CurvePoint& c) { return kind_ == Kind::TemperatureEntropy ? toX(c.s) : toX(c.Q); };
+    auto Y = [&](double T) { return toY(T); };
 
     double qRunning = 0;  // fallback cumulative duty when a step carries no curve
     double minDT = std::numeric_limits<double>::infinity();
@@ -190,6 +255,22 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
     if (kind_ == Kind::TemperatureDuty && x0 >= 0) xmin_ = std::min(0.0, xmin_);
 }
 
+const std::vector<QPolygonF>& ProcessChart::screenLines(const Frame& f) const {
+    if (linesFor_ == f.plot && lines_.size() == series_.size()) return lines_;
+    lines_.clear();
+    lines_.reserve(series_.size());
+    for (const Series& s : series_) {
+        QPolygonF line;
+        line.reserve(qsizetype(s.pts.size()));
+        for (QPointF v : s.pts) line << f.map(v);
+        // A quarter pixel: below what antialiasing can show, and a 100-step
+        // sheet's 6,400 points mostly lie on near-straight runs.
+        lines_.push_back(simplifyPolyline(line, 0.25));
+    }
+    linesFor_ = f.plot;
+    return lines_;
+}
+
 ProcessChart::Frame ProcessChart::frame(const QRectF& rect) const {
     Frame f;
     f.plot = rect.adjusted(62, 14, -14, -42);
@@ -260,12 +341,17 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
         p.drawText(top + QPointF(8, 14), QStringLiteral("saturation"));
     }
 
+    // On screen, a long sheet draws its unselected lines one pixel wide: the
+    // raster engine then draws them directly instead of filling an outline
+    // per line (a 100-step T–Q chart otherwise spends ~10 ms on outlines),
+    // and dozens of overlapping paths read better thin. Print keeps widths.
+    const bool dense = series_.size() > 40 && p.paintEngine() && p.paintEngine()->type() == QPaintEngine::Raster;
     QStringList labelled;  // a utility's id once, on its first line
     for (const ReservoirLine& r : reservoirs_) {
         if (r.pts.size() < 2) continue;
         QPolygonF line;
         for (QPointF v : r.pts) line << f.map(v);
-        QPen pen(r.colour, r.step == selected_ ? 2.2 : 1.4, Qt::DashLine);
+        QPen pen(r.colour, r.step == selected_ ? 2.2 : dense ? 1.0 : 1.4, Qt::DashLine);
         p.setPen(pen);
         p.setBrush(Qt::NoBrush);
         p.drawPolyline(line);
@@ -283,17 +369,10 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
     }
 
     // Unselected steps first, the selected one on top with a halo.
-    auto drawSeries = [&](const Series& s, bool selected) {
-        // Points closer than a pixel to the last one kept add nothing but
-        // stroking work (a 100-step sheet carries 6,400 points).
-        QPolygonF line;
-        line.reserve(qsizetype(s.pts.size()));
-        for (std::size_t i = 0; i < s.pts.size(); ++i) {
-            const QPointF m = f.map(s.pts[i]);
-            if (!line.isEmpty() && i + 1 < s.pts.size() && (m - line.back()).manhattanLength() < 1.5)
-                continue;
-            line << m;
-        }
+    const std::vector<QPolygonF>& lines = screenLines(f);
+    auto drawSeries = [&](std::size_t k, bool selected) {
+        const Series& s = series_[k];
+        const QPolygonF& line = lines[k];
         if (selected) {
             p.setPen(QPen(QColor(255, 235, 150), 7, Qt::SolidLine, Qt::RoundCap, Qt::RoundJoin));
             p.drawPolyline(line);
@@ -301,13 +380,13 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
         QColor c = s.colour;
         if (selected_ >= 0 && !selected) c.setAlpha(150);
         // Bevel joins: round joins cost a trigonometric arc at every vertex.
-        p.setPen(QPen(c, selected ? 3.0 : 1.8, Qt::SolidLine, Qt::FlatCap, Qt::BevelJoin));
+        p.setPen(QPen(c, selected ? 3.0 : dense ? 1.0 : 1.8, Qt::SolidLine, Qt::FlatCap, Qt::BevelJoin));
         p.drawPolyline(line);
     };
-    for (const Series& s : series_)
-        if (s.step != selected_) drawSeries(s, false);
-    for (const Series& s : series_)
-        if (s.step == selected_) drawSeries(s, true);
+    for (std::size_t k = 0; k < series_.size(); ++k)
+        if (series_[k].step != selected_) drawSeries(k, false);
+    for (std::size_t k = 0; k < series_.size(); ++k)
+        if (series_[k].step == selected_) drawSeries(k, true);
 
     // State points: the ends of each step (on long sheets only the selected
     // step's, where dozens of dots would hide the paths).

@@ -85,6 +85,10 @@ private:
     };
     Frame frame(const QRectF& rect) const;
     void drawAxes(QPainter& p, const Frame& f) const;
+    // The series as screen polylines for `f`, simplified to what a pixel
+    // can show; built once per data and size, reused by every repaint
+    // (selection, hover).
+    const std::vector<QPolygonF>& screenLines(const Frame& f) const;
 
     Kind kind_;
     int selected_ = -1;
@@ -99,7 +103,14 @@ private:
     std::vector<Approach> stepApproaches_;
     double xmin_ = 0, xmax_ = 1, ymin_ = 0, ymax_ = 1;
     QString xTitle_, yTitle_, xUnit_, yUnit_;
+    mutable QRectF linesFor_;
+    mutable std::vector<QPolygonF> lines_;
 };
+
+// Keeps the vertices of `line` a viewer can tell apart: drops every point
+// closer than `tolerance` (pixels) to the chord that replaces it
+// (Douglas–Peucker, iterative, bounded by the point count).
+QPolygonF simplifyPolyline(const QPolygonF& line, double tolerance);
 
 // Round tick spacing for a span shown with about `count` ticks.
 double niceTickStep(double span, int count);
