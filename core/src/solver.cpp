@@ -964,6 +964,11 @@ DomeCurve saturationDome(const PropertyModel& model, int points) {
     const auto crit = model.criticalPoint();
     const auto trip = model.triplePoint();
     double Tlo = trip ? trip->first : model.minTemperature();
+    // Where the vapour pressure is a fraction of a pascal the saturated vapour's
+    // entropy runs off toward infinity (−R ln P) and the dome would flatten the
+    // whole chart; start it where the vapour pressure reaches 500 Pa (water's
+    // triple point, 611.657 Pa, is above that and keeps its full dome).
+    if (auto T500 = model.transitionTemperature(Transition::Boiling, 500.0); T500 && *T500 > Tlo) Tlo = *T500;
     // Without a critical point the saturation line has no top, and any cut-off
     // would draw a dome that is not there; such a chart shows the path alone.
     if (!crit) return d;
