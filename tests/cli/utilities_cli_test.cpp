@@ -15,33 +15,15 @@
 
 #include <nlohmann/json.hpp>
 
+#include "support/run_command.hpp"
+
 namespace fs = std::filesystem;
 
 namespace {
 
-struct Run {
-    int exit = -1;
-    std::string out, err;
-};
+using Run = heatchain::testing::CommandRun;
 
-Run run(const std::string& args) {
-    const fs::path errFile = fs::temp_directory_path() / ("heatchain-util-err-" + std::to_string(::getpid()));
-    const std::string cmd = std::string(HEATCHAIN_CLI) + " " + args + " 2>" + errFile.string();
-    Run r;
-    FILE* p = popen(cmd.c_str(), "r");
-    if (!p) return r;
-    std::array<char, 4096> buf{};
-    size_t n;
-    while ((n = std::fread(buf.data(), 1, buf.size(), p)) > 0) r.out.append(buf.data(), n);
-    const int status = pclose(p);
-    r.exit = WIFEXITED(status) ? WEXITSTATUS(status) : -1;
-    std::ifstream e(errFile);
-    std::stringstream ss;
-    ss << e.rdbuf();
-    r.err = ss.str();
-    fs::remove(errFile);
-    return r;
-}
+Run run(const std::string& args) { return heatchain::testing::runCommand(std::string(HEATCHAIN_CLI) + " " + args); }
 
 std::string sample(const std::string& name) {
     return std::string(HEATCHAIN_SOURCE_DIR) + "/sample-projects/" + name + ".hchain";
