@@ -52,7 +52,9 @@ std::string fmt(double v) {
     return buf;
 }
 
-State fromIf97(const w::Props& p, Phase phase, std::string_view src) {
+// IF97 and ice Ih give the same set of properties in their own structs.
+template <class Props>
+State toState(const Props& p, Phase phase, std::string_view src) {
     State s;
     s.T = p.T;
     s.P = p.P;
@@ -68,21 +70,8 @@ State fromIf97(const w::Props& p, Phase phase, std::string_view src) {
     return s;
 }
 
-State fromIce(const ice::Props& p) {
-    State s;
-    s.T = p.T;
-    s.P = p.P;
-    s.phase = Phase::Solid;
-    s.h = p.h;
-    s.s = p.s;
-    s.u = p.u;
-    s.v = p.v;
-    s.cp = p.cp;
-    s.cv = p.cv;
-    s.w = p.w;
-    s.source = kSrcIce;
-    return s;
-}
+State fromIf97(const w::Props& p, Phase phase, std::string_view src) { return toState(p, phase, src); }
+State fromIce(const ice::Props& p) { return toState(p, Phase::Solid, kSrcIce); }
 
 // IF97's range flags for a fluid state (R7-97(2012), Sec. 4).
 std::uint32_t fluidRangeFlags(double T, double P) {
