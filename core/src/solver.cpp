@@ -436,11 +436,25 @@ StepResultOr pressureChange(const Ctx& c, const Step& step, std::size_t idx, con
                 o.adiabatic = true;
                 seg.label = eta == 1.0 ? "isentropic " + what
                                        : "adiabatic " + what + " (η = " + num(eta, 3) + ")";
-                if (c.points > 0)
+                // The drawn path between the ends: entropy generated evenly
+                // per logarithmic pressure step, s linear in ln P. That is the
+                // path of constant polytropic efficiency for an ideal gas of
+                // constant cp, and it never lowers s (adiabatic, S_gen >= 0).
+                // One (P, s) inversion per point; the path at eta = 1 is the
+                // isentrope itself.
+                if (c.points > 0) {
+                    const double lnRatio = std::log(P2 / a.P);
                     for (int k = 0; k < n; ++k) {
-                        auto s = k == 0 ? Result<State>(a) : (k == n - 1 ? Result<State>(o.end) : endAt(Pk(k)));
+                        Result<State> s = a;
+                        if (k == n - 1) {
+                            s = o.end;
+                        } else if (k > 0) {
+                            const double P = Pk(k);
+                            s = c.model.statePS(P, a.s + (o.end.s - a.s) * std::log(P / a.P) / lnRatio);
+                        }
                         if (s) seg.curve.push_back({s->T, s->s, Qcum, s->P, s->h});
                     }
+                }
                 break;
             }
             case PathKind::Isothermal: {
@@ -817,7 +831,8 @@ SequenceResult solve(const Project& project, const SolveOptions& options) {
     return solve(project, *model, options);
 }
 
-SequenceResult solve(const Project& project, std::shared_ptr<const PropertyModel> model, const SolveOptions& options) {
+SequenceResult solve(const Project& project, const std::shared_ptr<const PropertyModel>& model,
+                     const SolveOptions& options) {
     SequenceResult r;
     r.model = model;
     r.system = project.system;

@@ -168,6 +168,55 @@ TEST(SolverClosedForm, IdealGasCompressionPaths) {
     }
 }
 
+// The drawn path of an adiabatic compression with efficiency below 1 is the
+// line of constant polytropic efficiency. For an ideal gas of constant cp
+// that line has ln T linear in ln P (s = cp ln T - R ln P, closed form), so
+// every curve point must satisfy T = T1 (P/P1)^m with m fixed by the ends,
+// and s never falls along it (adiabatic: S_gen >= 0 on every part).
+TEST(SolverClosedForm, AdiabaticCurveIsThePolytropicEfficiencyLine) {
+    auto r = solveText(projectText("steady-flow", R"({ "massFlow": "1 kg/s" })", R"({ "T": "500 K", "P": "1 atm" })",
+                                   R"({ "id": "c", "kind": "compress", "to": { "P": "5 atm" }, "path": "adiabatic", "efficiency": 0.7 })"));
+    ASSERT_TRUE(r.ok()) << r.firstError()->text();
+    const auto& st = r.steps[0];
+    ASSERT_EQ(st.segments.size(), 1u);
+    const auto& curve = st.segments[0].curve;
+    ASSERT_GE(curve.size(), 10u);
+    const double T1 = st.start.T, P1 = st.start.P;
+    const double m = std::log(st.end.T / T1) / std::log(st.end.P / P1);
+    for (std::size_t k = 0; k < curve.size(); ++k) {
+        expectRel(curve[k].T, T1 * std::pow(curve[k].P / P1, m), 1e-9, "polytropic-efficiency line");
+        if (k > 0) {
+            EXPECT_GT(curve[k].P, curve[k - 1].P) << k;
+            EXPECT_GE(curve[k].s, curve[k - 1].s - 1e-9) << k;
+        }
+    }
+    EXPECT_DOUBLE_EQ(curve.front().T, st.start.T);
+    EXPECT_DOUBLE_EQ(curve.back().T, st.end.T);
+}
+
+// The same path law for water on IAPWS-IF97: a feed pump (liquid) and a
+// turbine expanding into the wet region. Entropy never falls along either.
+TEST(SolverLaws, AdiabaticCurvesNeverLowerEntropy) {
+    auto p = parse(projectText("steady-flow", R"({ "massFlow": "1 kg/s" })", R"({ "T": "45 degC", "P": "1.2 bar" })",
+                               R"({ "id": "pump", "kind": "compress", "to": { "P": "40 bar" }, "path": "adiabatic", "efficiency": 0.6 },
+                                  { "id": "boiler", "kind": "heat", "to": { "T": "420 degC" } },
+                                  { "id": "turbine", "kind": "expand", "to": { "P": "0.1 bar" }, "path": "adiabatic", "efficiency": 0.8 })",
+                               "reference", R"("water")"));
+    auto r = solve(p);
+    ASSERT_TRUE(r.ok()) << r.firstError()->text();
+    for (std::size_t i : {0u, 2u}) {
+        const auto& st = r.steps[i];
+        ASSERT_EQ(st.segments.size(), 1u) << st.id;
+        const auto& curve = st.segments[0].curve;
+        ASSERT_GE(curve.size(), 10u) << st.id;
+        EXPECT_DOUBLE_EQ(curve.front().s, st.start.s) << st.id;
+        EXPECT_DOUBLE_EQ(curve.back().s, st.end.s) << st.id;
+        EXPECT_GT(st.end.s, st.start.s) << st.id;
+        for (std::size_t k = 1; k < curve.size(); ++k) EXPECT_GE(curve[k].s, curve[k - 1].s - 1e-9) << st.id << " " << k;
+    }
+    ASSERT_TRUE(r.steps[2].end.quality.has_value()) << "the turbine should end wet at 0.1 bar";
+}
+
 // Closed rigid vessel of ideal gas: Q = m cv ΔT, P2 = P1 T2/T1, W = 0.
 TEST(SolverClosedForm, ConstantVolumeHeatingOfGas) {
     const double R = R_universal / 0.030, cv = 1500.0 - R;
