@@ -55,7 +55,7 @@ using detail::child;
 // file needs about 8 levels (a custom substance's cp table is the deepest).
 constexpr int kMaxDepth = 64;
 // A project is a few kilobytes; a 1,000-step worksheet about 300 kB.
-constexpr std::uintmax_t kMaxFileBytes = 64u * 1024u * 1024u;
+constexpr std::uintmax_t kMaxFileBytes = std::uintmax_t{64} * 1024 * 1024;
 
 constexpr std::string_view kFormatName = "heatchain-project";
 
@@ -930,7 +930,7 @@ Result<Project> loadProject(const std::filesystem::path& file) {
     const std::uintmax_t size = std::filesystem::file_size(file, ec);
     if (ec) return makeError("cannot open: " + ec.message(), name);
     if (size > kMaxFileBytes)
-        return makeError("the file is " + std::to_string(size / (1024 * 1024)) +
+        return makeError("the file is " + std::to_string(size / (std::uintmax_t{1024} * 1024)) +
                              " MiB; a Heatchain project is far smaller (limit 64 MiB)",
                          name);
     std::ifstream in(file, std::ios::binary);
@@ -1075,7 +1075,7 @@ Status writeFileAtomically(const std::filesystem::path& file, std::string_view b
                              osReason(errno),
                          name);
 
-    auto abandon = [&](std::string what, int error) -> Status {
+    auto abandon = [&](const std::string& what, int error) -> Status {
         ::close(fd);
         ::unlink(temp.c_str());
         return makeError("cannot save: " + what + ": " + osReason(error) + "; the file on disk is unchanged", name);
@@ -1113,7 +1113,7 @@ Status writeFileAtomically(const std::filesystem::path& file, std::string_view b
                          name);
     }
 
-    auto discard = [&](std::string what, int error) -> Status {
+    auto discard = [&](const std::string& what, int error) -> Status {
         ::unlink(temp.c_str());
         return makeError("cannot save: " + what + ": " + osReason(error) + "; the file on disk is unchanged", name);
     };

@@ -103,7 +103,7 @@ std::vector<OutputDef> outputDefs(const Project& p) {
     const Dimension dS = closed ? Dimension::Entropy : Dimension::EntropyRate;
     const Dimension dM = closed ? Dimension::Mass : Dimension::MassFlow;
     std::vector<OutputDef> d;
-    auto total = [&](const char* key, const char* label, Dimension dim, std::function<double(const Totals&)> f) {
+    auto total = [&](const char* key, const char* label, Dimension dim, const std::function<double(const Totals&)>& f) {
         d.push_back({{std::string("total.") + key, label, dim}, [f](const SequenceResult& r) { return std::optional<double>(f(r.totals)); }});
     };
     total("Q", "total Q", dE, [](const Totals& t) { return t.Q; });
@@ -116,7 +116,7 @@ std::vector<OutputDef> outputDefs(const Project& p) {
                  [](const SequenceResult& r) { return r.totals.secondLawEfficiency; }});
     for (std::size_t i = 0; i < p.steps.size(); ++i) {
         const std::string id = p.steps[i].id;
-        auto step = [&](const char* key, const char* label, Dimension dim, std::function<double(const StepResult&)> f) {
+        auto step = [&](const char* key, const char* label, Dimension dim, const std::function<double(const StepResult&)>& f) {
             d.push_back({{"step:" + id + "." + key, id + " " + label, dim}, [i, f](const SequenceResult& r) {
                              return i < r.steps.size() && r.steps[i].computed ? std::optional<double>(f(r.steps[i]))
                                                                               : std::nullopt;
@@ -205,7 +205,12 @@ Result<SweepResult> sweep(const Project& project, const SweepSpec& spec, const S
                 if (d.out.key == key) found = &d;
             if (!found) {
                 std::string keys;
-                for (const auto& d : defs) keys += (keys.empty() ? "" : ", ") + d.out.key;
+                for (const auto& d : defs) {
+                    if (!keys.empty()) keys += ", ";
+                    keys += d.out.key;
+                }
+                // Once, on the way out with an error.
+                // NOLINTNEXTLINE(performance-inefficient-string-concatenation)
                 return makeError("unknown output \"" + key + "\"; this project has " + keys, "sweep --outputs");
             }
             chosen.push_back(found);

@@ -161,7 +161,7 @@ struct SolveOptions {
 // carries its error, and the steps after it are marked not computed.
 SequenceResult solve(const Project& project, const SolveOptions& options = {});
 // Same, with a model already built (the GUI keeps it between edits).
-SequenceResult solve(const Project& project, std::shared_ptr<const PropertyModel> model,
+SequenceResult solve(const Project& project, const std::shared_ptr<const PropertyModel>& model,
                      const SolveOptions& options = {});
 
 // Resolves the start state of a project with its model.

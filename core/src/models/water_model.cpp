@@ -318,13 +318,13 @@ Result<State> WaterReferenceModel::fluidState(Phase requested, double T, double 
                 extra |= WarnMetastable;
             return done(w::region2(T, P), Phase::Vapor, kSrc2, extra);
         }
-        std::uint32_t extra = WarnNone;
-        // Liquid below the melting temperature is supercooled.
-        if (T < w::Tt && T >= ice::kMeltTmin && P <= ice::meltingPressure(T) * (1 + kLineSlack) &&
-            P >= ice::sublimationPressure(T) * (1 - kLineSlack))
-            extra |= WarnMetastable;
-        else if (T < ice::kMeltTmin)
-            extra |= WarnMetastable;
+        // Liquid below the melting temperature is supercooled: between the
+        // melting and sublimation lines, and everywhere below the lowest
+        // temperature of the melting curve.
+        const bool supercooled = T < ice::kMeltTmin ||
+                                 (T < w::Tt && P <= ice::meltingPressure(T) * (1 + kLineSlack) &&
+                                  P >= ice::sublimationPressure(T) * (1 - kLineSlack));
+        const std::uint32_t extra = supercooled ? WarnMetastable : WarnNone;
         return done(w::region1(T, P), eq == Phase::Vapor ? Phase::Liquid : eq, kSrc1, extra);
     }
 
@@ -580,7 +580,7 @@ Result<State> WaterReferenceModel::stateP(double P, Property which, double value
     auto prop = [which](const State& s) { return which == Property::Enthalpy ? s.h : s.s; };
 
     // Fast path: a state clearly inside region 1, 2 or 3.
-    if (auto d = directState(P, which == Property::Enthalpy, value)) return *std::move(d);
+    if (auto d = directState(P, which == Property::Enthalpy, value)) return *d;
 
     // Clearly above the melting/sublimation line (liquid at
     // 273.16 K or vapour at the triple-point temperature is the floor).
