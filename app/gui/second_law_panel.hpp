@@ -21,7 +21,13 @@ public:
 public slots:
     void refresh();
 
+protected:
+    void showEvent(QShowEvent* e) override;
+
 private:
+    void fitColumns();
+    bool columnsStale_ = false;
+
     ProjectDocument* doc_;
     std::vector<int> stepOfRow_;
     std::vector<QString> utilityOfRow_;

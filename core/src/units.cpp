@@ -509,10 +509,24 @@ std::string unitLabel(std::string_view symbol) {
 }
 
 double toDisplay(double si, Dimension d, UnitSystem system, const UnitContext& context) {
-    const std::string_view unit = displayUnit(d, system);
-    if (unit.empty()) return si;
-    auto v = fromSI(si, unit, d, context);
-    return v ? *v : si;  // every display unit is in the table (tested)
+    // The display unit of every (dimension, system), looked up once: views
+    // format thousands of numbers per edit, and a lookup by spelling
+    // normalises every table entry. Every display unit is in the table (tested).
+    constexpr int kDims = static_cast<int>(Dimension::VolumeFlow) + 1;
+    constexpr int kSystems = static_cast<int>(UnitSystem::USCustomary) + 1;
+    static const auto table = [] {
+        std::array<std::array<const UnitInfo*, kSystems>, kDims> t{};
+        for (int i = 0; i < kDims; ++i)
+            for (int s = 0; s < kSystems; ++s) {
+                const auto dim = static_cast<Dimension>(i);
+                const std::string_view unit = displayUnit(dim, static_cast<UnitSystem>(s));
+                t[std::size_t(i)][std::size_t(s)] = unit.empty() ? nullptr : findIn(unit, dim);
+            }
+        return t;
+    }();
+    const UnitInfo* u = table[std::size_t(static_cast<int>(d))][std::size_t(static_cast<int>(system))];
+    if (!u) return si;
+    return (si - offsetOf(*u, context)) / u->factor;
 }
 
 std::string formatQuantity(double si, Dimension d, UnitSystem system, const UnitContext& context,

@@ -488,7 +488,9 @@ void writeContent(Layout& L, const Content& c) {
         };
         std::vector<TableRow> xrows;
         auto pct = [](const std::optional<double>& v) {
-            return v ? view::formatNumber(100.0 * *v, 4, 1) : QStringLiteral("–");
+            // Shares and η_II are 0–100 %: one decimal, never 2.5e−09 for a
+            // throttle whose η_II is zero up to round-off.
+            return v ? QString::number(100.0 * *v, 'f', 1) : QStringLiteral("–");
         };
         for (std::size_t i = 0; i < r.steps.size(); ++i) {
             const StepResult& s = r.steps[i];

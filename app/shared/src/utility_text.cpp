@@ -55,7 +55,9 @@ QString utilityTemperaturesText(const UtilityProfile& p, UnitSystem units, const
 
 QString efficiencyText(const std::optional<double>& eta) {
     if (!eta) return QStringLiteral("–");
-    return QStringLiteral("%1 %").arg(formatNumber(100.0 * *eta, 4, 1));
+    // 0–100 % with one decimal: a throttle's η_II is zero up to round-off,
+    // which significant-figure formatting would print as 2.5e−09 %.
+    return QStringLiteral("%1 %").arg(QString::number(100.0 * *eta, 'f', 1));
 }
 
 }  // namespace heatchain::view
