@@ -158,7 +158,9 @@ TEST(AmmoniaModel, IsentropicAndThrottlingPaths) {
     EXPECT_NEAR(back->h, s1->h, 1e-9 * std::abs(s1->h));
     // Back on the saturated-vapour end: as quality 1 or as vapour at Tsat.
     EXPECT_NEAR(back->T, 263.15, 1e-7);
-    if (back->quality) EXPECT_NEAR(*back->quality, 1.0, 1e-9);
+    if (back->quality) {
+        EXPECT_NEAR(*back->quality, 1.0, 1e-9);
+    }
     auto liq = m.stateOnLineT(Transition::Boiling, 313.15, 0.0);
     ASSERT_TRUE(liq.ok());
     auto thr = m.statePH(s1->P, liq->h);
