@@ -1,6 +1,8 @@
 // Chooses the property model for a substance. "reference" means the best the
-// substance has: IAPWS-IF97 with ice Ih for water, Peng–Robinson for every
+// substance has: IAPWS-IF97 with ice Ih for water, the Tillner-Roth et al.
+// (1993) equation of state for the library's ammonia, Peng–Robinson for every
 // other substance with critical constants, else temperature-dependent cp.
+#include "heatchain/models/ammonia.hpp"
 #include "heatchain/models/peng_robinson.hpp"
 #include "heatchain/models/simple_model.hpp"
 #include "heatchain/models/water_model.hpp"
@@ -17,6 +19,7 @@ Result<std::shared_ptr<const PropertyModel>> makeModel(ModelKind kind, const Sub
             return makePengRobinsonModel(substance);
         case ModelKind::Reference:
             if (substance.id == "water" && !substance.custom) return makeWaterReferenceModel(substance);
+            if (substance.id == "ammonia" && !substance.custom) return makeAmmoniaReferenceModel(substance);
             if (substance.critical && substance.cpVapor) return makePengRobinsonModel(substance);
             return makeSimpleModel(substance, ModelKind::TemperatureDependentCp);
     }
