@@ -297,6 +297,20 @@ PrescanResult prescanJson(std::string_view text, int maxDepth) {
     return r;
 }
 
+std::unordered_map<std::string, std::size_t> numberOffsets(std::string_view text) {
+    std::unordered_map<std::string, std::size_t> out;
+    walk(
+        text, 100000,
+        [&](const JsonPath& path, std::size_t offset) {
+            const char c = text[offset];
+            if (c == '-' || (c >= '0' && c <= '9')) out.emplace(formatJsonPath(path), offset);
+            return true;
+        },
+        [](const JsonPath&, std::size_t, bool) { return true; },
+        [](const JsonPath&, std::size_t, std::string_view) { return true; }, nullptr);
+    return out;
+}
+
 std::size_t locateJsonValue(std::string_view text, const JsonPath& target) {
     std::size_t best = 0;
     std::size_t bestLength = 0;

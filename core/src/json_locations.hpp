@@ -8,6 +8,7 @@
 #include <optional>
 #include <string>
 #include <string_view>
+#include <unordered_map>
 #include <vector>
 
 namespace heatchain::detail {
@@ -50,6 +51,10 @@ struct PrescanResult {
     std::optional<JsonProblem> numberOutOfRange;
 };
 PrescanResult prescanJson(std::string_view text, int maxDepth);
+
+// Byte offset of every number value in the text, keyed by formatJsonPath of
+// its path: one walk for a whole file (locateJsonValue walks per call).
+std::unordered_map<std::string, std::size_t> numberOffsets(std::string_view text);
 
 // Byte offset of the value at `path`, or of its deepest ancestor present in
 // the text (the whole document's start when nothing matches).

@@ -28,6 +28,8 @@
 #include <cstring>
 #include <fstream>
 #include <initializer_list>
+#include <optional>
+#include <unordered_map>
 #include <set>
 #include <span>
 #include <sstream>
@@ -197,8 +199,13 @@ public:
 
     // The characters of a JSON number as typed, so "0.60" is written back as
     // "0.60" and not as "0.6"; empty if the text cannot be found or disagrees.
+    // The offsets of all numbers are found in one walk over the file, the
+    // first time one is asked for (a walk per number made loading quadratic).
     std::string typedNumber(const JsonPath& path, double value) const {
-        const std::size_t at = detail::locateJsonValue(text_, path);
+        if (!numberAt_) numberAt_ = detail::numberOffsets(text_);
+        const auto hit = numberAt_->find(detail::formatJsonPath(path));
+        if (hit == numberAt_->end()) return {};
+        const std::size_t at = hit->second;
         std::size_t end = at;
         while (end < text_.size() && std::string_view("+-0123456789.eE").find(text_[end]) != std::string_view::npos)
             ++end;
@@ -254,6 +261,7 @@ private:
     std::string_view text_;
     std::string_view file_;
     const Json& root_;
+    mutable std::optional<std::unordered_map<std::string, std::size_t>> numberAt_;
 };
 
 // ---- Sections --------------------------------------------------------------
@@ -839,8 +847,6 @@ Json quantityJson(const Quantity& q, Dimension d) {
 // (nlohmann/json always reprints a double in its own shortest form).
 thread_local std::vector<std::string>* typedNumbers = nullptr;
 
-std::string numberPlaceholder(std::size_t k) { return "\\u0001hcnum" + std::to_string(k) + "\\u0001"; }
-
 Json numberJson(const Number& n) {
     if (typedNumbers && !n.text.empty() && n.raw.is_number()) {
         typedNumbers->push_back(n.text);
@@ -954,13 +960,24 @@ std::string writeProject(const Project& p) {
     // Swap each placeholder for the typed characters; if a placeholder is not
     // found exactly once (a string value that happens to look like one), write
     // the numbers in nlohmann/json's form instead.
-    std::string swapped = out;
-    for (std::size_t k = typed.size(); k-- > 0;) {
-        const std::string ph = "\"" + numberPlaceholder(k) + "\"";
-        const auto pos = swapped.find(ph);
-        if (pos == std::string::npos || swapped.find(ph, pos + 1) != std::string::npos) return writeProjectDump(p);
-        swapped.replace(pos, ph.size(), typed[k]);
+    // One pass over the dump (a search per placeholder made writing quadratic).
+    const std::string_view open = "\"\\u0001hcnum", close = "\\u0001\"";
+    std::vector<int> seen(typed.size(), 0);
+    std::string swapped;
+    swapped.reserve(out.size());
+    std::size_t from = 0;
+    for (std::size_t at = out.find(open); at != std::string::npos; at = out.find(open, at + 1)) {
+        std::size_t k = 0, q = at + open.size();
+        const std::size_t digits = q;
+        while (q < out.size() && out[q] >= '0' && out[q] <= '9' && q - digits < 12) k = k * 10 + std::size_t(out[q++] - '0');
+        if (q == digits || out.compare(q, close.size(), close) != 0) continue;  // not a placeholder
+        if (k >= typed.size() || ++seen[k] > 1) return writeProjectDump(p);
+        swapped.append(out, from, at - from).append(typed[k]);
+        from = q + close.size();
     }
+    swapped.append(out, from, std::string::npos);
+    for (int n : seen)
+        if (n != 1) return writeProjectDump(p);
     return swapped;
 }
 
