@@ -10,6 +10,13 @@
 
 namespace heatchain {
 
+std::optional<std::string_view> referenceEquation(const Substance& substance) {
+    if (substance.custom) return std::nullopt;
+    if (substance.id == "water") return "IAPWS-IF97 with ice Ih";
+    if (substance.id == "ammonia") return "the Tillner-Roth et al. (1993) ammonia equation";
+    return std::nullopt;
+}
+
 Result<std::shared_ptr<const PropertyModel>> makeModel(ModelKind kind, const Substance& substance) {
     switch (kind) {
         case ModelKind::ConstantCp:
@@ -18,8 +25,10 @@ Result<std::shared_ptr<const PropertyModel>> makeModel(ModelKind kind, const Sub
         case ModelKind::RealFluid:
             return makePengRobinsonModel(substance);
         case ModelKind::Reference:
-            if (substance.id == "water" && !substance.custom) return makeWaterReferenceModel(substance);
-            if (substance.id == "ammonia" && !substance.custom) return makeAmmoniaReferenceModel(substance);
+            if (referenceEquation(substance)) {
+                if (substance.id == "water") return makeWaterReferenceModel(substance);
+                return makeAmmoniaReferenceModel(substance);
+            }
             if (substance.critical && substance.cpVapor) return makePengRobinsonModel(substance);
             return makeSimpleModel(substance, ModelKind::TemperatureDependentCp);
     }

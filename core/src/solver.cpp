@@ -835,6 +835,14 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
                      const SolveOptions& options) {
     SequenceResult r;
     r.model = model;
+    // A cubic on a polar fluid that has its own reference equation: say so
+    // once, where the sequence's messages are read.
+    if (model->kind() == ModelKind::RealFluid)
+        if (auto ref = referenceEquation(model->substance()))
+            r.warnings.push_back("real-fluid (Peng–Robinson) is approximate for " + model->substance().name +
+                                 ": near saturation its vapour pressures, latent heats and vapour enthalpy changes "
+                                 "can be several percent off, superheat enthalpy changes more; model \"reference\" "
+                                 "uses " + std::string(*ref));
     r.system = project.system;
     r.massBasis = project.massBasis();
     r.T0 = project.surroundingsT.si;

@@ -102,6 +102,11 @@ protected:
     static double propertyOf(const State& s, Property which);
 };
 
+// The name of the substance's own reference-quality equation of state, when
+// the library has one (water: IAPWS-IF97; ammonia: Tillner-Roth et al.
+// 1993); `reference` then uses it instead of Peng–Robinson.
+std::optional<std::string_view> referenceEquation(const Substance& substance);
+
 // Builds the model of the given kind for a substance, or says why it cannot
 // ("the reference model of nitrogen is Peng–Robinson", "water needs …").
 Result<std::shared_ptr<const PropertyModel>> makeModel(ModelKind kind, const Substance& substance);
