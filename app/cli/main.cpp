@@ -128,7 +128,8 @@ int compute(const Args& a, bool checkOnly) {
 }
 
 // Loads and solves PROJECT for the verbs that draw; the exit status on failure.
-std::optional<int> loadForDrawing(const std::string& file, std::optional<Project>& project,
+// (Unused in a build without the report library, where those verbs say so.)
+[[maybe_unused]] std::optional<int> loadForDrawing(const std::string& file, std::optional<Project>& project,
                                   std::optional<SequenceResult>& result) {
     auto loaded = loadProject(file);
     if (!loaded) {
