@@ -402,6 +402,9 @@ StepResultOr pressureChange(const Ctx& c, const Step& step, std::size_t idx, con
         auto end = c.model.statePH(P2, a.h);
         if (!end) return stepError(step, idx, end.error().message);
         o.end = *end;
+        // The state was solved for h = h1; the solver's last-digit residual
+        // (1e-15 relative) is not a result and would show as ΔH 7e-15 kW.
+        o.end.h = a.h;
         o.adiabatic = true;
         seg.label = "throttling (constant enthalpy)";
         if (c.points > 0)

@@ -75,9 +75,14 @@ void ExergyBarChart::paint(QPainter& p, const QRectF& rect) const {
                    formatNumber(x, 6, x == 0 || step >= 1 ? 0 : int(std::ceil(-std::log10(step)))));
     }
     p.setPen(ink::text());
-    p.drawText(QRectF(L.plot.left(), barsBottom + fm.height() + 4, L.plot.width(), fm.height()),
-               Qt::AlignHCenter,
-               QStringLiteral("exergy destroyed [%1]   total %2 %1").arg(unit_, formatNumber(total_, 5, 2)));
+    // Centred under the bars when it fits there, else across the whole
+    // width (the step names' column is beside the bars), and elided only
+    // when even that is too narrow.
+    const QString caption = QStringLiteral("exergy destroyed [%1]   total %2 %1").arg(unit_, formatNumber(total_, 5, 2));
+    const bool fitsUnderBars = fm.horizontalAdvance(caption) <= L.plot.width();
+    const QRectF captionBox = fitsUnderBars ? QRectF(L.plot.left(), barsBottom + fm.height() + 4, L.plot.width(), fm.height())
+                                            : QRectF(rect.left(), barsBottom + fm.height() + 4, rect.width(), fm.height());
+    p.drawText(captionBox, Qt::AlignHCenter, fm.elidedText(caption, Qt::ElideRight, captionBox.width()));
 
     double y = L.plot.top();
     const double thick = std::max(1.0, L.rowHeight * 0.68);
