@@ -248,6 +248,14 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
             for (QPointF v : dome_) grow(v);
     }
     if (kind_ == Kind::TemperatureDuty) x0 = std::min(x0, 0.0);
+    // A sheet with no duty yet (only a throttle, say) has every point at
+    // Q = 0: give the axis a span of one display unit around it, not 1e-9
+    // with ticks reading "-0 0 0".
+    if (x1 - x0 < 1e-6 * std::max(1.0, std::fabs(x0))) {
+        const double half = kind_ == Kind::TemperatureDuty ? 0.5 : 0.05;
+        x0 -= half;
+        x1 += half;
+    }
     const double padX = std::max((x1 - x0) * 0.05, 1e-9 + std::fabs(x1) * 0.01);
     const double padY = std::max((y1 - y0) * 0.06, 1.0);
     xmin_ = x0 - padX; xmax_ = x1 + padX;
