@@ -972,10 +972,10 @@ std::string writeProject(const Project& p) {
         while (q < out.size() && out[q] >= '0' && out[q] <= '9' && q - digits < 12) k = k * 10 + std::size_t(out[q++] - '0');
         if (q == digits || out.compare(q, close.size(), close) != 0) continue;  // not a placeholder
         if (k >= typed.size() || ++seen[k] > 1) return writeProjectDump(p);
-        swapped.append(out, from, at - from).append(typed[k]);
+        swapped.append(std::string_view(out).substr(from, at - from)).append(typed[k]);
         from = q + close.size();
     }
-    swapped.append(out, from, std::string::npos);
+    swapped.append(std::string_view(out).substr(from));
     for (int n : seen)
         if (n != 1) return writeProjectDump(p);
     return swapped;
