@@ -261,6 +261,20 @@ std::string ledgerText(const Project& p, const SequenceResult& r) {
     }
     o << "\nIdealised process paths. Pressure equipment, steam, cryogens and hot surfaces are governed by\n"
          "local codes and licensed practice; have results checked by a qualified engineer.\n";
+    // The substance's hazards, wrapped at about 100 columns like the lines above.
+    if (const std::string hz = hazardSentence(p.substance); !hz.empty()) {
+        std::string line;
+        std::istringstream words("Caution - " + hz);
+        std::string w;
+        while (words >> w) {
+            if (!line.empty() && line.size() + 1 + w.size() > 100) {
+                o << line << "\n";
+                line.clear();
+            }
+            line += (line.empty() ? "" : " ") + w;
+        }
+        o << line << "\n";
+    }
     return o.str();
 }
 

@@ -27,6 +27,7 @@ void MessagesPanel::refresh() {
     QStringList now;
     {
         const SequenceResult& r = doc_->result();
+        now << QString::fromStdString(hazardSentence(doc_->project().substance));
         if (r.startError) now << QString::fromStdString(r.startError->text());
         for (const std::string& w : r.warnings) now << QString::fromStdString(w);
         for (std::size_t i = 0; i < r.steps.size(); ++i) {
@@ -48,6 +49,9 @@ void MessagesPanel::refresh() {
         const QColor c = sev == tr("error") ? QColor(0xb4, 0x23, 0x18) : QColor(0x8a, 0x5a, 0x00);
         it->setForeground(0, c);
     };
+    // The substance's hazards first: a standing caution, not a warning count.
+    if (const std::string hz = hazardSentence(doc_->project().substance); !hz.empty())
+        add(tr("caution"), -1, tr("substance"), QString::fromStdString(hz));
     if (r.startError) {
         add(tr("error"), -1, tr("start"), QString::fromStdString(r.startError->text()));
         ++errors_;

@@ -346,11 +346,58 @@ Result<double> molarVolumeOf(const Json& value, const std::string& path, const U
     return sign * *vol * scale / *amount;
 }
 
+constexpr std::pair<Hazard, std::string_view> kHazardIds[] = {
+    {Hazard::Toxic, "toxic"},           {Hazard::Corrosive, "corrosive"}, {Hazard::Flammable, "flammable"},
+    {Hazard::Asphyxiant, "asphyxiant"}, {Hazard::Oxidiser, "oxidiser"},   {Hazard::Carcinogen, "carcinogen"},
+};
+
+}  // namespace
+
+std::string_view hazardId(Hazard h) {
+    for (const auto& [k, id] : kHazardIds)
+        if (k == h) return id;
+    return "";
+}
+
+std::string_view hazardCaution(Hazard h) {
+    switch (h) {
+        case Hazard::Toxic:
+            return "toxic by inhalation: keep exposure below the applicable limits, with gas detection, "
+                   "ventilation and escape routes as the local code requires";
+        case Hazard::Corrosive:
+            return "corrosive to skin and eyes: protective equipment wherever containment is broken";
+        case Hazard::Flammable:
+            return "flammable: a release can form an ignitable mixture with air; ignition sources, ventilation "
+                   "and hazardous-area classification follow the applicable code";
+        case Hazard::Asphyxiant:
+            return "asphyxiant: a release displaces the oxygen of an enclosed space without warning; monitor "
+                   "oxygen where it can collect";
+        case Hazard::Oxidiser:
+            return "oxidiser: makes other materials burn far more readily; keep oils and greases away and clean "
+                   "equipment for oxygen service";
+        case Hazard::Carcinogen:
+            return "carcinogen: keep exposure as low as practicable under the occupational-health rules";
+    }
+    return "";
+}
+
+std::string hazardSentence(const Substance& s) {
+    if (s.hazards.empty()) return {};
+    std::string out = (s.name.empty() ? s.id : s.name) + ": ";
+    for (std::size_t i = 0; i < s.hazards.size(); ++i) {
+        if (i) out += "; ";
+        out += hazardCaution(s.hazards[i]);
+    }
+    return out + ". Read the supplier's safety data sheet.";
+}
+
+namespace {
+
 Result<Substance> parseImpl(const Json& j, std::string_view where, const UnitContext& uc) {
     if (!j.is_object()) return makeError("a substance must be a JSON object", std::string(where));
     if (auto ok = checkKeys(j, where,
                             {"id", "name", "formula", "cas", "molarMass", "critical", "triple", "melting", "boiling",
-                             "sublimation", "phases", "pengRobinson", "source"});
+                             "sublimation", "phases", "pengRobinson", "hazards", "source"});
         !ok)
         return ok.error();
     Substance s;
@@ -524,6 +571,36 @@ Result<Substance> parseImpl(const Json& j, std::string_view where, const UnitCon
         }
         s.pengRobinson = pr;
         addSource(s, b, "pengRobinson", path, st);
+        if (!st) return st.error();
+    }
+
+    // "hazards": { "classes": ["toxic", ...], "source": "..." }
+    if (auto c = objectAt(j, "hazards", where, false); !c) {
+        return c.error();
+    } else if (*c) {
+        const Json& b = **c;
+        const std::string path = join(where, "hazards");
+        if (auto ok = checkKeys(b, path, {"classes", "source"}); !ok) return ok.error();
+        auto it = b.find("classes");
+        if (it == b.end() || !it->is_array()) return makeError("expected a list of hazard classes", join(path, "classes"));
+        for (std::size_t i = 0; i < it->size(); ++i) {
+            const std::string ip = join(path, "classes") + "[" + std::to_string(i) + "]";
+            const Json& v = (*it)[i];
+            std::optional<Hazard> h;
+            if (v.is_string())
+                for (const auto& [k, id] : kHazardIds)
+                    if (v.get_ref<const std::string&>() == id) h = k;
+            if (!h) {
+                std::string valid;
+                for (const auto& [k, id] : kHazardIds) {
+                    if (!valid.empty()) valid += ", ";
+                    valid += id;
+                }
+                return makeError("unknown hazard class " + v.dump() + "; valid: " + valid, ip);
+            }
+            if (std::find(s.hazards.begin(), s.hazards.end(), *h) == s.hazards.end()) s.hazards.push_back(*h);
+        }
+        addSource(s, b, "hazards", path, st);
         if (!st) return st.error();
     }
 

@@ -34,7 +34,8 @@ std::string readFile(const fs::path& p) {
     return ss.str();
 }
 
-const char* kSamples[] = {"melt-tank", "nitrogen-warmup", "compressor-aftercooler", "solvent-recovery", "boiler-feed"};
+const char* kSamples[] = {"melt-tank", "nitrogen-warmup", "compressor-aftercooler", "solvent-recovery", "boiler-feed",
+                          "ammonia-chiller"};
 
 }  // namespace
 
@@ -45,6 +46,10 @@ TEST(Cli, ComputesEverySampleAsATable) {
         EXPECT_NE(r.out.find("heating duty"), std::string::npos) << s;
         EXPECT_NE(r.out.find("licensed practice"), std::string::npos) << "caution shown for " << s;
     }
+    // The substance's hazards follow the general caution (library classes).
+    auto nh3 = run("compute " + sample("ammonia-chiller"));
+    EXPECT_NE(nh3.out.find("Caution - Ammonia: toxic by inhalation"), std::string::npos) << nh3.out;
+    EXPECT_EQ(run("compute " + sample("boiler-feed")).out.find("Caution -"), std::string::npos);
 }
 
 TEST(Cli, JsonHasTheContractKeys) {

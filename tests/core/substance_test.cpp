@@ -207,6 +207,9 @@ TEST(Substance, EveryErrorNamesItsJsonPath) {
         {"/pengRobinson", R"js({"volumeShift": "3 m3"})js", "substance.pengRobinson.volumeShift"},
         {"/source", R"js(12)js", "substance.source"},
         {"/colour", R"js("white")js", "substance.colour"},
+        {"/hazards", R"js({"classes": ["toxic", "explosive"]})js", "substance.hazards.classes[1]"},
+        {"/hazards", R"js({"classes": "toxic"})js", "substance.hazards.classes"},
+        {"/hazards", R"js({"clases": ["toxic"]})js", "substance.hazards.clases"},
     };
     for (const auto& c : cases) {
         auto j = Json::parse(kTestWax);
@@ -282,6 +285,33 @@ TEST(SubstanceLibrary, EveryBlockCarriesItsSource) {
             }
         }
     }
+}
+
+// Hazard classes: parsed from the file's spelling, each with its caution
+// clause; the library marks the substances a safety data sheet would
+// (ammonia toxic, corrosive and flammable; oxygen an oxidiser; water none).
+TEST(Substance, HazardsParseAndReadAsCautions) {
+    auto j = Json::parse(kTestWax);
+    j["hazards"] = Json::parse(R"js({"classes": ["flammable", "toxic", "flammable"], "source": "test"})js");
+    auto s = parseSubstance(j, "substance");
+    ASSERT_TRUE(s.ok()) << s.error().text();
+    ASSERT_EQ(s->hazards.size(), 2u);  // a repeated class once
+    EXPECT_EQ(s->hazards[0], Hazard::Flammable);
+    EXPECT_EQ(s->hazards[1], Hazard::Toxic);
+    const std::string line = hazardSentence(*s);
+    EXPECT_EQ(line.rfind(s->name + ": flammable", 0), 0u) << line;
+    EXPECT_NE(line.find("toxic by inhalation"), std::string::npos) << line;
+    for (Hazard h : {Hazard::Toxic, Hazard::Corrosive, Hazard::Flammable, Hazard::Asphyxiant, Hazard::Oxidiser,
+                     Hazard::Carcinogen}) {
+        EXPECT_FALSE(hazardId(h).empty());
+        EXPECT_EQ(hazardCaution(h).rfind(std::string(hazardId(h)), 0), 0u) << hazardId(h);
+    }
+    const auto& lib = SubstanceLibrary::builtin();
+    const std::vector<Hazard> nh3 = {Hazard::Toxic, Hazard::Corrosive, Hazard::Flammable};
+    EXPECT_EQ(lib.find("ammonia")->hazards, nh3);
+    EXPECT_EQ(lib.find("oxygen")->hazards, std::vector<Hazard>{Hazard::Oxidiser});
+    EXPECT_TRUE(lib.find("water")->hazards.empty());
+    EXPECT_TRUE(hazardSentence(*lib.find("water")).empty());
 }
 
 }  // namespace

@@ -27,7 +27,8 @@ using heatchain::testing::runCommand;
 
 namespace {
 
-const char* kSamples[] = {"melt-tank", "nitrogen-warmup", "compressor-aftercooler", "solvent-recovery", "boiler-feed"};
+const char* kSamples[] = {"melt-tank", "nitrogen-warmup", "compressor-aftercooler", "solvent-recovery", "boiler-feed",
+                          "ammonia-chiller"};
 
 std::string sample(const std::string& name) {
     return std::string(HEATCHAIN_SOURCE_DIR) + "/sample-projects/" + name + ".hchain";
@@ -155,6 +156,14 @@ TEST(Report, HazardsFollowTheConditions) {
     EXPECT_EQ(b.find("Cryogenic temperatures"), std::string::npos);
     EXPECT_NE(b.find("Steam and hot surfaces"), std::string::npos);
     EXPECT_NE(b.find("High pressure"), std::string::npos);
+    // The substance's own hazards (library "hazards" classes): ammonia is
+    // toxic, corrosive and flammable; water has none to add.
+    const fs::path nh3 = scratch("nh3.pdf");
+    ASSERT_EQ(runCommand(cli("report " + sample("ammonia-chiller") + " -o " + nh3.string())).exit, 0);
+    const std::string c = squeeze(pdfText(nh3, false));
+    EXPECT_NE(c.find("Ammonia: toxic by inhalation"), std::string::npos);
+    EXPECT_NE(c.find("flammable"), std::string::npos);
+    EXPECT_EQ(b.find("toxic by inhalation"), std::string::npos);
 }
 
 TEST(Report, PageSizes) {

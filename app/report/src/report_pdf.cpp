@@ -96,6 +96,7 @@ QStringList cautionLines(const Project& project, const SequenceResult& r) {
     lines << QStringLiteral(
         "Heatchain computes idealised process paths. Pressure equipment, steam, cryogens and hot surfaces are "
         "governed by local codes and licensed practice; have results checked by a qualified engineer.");
+    if (const std::string hz = hazardSentence(project.substance); !hz.empty()) lines << qs(hz);
     const Extremes e = extremes(project, r);
     if (e.Tmin < kCryogenicBelow_K)
         lines << QStringLiteral("Cryogenic temperatures: the material reaches %1. Cold burns and frostbite on "

@@ -47,6 +47,15 @@ struct SourceNote {
     std::string text;   // e.g. "Poling, Prausnitz & O'Connell, 5th ed., App. A"
 };
 
+// What can hurt people handling the substance, by the classes a safety data
+// sheet uses; qualitative only (the report and the CLI print a caution per
+// class and defer to the supplier's sheet and the applicable code).
+enum class Hazard { Toxic, Corrosive, Flammable, Asphyxiant, Oxidiser, Carcinogen };
+std::string_view hazardId(Hazard h);       // "toxic", "corrosive", ... (the file's spelling)
+std::string_view hazardCaution(Hazard h);  // one clause, lower case, for people
+// "Ammonia: toxic by inhalation: …; flammable: …." or empty when none.
+std::string hazardSentence(const struct Substance& s);
+
 struct Substance {
     std::string id;       // "water", "carbon-dioxide", or a custom id
     std::string name;     // "Water", "Carbon dioxide"
@@ -70,6 +79,8 @@ struct Substance {
     std::optional<double> solidDensity;   // kg/m3
 
     std::optional<PengRobinsonData> pengRobinson;
+
+    std::vector<Hazard> hazards;
 
     std::vector<SourceNote> sources;
 
