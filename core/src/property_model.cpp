@@ -5,6 +5,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
+#include <limits>
 #include <string>
 
 #include "numerics/root.hpp"
@@ -78,6 +80,50 @@ Phase mixturePhase(Transition t) {
         case Transition::Sublimation: return Phase::SolidVapor;
     }
     return Phase::LiquidVapor;
+}
+
+Result<State> PropertyModel::solveTemperatureInBracket(const std::function<Result<State>(double)>& at, Property which,
+                                                       double value, double Ta, double Tb, const State& sa,
+                                                       const State& sb, double bracketTol, double stepTol,
+                                                       std::string_view what, double P) {
+    double fa = propertyOf(sa, which) - value, fb = propertyOf(sb, which) - value;
+    if (fa == 0) return sa;
+    if (fb == 0) return sb;
+    double T = Ta - fa * (Tb - Ta) / (fb - fa);
+    double lastT = Ta, lastF = fa;
+    for (int it = 0; it < 100; ++it) {
+        if (!(T > Ta && T < Tb)) T = 0.5 * (Ta + Tb);
+        auto st = at(T);
+        if (!st) return st.error();
+        const double f = propertyOf(*st, which) - value;
+        if (f == 0 || (Tb - Ta) < bracketTol * Tb) return *st;
+        if ((f < 0) == (fa < 0)) {
+            Ta = T;
+            fa = f;
+        } else {
+            Tb = T;
+            fb = f;
+        }
+        double slope = std::numeric_limits<double>::quiet_NaN();
+        if (which == Property::Enthalpy) slope = st->cp;
+        else if (which == Property::Entropy) slope = st->cp / T;
+        if (!(slope > 0) || !std::isfinite(slope)) slope = (f - lastF) / (T - lastT);
+        double next = T - f / slope;
+        if (std::abs(next - T) < stepTol * T) {
+            if (next > Ta && next < Tb) {
+                auto fin = at(next);
+                if (fin) return fin;
+            }
+            return *st;
+        }
+        if (!(next > Ta && next < Tb)) next = 0.5 * (Ta + Tb);
+        lastT = T;
+        lastF = f;
+        T = next;
+    }
+    char p[32];
+    std::snprintf(p, sizeof p, "%.6g", P);
+    return makeError("the " + std::string(what) + " state at P = " + p + " Pa did not converge");
 }
 
 double PropertyModel::propertyOf(const State& s, Property which) {

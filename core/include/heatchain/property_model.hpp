@@ -6,6 +6,7 @@
 // from those, and a model may override any of them with a faster or more
 // exact path (IF97's backward equations).
 #include <array>
+#include <functional>
 #include <memory>
 #include <string>
 #include <string_view>
@@ -100,6 +101,18 @@ public:
 protected:
     // Value of `which` in state s.
     static double propertyOf(const State& s, Property which);
+
+    // The temperature on one phase's isobar where `which` equals `value`, by
+    // a safeguarded Newton on T: `at(T)` gives the state, [Ta, Tb] holds the
+    // root (sa, sb are its end states); the slope is cp for h and cp/T for s,
+    // a secant for u and v; a step that leaves the bracket halves it instead.
+    // Converged when the bracket is narrower than bracketTol·T or a step
+    // smaller than stepTol·T; at most 100 steps, else an error naming `what`
+    // and P.
+    static Result<State> solveTemperatureInBracket(const std::function<Result<State>(double)>& at, Property which,
+                                                   double value, double Ta, double Tb, const State& sa,
+                                                   const State& sb, double bracketTol, double stepTol,
+                                                   std::string_view what, double P);
 };
 
 // The name of the substance's own reference-quality equation of state, when

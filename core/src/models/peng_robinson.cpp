@@ -692,39 +692,8 @@ Result<State> PengRobinsonModel::stateOnLineT(Transition t, double T, double fra
 
 Result<State> PengRobinsonModel::solveInPhase(Phase ph, double P, Property which, double value, double Ta, double Tb,
                                               const State& sa, const State& sb) const {
-    // Safeguarded Newton on T: for h and s the slope is cp and cp/T; for u
-    // and v a secant slope. The bracket [Ta, Tb] always holds the root.
-    double fa = propertyOf(sa, which) - value, fb = propertyOf(sb, which) - value;
-    if (fa == 0) return sa;
-    if (fb == 0) return sb;
-    double T = Ta - fa * (Tb - Ta) / (fb - fa);
-    double lastT = Ta, lastF = fa;
-    for (int it = 0; it < 100; ++it) {
-        if (!(T > Ta && T < Tb)) T = 0.5 * (Ta + Tb);
-        auto st = phaseState(ph, T, P);
-        if (!st) return st.error();
-        const double f = propertyOf(*st, which) - value;
-        if (f == 0 || (Tb - Ta) < 1e-12 * Tb) return *st;
-        if ((f < 0) == (fa < 0)) { Ta = T; fa = f; } else { Tb = T; fb = f; }
-        double slope = std::numeric_limits<double>::quiet_NaN();
-        if (which == Property::Enthalpy) slope = st->cp;
-        else if (which == Property::Entropy) slope = st->cp / T;
-        if (!(slope > 0) || !std::isfinite(slope)) slope = (f - lastF) / (T - lastT);
-        double next = T - f / slope;
-        if (std::abs(next - T) < 1e-11 * T) {
-            if (next > Ta && next < Tb) {
-                auto fin = phaseState(ph, next, P);
-                if (fin) return fin;
-            }
-            return *st;
-        }
-        // Halve the bracket when Newton leaves it or crawls.
-        if (!(next > Ta && next < Tb)) next = 0.5 * (Ta + Tb);
-        lastT = T;
-        lastF = f;
-        T = next;
-    }
-    return makeError("the real-fluid state at P = " + shortNumber(P) + " Pa did not converge");
+    return solveTemperatureInBracket([&](double T) { return phaseState(ph, T, P); }, which, value, Ta, Tb, sa, sb,
+                                     1e-12, 1e-11, "real-fluid", P);
 }
 
 Result<State> PengRobinsonModel::stateP(double P, Property which, double value) const {
