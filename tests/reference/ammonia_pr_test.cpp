@@ -24,23 +24,8 @@ namespace heatchain {
 namespace {
 
 // Each printed line: a key, then numbers (SI: K, Pa, J/kg, J/(kg K)).
-using Table = std::multimap<std::string, std::vector<double>>;
-
-Table parse(const std::string& out) {
-    Table t;
-    std::istringstream in(out);
-    std::string line;
-    while (std::getline(in, line)) {
-        std::istringstream ls(line);
-        std::string key;
-        ls >> key;
-        std::vector<double> v;
-        double x;
-        while (ls >> x) v.push_back(x);
-        if (!key.empty()) t.emplace(key, v);
-    }
-    return t;
-}
+using Table = testing::OracleRows;
+Table parse(const std::string& out) { return testing::parseOracleRows(out); }
 
 const char* kScript = R"PY(
 from iapws.ammonia import NH3

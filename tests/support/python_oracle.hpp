@@ -4,9 +4,12 @@
 // checks use it as an oracle from outside the project.
 #include <array>
 #include <cstdio>
+#include <map>
 #include <memory>
+#include <sstream>
 #include <stdexcept>
 #include <string>
+#include <vector>
 
 namespace heatchain::testing {
 
@@ -27,6 +30,25 @@ inline std::string runPython(const std::string& script) {
     while ((n = std::fread(buf.data(), 1, buf.size(), pipe.get())) > 0) out.append(buf.data(), n);
     std::remove(name);
     return out;
+}
+
+// An oracle script's output read as rows: each line a key, then numbers.
+using OracleRows = std::multimap<std::string, std::vector<double>>;
+
+inline OracleRows parseOracleRows(const std::string& out) {
+    OracleRows t;
+    std::istringstream in(out);
+    std::string line;
+    while (std::getline(in, line)) {
+        std::istringstream ls(line);
+        std::string key;
+        ls >> key;
+        std::vector<double> v;
+        double x;
+        while (ls >> x) v.push_back(x);
+        if (!key.empty()) t.emplace(key, v);
+    }
+    return t;
 }
 
 }  // namespace heatchain::testing
