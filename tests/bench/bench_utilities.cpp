@@ -7,11 +7,12 @@
 #include "heatchain/project_file.hpp"
 #include "heatchain/solver.hpp"
 #include "heatchain/sweep.hpp"
+#include "support/samples.hpp"
 
 namespace {
 
 heatchain::Project load(const char* name) {
-    auto p = heatchain::loadProject(std::string(HEATCHAIN_SOURCE_DIR) + "/sample-projects/" + name + ".hchain");
+    auto p = heatchain::loadProject(heatchain::testing::samplePath(name));
     return p ? *p : heatchain::Project{};
 }
 

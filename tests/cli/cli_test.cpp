@@ -14,6 +14,7 @@
 #include <nlohmann/json.hpp>
 
 #include "support/run_command.hpp"
+#include "support/samples.hpp"
 
 namespace fs = std::filesystem;
 
@@ -24,7 +25,7 @@ using Run = heatchain::testing::CommandRun;
 Run run(const std::string& args) { return heatchain::testing::runCommand(std::string(HEATCHAIN_CLI) + " " + args); }
 
 std::string sample(const std::string& name) {
-    return std::string(HEATCHAIN_SOURCE_DIR) + "/sample-projects/" + name + ".hchain";
+    return heatchain::testing::samplePath(name);
 }
 
 std::string readFile(const fs::path& p) {

@@ -16,6 +16,7 @@
 #include <nlohmann/json.hpp>
 
 #include "support/run_command.hpp"
+#include "support/samples.hpp"
 
 namespace fs = std::filesystem;
 
@@ -26,7 +27,7 @@ using Run = heatchain::testing::CommandRun;
 Run run(const std::string& args) { return heatchain::testing::runCommand(std::string(HEATCHAIN_CLI) + " " + args); }
 
 std::string sample(const std::string& name) {
-    return std::string(HEATCHAIN_SOURCE_DIR) + "/sample-projects/" + name + ".hchain";
+    return heatchain::testing::samplePath(name);
 }
 
 #define EXPECT_CONTAINS(hay, needle) EXPECT_NE(std::string(hay).find(needle), std::string::npos) << (hay)

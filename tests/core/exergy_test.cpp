@@ -13,6 +13,7 @@
 
 #include "heatchain/project_file.hpp"
 #include "heatchain/solver.hpp"
+#include "support/samples.hpp"
 
 using namespace heatchain;
 
@@ -74,7 +75,7 @@ void checkBalance(const Project& p, const SequenceResult& r, const std::string& 
 
 TEST(Exergy, BalanceOfEveryStepOfEverySample) {
     for (const char* name : {"melt-tank", "nitrogen-warmup", "compressor-aftercooler", "solvent-recovery", "boiler-feed"}) {
-        auto p = loadProject(std::string(HEATCHAIN_SOURCE_DIR) + "/sample-projects/" + name + ".hchain");
+        auto p = loadProject(heatchain::testing::samplePath(name));
         ASSERT_TRUE(p.ok()) << name << ": " << p.error().text();
         auto r = solve(*p);
         ASSERT_TRUE(r.ok()) << name << ": " << r.firstError()->text();

@@ -10,6 +10,7 @@
 
 #include "heatchain/project_file.hpp"
 #include "heatchain/solver.hpp"
+#include "support/samples.hpp"
 
 using namespace heatchain;
 
@@ -281,7 +282,7 @@ TEST(SolverLaws, RandomSequences) {
 // Every sample project computes and obeys the laws.
 TEST(SolverLaws, SampleProjects) {
     for (const char* name : {"melt-tank", "nitrogen-warmup", "compressor-aftercooler", "solvent-recovery", "boiler-feed"}) {
-        const std::string path = std::string(HEATCHAIN_SOURCE_DIR) + "/sample-projects/" + name + ".hchain";
+        const std::string path = heatchain::testing::samplePath(name);
         auto p = loadProject(path);
         ASSERT_TRUE(p.ok()) << name << ": " << p.error().text();
         auto r = solve(*p);

@@ -7,13 +7,14 @@
 
 #include "heatchain/project_file.hpp"
 #include "heatchain/sweep.hpp"
+#include "support/samples.hpp"
 
 using namespace heatchain;
 
 namespace {
 
 Project sample(const char* name) {
-    auto p = loadProject(std::string(HEATCHAIN_SOURCE_DIR) + "/sample-projects/" + name + ".hchain");
+    auto p = loadProject(heatchain::testing::samplePath(name));
     EXPECT_TRUE(p.ok()) << p.error().text();
     return *p;
 }

@@ -20,6 +20,7 @@
 #include "heatchain/project_file.hpp"
 #include "heatchain/units.hpp"
 #include "support/run_command.hpp"
+#include "support/samples.hpp"
 
 namespace fs = std::filesystem;
 using heatchain::testing::readWholeFile;
@@ -31,7 +32,7 @@ const char* kSamples[] = {"melt-tank", "nitrogen-warmup", "compressor-aftercoole
                           "ammonia-chiller"};
 
 std::string sample(const std::string& name) {
-    return std::string(HEATCHAIN_SOURCE_DIR) + "/sample-projects/" + name + ".hchain";
+    return heatchain::testing::samplePath(name);
 }
 
 std::string cli(const std::string& args) { return std::string(HEATCHAIN_CLI) + " " + args; }
