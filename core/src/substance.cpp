@@ -8,6 +8,7 @@
 #include <cmath>
 #include <initializer_list>
 #include <string>
+#include <utility>
 
 #include "heatchain/constants.hpp"
 #include "heatchain/embedded_resources.hpp"
@@ -274,13 +275,38 @@ Result<HeatCapacity> parseHeatCapacity(const Json& cp, const std::string& path, 
     return parseTable(cp, path, M, uc);
 }
 
+// "source": "citation", or { "text": "citation", "confirmed": false } for a
+// value not independently confirmed against the publication it cites.
 void addSource(Substance& s, const Json& block, std::string_view field, std::string_view where, Status& st) {
+    auto it = block.find("source");
+    if (it != block.end() && it->is_object()) {
+        const std::string path = join(where, "source");
+        if (auto ok = checkKeys(*it, path, {"text", "confirmed"}); !ok) {
+            st = ok.error();
+            return;
+        }
+        auto text = stringAt(*it, "text", path, true);
+        if (!text) {
+            st = text.error();
+            return;
+        }
+        bool confirmed = true;
+        if (auto c = it->find("confirmed"); c != it->end()) {
+            if (!c->is_boolean()) {
+                st = makeError("must be true or false", join(path, "confirmed"));
+                return;
+            }
+            confirmed = c->get<bool>();
+        }
+        s.sources.push_back({std::string(field), *text, confirmed});
+        return;
+    }
     auto src = stringAt(block, "source", where, false);
     if (!src) {
         st = src.error();
         return;
     }
-    if (!src->empty()) s.sources.push_back({std::string(field), *src});
+    if (!src->empty()) s.sources.push_back({std::string(field), *src, true});
 }
 
 Result<PhaseChangeData> parsePhaseChange(const Json& block, const std::string& path, bool allowEnthalpyAt,
@@ -379,6 +405,19 @@ std::string_view hazardCaution(Hazard h) {
             return "carcinogen: keep exposure as low as practicable under the occupational-health rules";
     }
     return "";
+}
+
+std::string sourceFieldLabel(std::string_view field) {
+    static constexpr std::pair<std::string_view, std::string_view> kLabels[] = {
+        {"substance", "Substance"},          {"molarMass", "Molar mass"},
+        {"critical", "Critical point"},      {"triple", "Triple point"},
+        {"melting", "Melting"},              {"boiling", "Boiling"},
+        {"sublimation", "Sublimation"},      {"phases.solid", "Solid phase"},
+        {"phases.liquid", "Liquid phase"},   {"phases.vapor", "Vapour (ideal gas)"},
+        {"pengRobinson", "Peng-Robinson refinements"}, {"hazards", "Hazard classes"}};
+    for (const auto& [key, label] : kLabels)
+        if (key == field) return std::string(label);
+    return std::string(field);
 }
 
 std::string hazardSentence(const Substance& s) {

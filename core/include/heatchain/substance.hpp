@@ -45,7 +45,14 @@ struct PengRobinsonData {
 struct SourceNote {
     std::string field;  // e.g. "critical", "cp.vapor", "melting"
     std::string text;   // e.g. "Poling, Prausnitz & O'Connell, 5th ed., App. A"
+    // False when the value was typed from the cited publication without a
+    // second check against it or against a reference equation: the report
+    // says "not independently confirmed" beside it.
+    bool confirmed = true;
 };
+// "Critical point", "Liquid phase", ... for a SourceNote::field; the field
+// itself when it is not one the library uses.
+std::string sourceFieldLabel(std::string_view field);
 
 // What can hurt people handling the substance, by the classes a safety data
 // sheet uses; qualitative only (the report and the CLI print a caution per
