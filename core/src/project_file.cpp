@@ -38,6 +38,7 @@
 
 #include "atomic_save_faults.hpp"
 #include "json_locations.hpp"
+#include "heatchain/tolerance.hpp"
 
 namespace heatchain {
 
@@ -170,9 +171,9 @@ public:
                            std::string(displayExample(d)) + "\"; found " + found);
         }
         const std::string& text = v.get_ref<const std::string&>();
-        auto si = parseQuantity(text, d, units);
+        auto si = parseToleranced(text, d, units);  // the tolerance, if any, stays in the text
         if (!si) fail(path, si.error().message);
-        return Quantity{text, *si};
+        return Quantity{text, si->si};
     }
 
     std::optional<Quantity> optionalQuantity(const Json& obj, const JsonPath& path, std::string_view key,
@@ -190,9 +191,9 @@ public:
             return Number{v, x, typedNumber(path, x)};
         }
         if (v.is_string()) {
-            auto x = parseQuantity(v.get_ref<const std::string&>(), Dimension::Dimensionless, units);
+            auto x = parseToleranced(v.get_ref<const std::string&>(), Dimension::Dimensionless, units);
             if (!x) fail(path, x.error().message);
-            return Number{v, *x, {}};
+            return Number{v, x->si, {}};
         }
         fail(path, "expected a number; found " + jsonTypeName(v));
     }
