@@ -436,7 +436,7 @@ Result<Substance> parseImpl(const Json& j, std::string_view where, const UnitCon
     if (!j.is_object()) return makeError("a substance must be a JSON object", std::string(where));
     if (auto ok = checkKeys(j, where,
                             {"id", "name", "formula", "cas", "molarMass", "critical", "triple", "melting", "boiling",
-                             "sublimation", "phases", "pengRobinson", "hazards", "source"});
+                             "sublimation", "phases", "pengRobinson", "hazards", "source", "uncertainty"});
         !ok)
         return ok.error();
     Substance s;
