@@ -9,6 +9,7 @@ heatchain_packages=(
   build-essential cmake qt6-base-dev libqt6opengl6-dev qt6-charts-dev qt6-svg-dev
   libeigen3-dev nlohmann-json3-dev libgtest-dev libgmock-dev libbenchmark-dev
   xvfb xauth imagemagick poppler-utils fonts-dejavu-core python3-iapws python3-pint
+  python3-uncertainties
   clang libclang-rt-14-dev clang-tidy
 )
 
