@@ -7,6 +7,7 @@
 #include <functional>
 
 #include "heatchain/project_file.hpp"
+#include "heatchain/uncertainty.hpp"
 
 namespace heatchain {
 
@@ -232,8 +233,12 @@ Result<SweepResult> sweep(const Project& project, const SweepSpec& spec, const S
     } catch (const std::exception& e) {
         return makeError(std::string("cannot prepare the sweep: ") + e.what(), "sweep");
     }
-    for (int k = 0; k < spec.points; ++k) {
-        SweepPoint pt;
+    // The points are independent: they are solved on every core, each into
+    // its own slot, so the result is in input order whatever the threads.
+    result.points.resize(static_cast<std::size_t>(spec.points));
+    parallelFor(result.points.size(), spec.threads, [&](std::size_t idx) {
+        const int k = static_cast<int>(idx);
+        SweepPoint& pt = result.points[idx];
         pt.x = *x0 + (*x1 - *x0) * double(k) / double(spec.points - 1);
         if (k == spec.points - 1) pt.x = *x1;
         Json value;
@@ -255,8 +260,7 @@ Result<SweepResult> sweep(const Project& project, const SweepSpec& spec, const S
             e.message = "at " + spec.input + " = " + pt.text + ": " + e.message;
             pt.error = e;
             pt.values.assign(chosen.size(), std::nullopt);
-            result.points.push_back(std::move(pt));
-            continue;
+            return;
         }
         const SequenceResult r = solve(*p, *model, options);
         for (const auto& s : r.steps)
@@ -268,8 +272,7 @@ Result<SweepResult> sweep(const Project& project, const SweepSpec& spec, const S
         } else {
             for (const auto* d : chosen) pt.values.push_back(d->get(r));
         }
-        result.points.push_back(std::move(pt));
-    }
+    });
     return result;
 }
 

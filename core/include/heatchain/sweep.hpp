@@ -25,6 +25,7 @@ struct SweepSpec {
     int points = 11;       // ≥ 2; limited to kMaxSweepPoints
     // Output keys (see sweepOutputKeys); empty: the default set.
     std::vector<std::string> outputs;
+    unsigned threads = 0;  // points solved at once; 0: every core (the result is the same)
 };
 
 inline constexpr int kMaxSweepPoints = 10000;
