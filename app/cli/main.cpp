@@ -18,8 +18,10 @@
 #include "heatchain/solver.hpp"
 #include "heatchain/substance.hpp"
 #include "heatchain/sweep.hpp"
+#include "heatchain/uncertainty.hpp"
 #include "heatchain/units.hpp"
 #include "ledger_text.hpp"
+#include "uncertainty_text.hpp"
 
 #ifdef HEATCHAIN_HAVE_REPORT
 #include "heatchain/report.hpp"
@@ -34,6 +36,7 @@ constexpr int kDone = 0, kUsage = 2, kInvalid = 3, kCannotCompute = 4;
 const char* kUsageText =
     "usage:\n"
     "  heatchain-cli compute PROJECT [--json | --csv] [-o FILE]\n"
+    "                        [--uncertainty [linear|montecarlo] [--samples N] [--seed S] [--contributions OUTPUT]]\n"
     "  heatchain-cli report  PROJECT -o REPORT.pdf [--page A4|letter]\n"
     "  heatchain-cli chart   PROJECT --ts|--tq -o FILE.svg|FILE.png\n"
     "  heatchain-cli diff    BEFORE AFTER [--json]\n"
@@ -76,9 +79,14 @@ Result<Args> parseArgs(int argc, char** argv, int from) {
     for (int i = from; i < argc; ++i) {
         std::string s = argv[i];
         if (s == "-o" || s == "--output" || s == "--model" || s == "--page" || s == "--step" || s == "--input" ||
-            s == "--from" || s == "--to" || s == "--points" || s == "--outputs") {
+            s == "--from" || s == "--to" || s == "--points" || s == "--outputs" || s == "--samples" || s == "--seed" ||
+            s == "--contributions") {
             if (i + 1 >= argc) return makeError(s + " needs a value");
             a.options[s == "--output" ? "-o" : s] = argv[++i];
+        } else if (s == "--uncertainty") {  // the method is optional
+            const std::string next = i + 1 < argc ? argv[i + 1] : "";
+            const bool method = next == "linear" || next == "montecarlo";
+            a.options[s] = method ? argv[++i] : "linear";
         } else if (s.rfind("--", 0) == 0) {
             a.options[s] = "";
         } else {
@@ -92,9 +100,13 @@ int compute(const Args& a, bool checkOnly) {
     if (a.positional.size() != 1) return usage("expected one PROJECT file");
     const bool json = a.options.count("--json"), csv = a.options.count("--csv");
     for (const auto& [k, v] : a.options)
-        if (k != "--json" && k != "--csv" && k != "-o") return usage("unknown option " + k);
+        if (k != "--json" && k != "--csv" && k != "-o" && !cli::isUncertaintyOption(k))
+            return usage("unknown option " + k);
     if (json && csv) return usage("--json and --csv exclude each other");
     if (checkOnly && (json || csv || a.options.count("-o"))) return usage("check takes no output options");
+    auto uncertainty = cli::uncertaintyOptions(a.options);
+    if (!uncertainty) return usage(uncertainty.error().message);
+    if (*uncertainty && (csv || checkOnly)) return usage("--uncertainty goes with --json or the text ledger");
     auto project = loadProject(a.positional[0]);
     if (!project) {
         std::cerr << "heatchain-cli: " << project.error().text() << "\n";
@@ -115,10 +127,25 @@ int compute(const Args& a, bool checkOnly) {
     }
     std::optional<std::string> out;
     if (auto it = a.options.find("-o"); it != a.options.end()) out = it->second;
+    std::optional<UncertaintyResult> unc;
+    if (*uncertainty && !err) {
+        auto u = propagateUncertainty(*project, **uncertainty);
+        if (!u) {
+            std::cerr << "heatchain-cli: " << a.positional[0] << ": uncertainty: " << u.error().text() << "\n";
+            return kCannotCompute;
+        }
+        unc = std::move(*u);
+    }
     std::string text;
-    if (json) text = resultsToJson(*project, result).dump(2) + "\n";
-    else if (csv) text = resultsToCsv(*project, result);
-    else text = cli::ledgerText(*project, result);
+    if (json) {
+        Json j = resultsToJson(*project, result);
+        if (unc) j["uncertainty"] = uncertaintyJson(*unc);
+        text = j.dump(2) + "\n";
+    } else if (csv) {
+        text = resultsToCsv(*project, result);
+    } else {
+        text = cli::ledgerText(*project, result) + (unc ? cli::uncertaintyText(*project, *unc) : "");
+    }
     int rc = emit(text, out);
     if (err) {
         std::cerr << "heatchain-cli: " << a.positional[0] << ": " << err->text() << "\n";
