@@ -15,7 +15,7 @@ using namespace heatchain;
 TEST(UncertaintyReference, FirstOrderMatchesPythonUncertainties) {
     // An invented constant-cp liquid (test data): its stated model uncertainty
     // of 1.5 % in enthalpy differences is cp's relative uncertainty here.
-    const char* text = R"({ "format": "heatchain-project", "version": 1, "system": "steady-flow",
+    const char* text = R"js({ "format": "heatchain-project", "version": 1, "system": "steady-flow",
       "model": "constant-cp",
       "substance": { "id": "test-liquid", "name": "Test liquid", "molarMass": "0.030 kg/mol",
                      "source": "invented test data",
@@ -25,7 +25,7 @@ TEST(UncertaintyReference, FirstOrderMatchesPythonUncertainties) {
       "basis": { "massFlow": "7.5 t/h ± 3 %" },
       "start": { "T": "15 degC ± 0.4 K", "P": "2 bar" },
       "steps": [ { "id": "warm", "kind": "heat", "to": { "T": "95 degC ± 1.2 K rect" } } ],
-      "uncertainty": { "models": true } })";
+      "uncertainty": { "models": true } })js";
     auto p = parseProject(text);
     ASSERT_TRUE(p.ok()) << p.error().text();
     auto r = propagateUncertainty(*p);
