@@ -95,12 +95,12 @@ struct Collector {
     }
     // A quantity: temperatures, pressures and amounts are positive.
     void quantity(const std::string& path, const std::optional<Quantity>& q, Dimension d,
-                  std::function<Quantity*(Project&)> at, bool positive = true) {
+                  const std::function<Quantity*(Project&)>& at, bool positive = true) {
         if (!q) return;
         add(path, q->text, d, q->si, [at](Project& x) { return &at(x)->si; }, positive ? 0.0 : -kInf, positive,
             kInf, false);
     }
-    void number(const std::string& path, const std::optional<Number>& n, std::function<Number*(Project&)> at,
+    void number(const std::string& path, const std::optional<Number>& n, const std::function<Number*(Project&)>& at,
                 double lo, bool loOpen, double hi, bool hiOpen) {
         if (!n || !n->raw.is_string()) return;
         add(path, n->raw.get<std::string>(), Dimension::Dimensionless, n->value,
@@ -444,6 +444,7 @@ Result<UncertaintyResult> propagateUncertainty(const Project& project, const Unc
 
     const Evaluator eval(project, *model, slots, outs);
     std::vector<double> x0;
+    x0.reserve(slots.size());
     for (const auto& s : slots) x0.push_back(s.in.model ? 0.0 : s.in.value);
     const Evaluation e0 = eval(x0);
     if (e0.failure) return makeError(*e0.failure, "uncertainty");

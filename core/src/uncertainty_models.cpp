@@ -72,11 +72,13 @@ Result<std::optional<ModelUncertainty>> customStatement(const Project& p) {
         }
         if (key != "h" && key != "cp")
             return makeError("unknown field \"" + key + "\"; expected h, cp, source", where);
-        if (!f->is_string()) return makeError("must be a percentage such as \"1 %\"", where + "." + key);
+        std::string field = where;
+        field += '.';
+        field += key;
+        if (!f->is_string()) return makeError("must be a percentage such as \"1 %\"", field);
         auto v = parseQuantity(f->get<std::string>(), Dimension::Dimensionless);
         if (!v || !(*v >= 0) || *v >= 1)
-            return makeError("must be a percentage from 0 to 100 % such as \"1 %\"; found " + f->dump(),
-                             where + "." + key);
+            return makeError("must be a percentage from 0 to 100 % such as \"1 %\"; found " + f->dump(), field);
         (key == "h" ? m.h : m.cp) = *v;
     }
     if (m.source.empty()) return makeError("needs a \"source\" saying where the figures come from", where);
