@@ -358,7 +358,8 @@ int substances(const Args& a) {
             if (s.boiling) j["boiling"] = {{"T_K", s.boiling->T}, {"P_Pa", s.boiling->P}, {"enthalpy_J_per_kg", s.boiling->enthalpy}};
             if (s.melting) j["melting"] = {{"T_K", s.melting->T}, {"P_Pa", s.melting->P}, {"enthalpy_J_per_kg", s.melting->enthalpy}};
             Json src = Json::array();
-            for (const auto& n : s.sources) src.push_back({{"field", n.field}, {"source", n.text}});
+            for (const auto& n : s.sources)
+                src.push_back({{"field", n.field}, {"source", n.text}, {"confirmed", n.confirmed}});
             j["sources"] = src;
             arr.push_back(j);
         }

@@ -637,7 +637,9 @@ void MainWindow::showAbout() {
     }
     html += tr("<h4>Substance data: %1</h4><ul>").arg(qs(p.substance.name).toHtmlEscaped());
     for (const SourceNote& n : p.substance.sources)
-        html += QStringLiteral("<li><b>%1</b>: %2</li>").arg(qs(n.field).toHtmlEscaped(), qs(n.text).toHtmlEscaped());
+        html += QStringLiteral("<li><b>%1</b>: %2%3</li>")
+                    .arg(qs(sourceFieldLabel(n.field)).toHtmlEscaped(), qs(n.text).toHtmlEscaped(),
+                         n.confirmed ? QString() : tr(" (not independently confirmed)"));
     if (p.substance.sources.empty()) html += tr("<li>no sources recorded</li>");
     html += QStringLiteral("</ul>");
     QMessageBox box(this);

@@ -277,11 +277,30 @@ void writeContent(Layout& L, const Content& c) {
         }
         L.keyValues(rows, L.mm(45), body);
         if (!sub.sources.empty()) {
-            L.subheading(QStringLiteral("Published sources of the substance data"), L.mm(10));
+            // A project's own substance cites whatever its author typed; only
+            // the built-in library's are published sources.
+            L.subheading(sub.custom ? QStringLiteral("Sources of the substance data, as given in the project file")
+                                    : QStringLiteral("Published sources of the substance data"),
+                         L.mm(10));
             std::vector<TableRow> srcRows;
-            for (const SourceNote& n : sub.sources) srcRows.push_back({{qs(n.field), qs(n.text)}});
+            bool anyUnconfirmed = false;
+            for (const SourceNote& n : sub.sources) {
+                QString text = qs(n.text);
+                if (!n.confirmed) {
+                    text += text.endsWith(QLatin1Char('.')) ? QStringLiteral(" Not independently confirmed.")
+                                                             : QStringLiteral(". Not independently confirmed.");
+                    anyUnconfirmed = true;
+                }
+                srcRows.push_back({{qs(sourceFieldLabel(n.field)), text}});
+            }
             L.table({{QStringLiteral("Data"), {}, 1.0}, {QStringLiteral("Source"), {}, 4.0}}, srcRows, 8,
                     QStringLiteral("Sources, continued"));
+            if (anyUnconfirmed)
+                L.paragraph(QStringLiteral("Values marked “not independently confirmed” were taken from the "
+                                           "publication named and have not been checked a second time, against it or "
+                                           "against a reference equation. Confirm them before relying on a result "
+                                           "that depends on them."),
+                            small, view::ink::text());
         }
         if (!r.warnings.empty()) {
             L.subheading(QStringLiteral("Notes on the model"), L.mm(6));
