@@ -48,7 +48,8 @@ std::string describeWarnings(std::uint32_t flags) {
         {WarnMetastable, "metastable state (beyond the equilibrium phase boundary)"},
         {WarnNearCritical, "near the critical point, where this model is least accurate"},
         {WarnIdealGasAtHighPressure,
-         "ideal-gas vapour at a pressure where real-gas effects exceed a few percent; consider the real-fluid model"},
+         "ideal-gas vapour where real-gas effects exceed about 2 % (compressibility factor from the generalised "
+         "virial correlation, or a latent heat off Watson's relation by over 5 %); consider the real-fluid model"},
         {WarnCubicFallback, "the cubic equation of state had no root for this phase; a fallback was used"},
         {WarnMeltingLineApprox, "melting temperature taken as independent of pressure"},
     }};

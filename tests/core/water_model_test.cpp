@@ -8,6 +8,8 @@
 #include "heatchain/models/ice_ih.hpp"
 #include "heatchain/models/if97.hpp"
 #include "heatchain/models/water_model.hpp"
+#include "heatchain/project_file.hpp"
+#include "heatchain/solver.hpp"
 
 using namespace heatchain;
 
@@ -280,5 +282,77 @@ TEST(WaterModel, Region3InversionAroundTheDome) {
             EXPECT_NEAR(bs->T, T, 1e-7 * T) << P << " Pa " << T << " K";
             EXPECT_EQ(bh->source, s->source);
         }
+    }
+}
+
+// Saturated states above 16.5292 MPa (623.15 K, where the boiling line
+// enters IF97 region 3; R7-97(2012) Sec. 4) are equilibrium states: neither
+// the liquid nor the vapour end is metastable. Just off the line, the
+// wrong phase still is.
+TEST(WaterModel, SaturatedStatesInRegion3AreNotMetastable) {
+    auto m = water();
+    for (double P : {17e6, 20e6, 22e6}) {
+        for (double x : {0.0, 0.5, 1.0}) {
+            auto s = m->stateOnLineP(Transition::Boiling, P, x);
+            ASSERT_TRUE(s.ok()) << P;
+            EXPECT_GT(s->T, if97::T13);
+            EXPECT_FALSE(s->warnings & WarnMetastable) << P << " Pa, x = " << x;
+        }
+        const double Ts = if97::saturationTemperature(P);
+        auto superheatedLiquid = m->phaseState(Phase::Liquid, Ts + 0.2, P);
+        if (superheatedLiquid) {
+            EXPECT_TRUE(superheatedLiquid->warnings & WarnMetastable) << P;
+        }
+        auto subcooledVapour = m->phaseState(Phase::Vapor, Ts - 0.2, P);
+        if (subcooledVapour) {
+            EXPECT_TRUE(subcooledVapour->warnings & WarnMetastable) << P;
+        }
+    }
+}
+
+// Liquid water on the melting line (one atmosphere: 273.152519 K, IAPWS
+// R14-08(2011) melting curve of ice Ih) is in equilibrium with ice, not
+// supercooled; 0.1 K colder it is.
+TEST(WaterModel, LiquidOnTheMeltingLineIsNotMetastable) {
+    auto m = water();
+    auto Tm = m->transitionTemperature(Transition::Melting, 101325);
+    ASSERT_TRUE(Tm.ok());
+    EXPECT_NEAR(*Tm, 273.152519, 2e-6);
+    auto melted = m->stateOnLineP(Transition::Melting, 101325, 1.0);
+    ASSERT_TRUE(melted.ok());
+    EXPECT_FALSE(melted->warnings & WarnMetastable) << describeWarnings(melted->warnings);
+    auto half = m->stateOnLineP(Transition::Melting, 101325, 0.5);
+    ASSERT_TRUE(half.ok());
+    EXPECT_FALSE(half->warnings & WarnMetastable);
+    for (double P : {611.657 * 2, 1e6, 50e6, 150e6}) {
+        auto T = m->transitionTemperature(Transition::Melting, P);
+        ASSERT_TRUE(T.ok());
+        auto l = m->phaseState(Phase::Liquid, *T, P);
+        ASSERT_TRUE(l.ok());
+        EXPECT_FALSE(l->warnings & WarnMetastable) << P;
+    }
+    auto colder = m->phaseState(Phase::Liquid, *Tm - 0.1, 101325);
+    ASSERT_TRUE(colder.ok());
+    EXPECT_TRUE(colder->warnings & WarnMetastable);
+}
+
+// Ice melted at one atmosphere and the water then warmed: neither the melt
+// step nor the heating after it calls any state metastable (the melted
+// liquid sits on the IAPWS R14-08 melting line, in equilibrium with ice).
+TEST(WaterModel, MeltThenHeatCarriesNoMetastableFlag) {
+    const std::string text = R"({ "format": "heatchain-project", "version": 1, "meta": { "title": "t" },
+  "system": "closed", "model": "reference", "substance": "water", "basis": { "mass": "1 kg" },
+  "start": { "T": "-5 degC", "P": "1 atm" }, "steps": [
+    { "id": "warm-ice", "kind": "heat", "to": { "T": "0 degC" } },
+    { "id": "melt", "kind": "melt" },
+    { "id": "warm", "kind": "heat", "to": { "T": "20 degC" } } ] })";
+    auto p = parseProject(text, "melt.hchain");
+    ASSERT_TRUE(p.ok()) << p.error().text();
+    auto r = solve(*p);
+    ASSERT_EQ(r.steps.size(), 3u);
+    for (const auto& s : r.steps) {
+        ASSERT_TRUE(s.computed) << s.id << ": " << (s.error ? s.error->text() : "");
+        EXPECT_FALSE(s.end.warnings & WarnMetastable) << s.id;
+        for (const auto& w : s.warnings) EXPECT_EQ(w.find("metastable"), std::string::npos) << s.id << ": " << w;
     }
 }

@@ -50,13 +50,21 @@ public:
     double entropy(double T) const;
 
     bool isConstant() const;
-    bool inRange(double T) const { return T >= Tmin() && T <= Tmax(); }
+    // Inside the stated range, with rangeEndTolerance at either end.
+    bool inRange(double T) const { return T >= Tmin() - rangeEndTolerance && T <= Tmax() + rangeEndTolerance; }
     double Tmin() const;
     double Tmax() const;
     double fitResidual() const { return fitResidual_; }  // J/(kg K), 0 unless fitted
     const std::vector<Piece>& pieces() const { return pieces_; }
 
     static constexpr double referenceTemperature = 298.15;
+    // Published cp tables and correlation ranges quote their temperatures to
+    // 0.01 K (a water table starting at the triple point, 273.16 K, while
+    // ice melts at 273.1525 K at one atmosphere). Within 0.01 K of an end, cp
+    // held at the end value differs from any continuation by less than the
+    // data's own uncertainty (liquid water: about 0.01 J/(kg K) in 4220), so
+    // such a state is not called extrapolated.
+    static constexpr double rangeEndTolerance = 0.01;  // K
 
 private:
     const Piece& pieceFor(double T) const;

@@ -9,6 +9,7 @@
 
 #include "heatchain/constants.hpp"
 #include "heatchain/latent_heat.hpp"
+#include "models/generalized_virial.hpp"
 
 namespace heatchain {
 namespace {
@@ -25,9 +26,12 @@ constexpr double kMaxPressure = 100e6;        // Pa
 // melting temperature is flagged (common practice: melting points move by
 // roughly 0.1–1 K per 10 MPa for most substances).
 constexpr double kMeltingLineSpan = 10e6;     // Pa
-// Share of the critical pressure above which an ideal-gas vapour is flagged
-// (common practice: compressibility departs from 1 by a few percent there).
-constexpr double kIdealGasPressureShare = 0.1;
+// An ideal-gas vapour is flagged where its compressibility factor, estimated
+// by the generalised virial correlation (generalized_virial.hpp), departs
+// from 1 by more than 2 %: there v, and h and s through their departures,
+// are off by about that much, which is larger than the uncertainty of the
+// heat-capacity data the model is built on (typically well under 1 %).
+constexpr double kIdealGasDeparture = 0.02;
 constexpr double kWatsonTolerance = 0.05;
 
 std::string fmt(double x, const char* unit) {
@@ -294,7 +298,7 @@ Status SimpleModel::build() {
     range_ = std::string(name()) + " model of " + sub_.name + ": incompressible solid and liquid";
     range_ += v_ > 0 ? " (v = " + fmt(v_, "m3/kg") + ")" : " (volume neglected: no density given)";
     range_ += ", ideal-gas vapour";
-    if (sub_.critical) range_ += " (flagged above " + fmt(kIdealGasPressureShare * sub_.critical->P / 1e6, "MPa") + ")";
+    if (sub_.critical) range_ += " (flagged where its compressibility factor departs from 1 by more than 2 %)";
     if (kind_ == ModelKind::ConstantCp) {
         std::string list;
         for (int p = 0; p < 3; ++p) {
@@ -417,7 +421,8 @@ Result<State> SimpleModel::phaseState(Phase phase, double T, double P) const {
     if (sub_.critical) {
         const double Tc = sub_.critical->T, Pc = sub_.critical->P;
         if (p == kVapor) {
-            if (P > kIdealGasPressureShare * Pc || departsFromWatson(T, P)) w |= WarnIdealGasAtHighPressure;
+            const double Z = detail::abbottCompressibility(T, P, Tc, Pc, sub_.critical->acentricFactor);
+            if (std::abs(Z - 1.0) > kIdealGasDeparture || departsFromWatson(T, P)) w |= WarnIdealGasAtHighPressure;
             if (std::abs(T / Tc - 1) < 0.05 && P > 0.5 * Pc) w |= WarnNearCritical;
         } else if (p == kLiquid) {
             if (T > Tc) w |= WarnAboveTemperatureRange;  // no liquid above the critical temperature

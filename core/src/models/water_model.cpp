@@ -322,7 +322,7 @@ Result<State> WaterReferenceModel::fluidState(Phase requested, double T, double 
         // melting and sublimation lines, and everywhere below the lowest
         // temperature of the melting curve.
         const bool supercooled = T < ice::kMeltTmin ||
-                                 (T < w::Tt && P <= ice::meltingPressure(T) * (1 + kLineSlack) &&
+                                 (T < w::Tt && P < ice::meltingPressure(T) * (1 - kLineSlack) &&
                                   P >= ice::sublimationPressure(T) * (1 - kLineSlack));
         const std::uint32_t extra = supercooled ? WarnMetastable : WarnNone;
         return done(w::region1(T, P), eq == Phase::Vapor ? Phase::Liquid : eq, kSrc1, extra);
@@ -342,7 +342,12 @@ Result<State> WaterReferenceModel::fluidState(Phase requested, double T, double 
         return done(w::region3(rho, T), eq, kSrc3);
     }
     const Phase ph = wantLiquid ? Phase::Liquid : (wantVapor ? Phase::Vapor : eq);
-    const bool meta = ph != eq;
+    // Metastable only when clearly across the boiling line: liquid below or
+    // vapour above the saturation pressure (region 4, eq. 30), with the same
+    // slack as below 623.15 K, so both ends of a saturated state are stable.
+    const double ps = w::saturationPressure(T);
+    const bool meta = (ph == Phase::Liquid && P < ps * (1 - kLineSlack)) ||
+                      (ph == Phase::Vapor && P > ps * (1 + kLineSlack));
     if (!w::region3Density(T, P, ph == Phase::Liquid ? w::Branch::Liquid : w::Branch::Vapor, rho))
         return makeError(std::string(phaseLabel(ph)) + " at " + fmt(T) + " K and " + fmt(P / 1e6) +
                          " MPa is past the IF97 region 3 spinodal: no such metastable state");

@@ -33,9 +33,10 @@
 //   anchor temperature on the vapour-pressure curve.
 // * The boiling line ends at the critical temperature when it is known; above
 //   Tc and Pc the phase is reported Supercritical (still an ideal gas, with a
-//   warning). Vapour above 0.1 Pc, and vapour near the dome where the model's
-//   latent heat departs from the Watson relation by more than 5 %, carry
-//   WarnIdealGasAtHighPressure.
+//   warning). Vapour whose compressibility factor, estimated by the
+//   generalised virial correlation, departs from 1 by more than 2 %, and
+//   vapour near the dome where the model's latent heat departs from the
+//   Watson relation by more than 5 %, carry WarnIdealGasAtHighPressure.
 #include <memory>
 
 #include "heatchain/property_model.hpp"
