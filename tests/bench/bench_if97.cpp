@@ -40,6 +40,13 @@ const std::vector<std::pair<double, double>> kIce = {{263.15, 101325}, {200, 1e6
 
 void If97Region1TP(benchmark::State& st) { cycle(st, kR1, [](double T, double P) { return if97::region1(T, P).h; }); }
 void If97Region2TP(benchmark::State& st) { cycle(st, kR2, [](double T, double P) { return if97::region2(T, P).h; }); }
+// h and s alone ("raw"): what a caller that needs only those two pays.
+void If97Region1HS(benchmark::State& st) {
+    cycle(st, kR1, [](double T, double P) { const auto r = if97::region1HS(T, P); return r.h + r.s; });
+}
+void If97Region2HS(benchmark::State& st) {
+    cycle(st, kR2, [](double T, double P) { const auto r = if97::region2HS(T, P); return r.h + r.s; });
+}
 void If97Region5TP(benchmark::State& st) { cycle(st, kR5, [](double T, double P) { return if97::region5(T, P).h; }); }
 void If97Saturation(benchmark::State& st) {
     cycle(st, kR1, [](double T, double P) { return if97::saturationPressure(T) + if97::saturationTemperature(P); });
@@ -77,6 +84,8 @@ void ModelWetPH(benchmark::State& st) {
 
 BENCHMARK(If97Region1TP);
 BENCHMARK(If97Region2TP);
+BENCHMARK(If97Region1HS);
+BENCHMARK(If97Region2HS);
 BENCHMARK(If97Region5TP);
 BENCHMARK(If97Saturation);
 BENCHMARK(IceIhTP);

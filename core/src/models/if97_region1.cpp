@@ -59,24 +59,30 @@ Props region1(double T, double P) {
     const detail::PowTable<-41, 17> py(y);
     // Sums of n x^I y^J weighted by the exponents; derivatives follow by
     // dividing by x or y (d/dpi of x^I is -I x^(I-1)).
-    double S = 0, SI = 0, SII = 0, SJ = 0, SJJ = 0, SIJ = 0;
-    for (const Term& t : kRegion1) {
-        const double v = t.n * px[t.I] * py[t.J];
-        S += v;
-        SI += t.I * v;
-        SII += t.I * (t.I - 1) * v;
-        SJ += t.J * v;
-        SJJ += t.J * (t.J - 1) * v;
-        SIJ += t.I * t.J * v;
-    }
+    const detail::SeriesSums m = detail::seriesSums(kRegion1, px, py);
     detail::Gamma G;
-    G.g = S;
-    G.gp = -SI / x;
-    G.gpp = SII / (x * x);
-    G.gt = SJ / y;
-    G.gtt = SJJ / (y * y);
-    G.gpt = -SIJ / (x * y);
+    G.g = m.S;
+    G.gp = -m.SI / x;
+    G.gpp = m.SII / (x * x);
+    G.gt = m.SJ / y;
+    G.gtt = m.SJJ / (y * y);
+    G.gpt = -m.SIJ / (x * y);
     return detail::propsFromGamma(T, P, pi, tau, G);
+}
+
+HS region1HS(double T, double P) {
+    const double pi = P / kPstar;
+    const double tau = kTstar / T;
+    const double y = tau - 1.222;
+    const detail::PowTable<0, 32> px(7.1 - pi);
+    const detail::PowTable<-41, 17> py(y);
+    double S, SJ;
+    detail::seriesSumsHS(kRegion1, px, py, S, SJ);
+    // Table 3: h = R T tau gamma_tau, s = R (tau gamma_tau − gamma),
+    // written as propsFromGamma writes them.
+    const double gt = SJ / y;
+    const double RT = R * T;
+    return {RT * tau * gt, R * (tau * gt - S)};
 }
 
 double region1T_ph(double P, double h) {

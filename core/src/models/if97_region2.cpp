@@ -80,29 +80,48 @@ Props evaluate(double T, double P, const Term (&res)[N], double n01, double n02)
     const double y = tau - 0.5;
     const detail::PowTable<0, MaxI> pp(pi);
     const detail::PowTable<0, MaxJ> py(y);
-    double S = 0, SI = 0, SII = 0, SJ = 0, SJJ = 0, SIJ = 0;
-    for (const Term& t : res) {
-        const double v = t.n * pp[t.I] * py[t.J];
-        S += v;
-        SI += t.I * v;
-        SII += t.I * (t.I - 1) * v;
-        SJ += t.J * v;
-        SJJ += t.J * (t.J - 1) * v;
-        SIJ += t.I * t.J * v;
-    }
-    G.g = g0 + S;
-    G.gp = 1.0 / pi + SI / pi;
-    G.gpp = -1.0 / (pi * pi) + SII / (pi * pi);
-    G.gt = g0t + SJ / y;
-    G.gtt = g0tt + SJJ / (y * y);
-    G.gpt = SIJ / (pi * y);
+    const detail::SeriesSums m = detail::seriesSums(res, pp, py);
+    G.g = g0 + m.S;
+    G.gp = 1.0 / pi + m.SI / pi;
+    G.gpp = -1.0 / (pi * pi) + m.SII / (pi * pi);
+    G.gt = g0t + m.SJ / y;
+    G.gtt = g0tt + m.SJJ / (y * y);
+    G.gpt = m.SIJ / (pi * y);
     return detail::propsFromGamma(T, P, pi, tau, G);
+}
+
+// h and s alone, written as evaluate() and propsFromGamma write them.
+template <std::size_t N, int MaxI, int MaxJ>
+HS evaluateHS(double T, double P, const Term (&res)[N], double n01, double n02) {
+    const double pi = P / kPstar;
+    const double tau = kTstar / T;
+    const detail::PowTable<-7, 3> pt(tau);
+    double g0 = std::log(pi), g0t = 0;
+    for (int i = 0; i < 9; ++i) {
+        const double n = i == 0 ? n01 : (i == 1 ? n02 : kIdeal[i].n);
+        const int J = kIdeal[i].J;
+        g0 += n * pt[J];
+        g0t += n * J * pt[J - 1];
+    }
+    const double y = tau - 0.5;
+    const detail::PowTable<0, MaxI> pp(pi);
+    const detail::PowTable<0, MaxJ> py(y);
+    double S, SJ;
+    detail::seriesSumsHS(res, pp, py, S, SJ);
+    const double g = g0 + S;
+    const double gt = g0t + SJ / y;
+    const double RT = R * T;
+    return {RT * tau * gt, R * (tau * gt - g)};
 }
 
 }  // namespace
 
 Props region2(double T, double P) {
     return evaluate<43, 24, 58>(T, P, kResidual, kIdeal[0].n, kIdeal[1].n);
+}
+
+HS region2HS(double T, double P) {
+    return evaluateHS<43, 24, 58>(T, P, kResidual, kIdeal[0].n, kIdeal[1].n);
 }
 
 Props region2Metastable(double T, double P) {

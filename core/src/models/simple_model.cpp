@@ -2,6 +2,8 @@
 
 #include <algorithm>
 #include <array>
+#include <atomic>
+#include <cstdint>
 #include <cmath>
 #include <cstdio>
 #include <optional>
@@ -69,7 +71,7 @@ public:
         double b = 0;  // entropy constant, J/(kg K)
     };
 
-    SimpleModel(Substance s, ModelKind kind) : sub_(std::move(s)), kind_(kind) {}
+    SimpleModel(Substance s, ModelKind kind) : sub_(std::move(s)), kind_(kind), id_(++modelCount) {}
 
     Status build();
 
@@ -88,6 +90,8 @@ public:
 
     Result<State> phaseState(Phase phase, double T, double P) const override;
     Result<Phase> stablePhase(double T, double P) const override;
+    Result<State> stateP(double P, Property which, double value) const override;
+    TransitionsAtPressure transitionsAt(double P) const override { return isobar(P).tr; }
     Result<double> transitionTemperature(Transition t, double P) const override;
     Result<double> transitionPressure(Transition t, double T) const override;
 
@@ -136,9 +140,31 @@ private:
     }
     // The latent-heat cross-check of a vapour state at (T, P) against Watson.
     bool departsFromWatson(double T, double P) const;
+    // Whether (T, P) is on the condensed side of the line between `lower`
+    // (solid or liquid) and the vapour whose temperatures span [lo, hi].
+    bool condensedSide(int lower, double T, double P, double lo, double hi) const;
+
+    // The phase-change ends of one isobar, kept per thread for the last
+    // pressure asked (an isobaric step asks hundreds of times at one P).
+    struct Isobar {
+        std::uint64_t model = 0;
+        double P = -1;
+        TransitionsAtPressure tr;
+        std::array<std::array<State, 2>, 2> ends;  // [transition][lower, upper phase]
+        bool ok = false;
+    };
+    const Isobar& isobar(double P) const;
+    // The state of phase `ph` at P where `which` equals `value`, starting
+    // from a state `from` of that phase on the same isobar; empty when it
+    // does not converge or leaves [Tmin, Tmax].
+    std::optional<State> invertOnIsobar(int p, double P, Property which, double value, const State& from,
+                                        double Tmin, double Tmax) const;
 
     Substance sub_;
     ModelKind kind_;
+    // Tells this model's cached isobar from another's (an address may be reused).
+    static inline std::atomic<std::uint64_t> modelCount{0};
+    std::uint64_t id_;
     std::array<PhaseData, 3> ph_;
     double R_ = 0;     // specific gas constant, J/(kg K)
     double v_ = 0;     // shared condensed specific volume, m3/kg
@@ -370,6 +396,21 @@ Result<double> SimpleModel::vapourLinePressure(int lower, double T) const {
     return P;
 }
 
+bool SimpleModel::condensedSide(int lower, double T, double P, double lo, double hi) const {
+    // F = g_lower − g_vapour rises with T on [lo, hi] (dF/dT = Δh/T > 0 there,
+    // which is how lo and hi were chosen), so T lies at or below the line
+    // temperature exactly when F(T) ≤ 0; the comparison allows F the
+    // round-off of the two Gibbs energies, so a state computed on the line
+    // counts as on it (the lower phase, as stablePhase promises). Outside
+    // [lo, hi] the answers are those of lineTemperature's end outcomes.
+    if (T > hi) return false;
+    const double t = T < lo ? lo : T;
+    const double gc = G(lower, t, P), gv = G(kVapor, t, P);
+    const double F = gc - gv;
+    if (T < lo) return !(F > 0);
+    return F <= 1e-12 * (std::abs(gc) + std::abs(gv));
+}
+
 bool SimpleModel::departsFromWatson(double T, double P) const {
     if (!hasWatson_ || T < boilLo_ || T > boilHi_) return false;
     auto Psat = vapourLinePressure(kLiquid, T);
@@ -534,6 +575,93 @@ Result<double> SimpleModel::transitionPressure(Transition t, double T) const {
     return makeError("unknown transition", sub_.id);
 }
 
+const SimpleModel::Isobar& SimpleModel::isobar(double P) const {
+    static thread_local Isobar c;
+    if (c.model == id_ && c.P == P) return c;
+    c.model = id_;
+    c.P = P;
+    c.tr = PropertyModel::transitionsAt(P);
+    c.ok = true;
+    for (int i = 0; i < c.tr.count; ++i) {
+        const auto& e = c.tr.entries[std::size_t(i)];
+        auto lo = phaseState(lowerPhase(e.kind), e.T, P);
+        auto up = phaseState(upperPhase(e.kind), e.T, P);
+        if (!lo || !up) {
+            c.ok = false;
+            break;
+        }
+        c.ends[std::size_t(i)] = {*lo, *up};
+    }
+    return c;
+}
+
+std::optional<State> SimpleModel::invertOnIsobar(int p, double P, Property which, double value, const State& from,
+                                                 double Tmin, double Tmax) const {
+    const HeatCapacity& cp = ph_[p].cp;
+    const bool byH = which == Property::Enthalpy;
+    double T;
+    if (cp.isConstant()) {
+        // Closed forms along an isobar: h − h_from = cp (T − T_from) and
+        // s − s_from = cp ln(T / T_from) for the incompressible phases and
+        // the ideal gas alike (simple_model.hpp).
+        const double c = cp.cp(from.T);
+        T = byH ? from.T + (value - from.h) / c : from.T * std::exp((value - from.s) / c);
+    } else {
+        // Newton on T with dh/dT = cp and ds/dT = cp/T, from the closed form
+        // with cp at the known state: two or three steps.
+        const double c0 = cp.cp(from.T);
+        T = byH ? from.T + (value - from.h) / c0 : from.T * std::exp((value - from.s) / c0);
+        for (int it = 0;; ++it) {
+            if (!(T > 0) || !std::isfinite(T) || it == kMaxIterations) return std::nullopt;
+            const double c = cp.cp(T);
+            const double f = (byH ? H(p, T, P) : S(p, T, P)) - value;
+            const double step = byH ? f / c : f * T / c;
+            T -= step;
+            if (std::abs(step) <= 1e-14 * T) break;
+        }
+    }
+    if (!(T >= Tmin && T <= Tmax)) return std::nullopt;
+    const Phase ph = p == kSolid ? Phase::Solid : (p == kLiquid ? Phase::Liquid : Phase::Vapor);
+    auto stable = stablePhase(T, P);
+    if (!stable) return std::nullopt;
+    const Phase label = (ph == Phase::Vapor && *stable == Phase::Supercritical) ? Phase::Supercritical : ph;
+    if (*stable != label) return std::nullopt;
+    auto st = phaseState(label, T, P);
+    if (!st) return std::nullopt;
+    return *st;
+}
+
+Result<State> SimpleModel::stateP(double P, Property which, double value) const {
+    // Along an isobar crossed by phase changes, the known ends of each
+    // change tell which phase (or mixture) holds `value`; the state inside
+    // a phase then follows in closed form (constant cp) or by Newton from
+    // the nearest end. Anything else — no phase change on the isobar, a
+    // value beyond the model's bounds, u or v — is the general walk's.
+    if ((which != Property::Enthalpy && which != Property::Entropy) || !(P > 0) || !std::isfinite(P) ||
+        !std::isfinite(value))
+        return PropertyModel::stateP(P, which, value);
+    const Isobar& c = isobar(P);
+    if (!c.ok || c.tr.count == 0) return PropertyModel::stateP(P, which, value);
+    auto phaseIndex = [](Phase ph) { return ph == Phase::Solid ? kSolid : (ph == Phase::Liquid ? kLiquid : kVapor); };
+    for (int i = 0; i < c.tr.count; ++i) {
+        const auto& e = c.tr.entries[std::size_t(i)];
+        const State& lo = c.ends[std::size_t(i)][0];
+        const State& up = c.ends[std::size_t(i)][1];
+        const double a = propertyOf(lo, which), b = propertyOf(up, which);
+        if (value < a) {
+            const double Tmin = i == 0 ? minTemperature() : c.tr.entries[std::size_t(i - 1)].T;
+            if (auto st = invertOnIsobar(phaseIndex(lowerPhase(e.kind)), P, which, value, lo, Tmin, e.T)) return *st;
+            return PropertyModel::stateP(P, which, value);
+        }
+        if (value <= b) return mix(lo, up, e.kind, b > a ? (value - a) / (b - a) : 0.0);
+    }
+    const auto& last = c.tr.entries[std::size_t(c.tr.count - 1)];
+    if (auto st = invertOnIsobar(phaseIndex(upperPhase(last.kind)), P, which, value,
+                                 c.ends[std::size_t(c.tr.count - 1)][1], last.T, maxTemperature()))
+        return *st;
+    return PropertyModel::stateP(P, which, value);
+}
+
 Result<Phase> SimpleModel::stablePhase(double T, double P) const {
     if (!std::isfinite(T) || !(T > 0)) return makeError("temperature " + fmt(T, "K") + " is not a positive number", sub_.id);
     if (!std::isfinite(P) || !(P > 0)) return makeError("pressure " + fmt(P, "Pa") + " is not a positive number", sub_.id);
@@ -548,20 +676,11 @@ Result<Phase> SimpleModel::stablePhase(double T, double P) const {
     };
 
     // Below the triple-point pressure (or with no liquid): solid or vapour.
-    if (s && v && (!l || (hasTriple_ && P < Pt_))) {
-        const auto r = lineTemperature(kSolid, kVapor, P, sublLo_, sublHi_);
-        if (r.outcome == LineOutcome::PressureBelowLine) return Phase::Vapor;
-        if (r.outcome == LineOutcome::PressureAboveLine) return T <= sublHi_ ? Phase::Solid : Phase::Vapor;
-        return T <= r.T ? Phase::Solid : Phase::Vapor;
-    }
+    if (s && v && (!l || (hasTriple_ && P < Pt_)))
+        return condensedSide(kSolid, T, P, sublLo_, sublHi_) ? Phase::Solid : Phase::Vapor;
     if (s && l && hasMelting_ && T <= Tm_) return Phase::Solid;
     if (!s && (sub_.melting && T <= sub_.melting->T)) return missing(kSolid);
-    if (l && v) {
-        const auto r = lineTemperature(kLiquid, kVapor, P, boilLo_, boilHi_);
-        if (r.outcome == LineOutcome::PressureBelowLine) return Phase::Vapor;
-        if (r.outcome == LineOutcome::PressureAboveLine) return T <= boilHi_ ? Phase::Liquid : Phase::Vapor;
-        return T <= r.T ? Phase::Liquid : Phase::Vapor;
-    }
+    if (l && v) return condensedSide(kLiquid, T, P, boilLo_, boilHi_) ? Phase::Liquid : Phase::Vapor;
     if (l) {
         if (sub_.boiling && T > sub_.boiling->T && P <= sub_.boiling->P) return missing(kVapor);
         return Phase::Liquid;

@@ -130,19 +130,18 @@ bool newtonOnIsobar(Eval eval, bool H, double value, double T, w::Props& out) {
     return false;
 }
 
-std::optional<State> directRegion1(double P, bool H, double value) {
+std::optional<State> directRegion1(double P, bool H, double value, double T0) {
     w::Props p;
-    const double T0 = H ? w::region1T_ph(P, value) : w::region1T_ps(P, value);
     if (!newtonOnIsobar([P](double T) { return w::region1(T, P); }, H, value, T0, p)) return std::nullopt;
     // Compressed liquid of region 1 (above the triple-point temperature,
     // so never supercooled): T ≤ 623.15 K and P above ps(T).
     if (!(p.T >= w::Tt && p.T <= w::T13) || P < w::saturationPressure(p.T) * (1 + kLineSlack)) return std::nullopt;
-    return labelledFluid(p, fluidPhase(p.T, P), kSrc1, p.T, P, WarnNone);
+    // Above ps(T) below the critical temperature: liquid, as fluidPhase says.
+    return labelledFluid(p, Phase::Liquid, kSrc1, p.T, P, WarnNone);
 }
 
-std::optional<State> directRegion2(double P, bool H, double value) {
+std::optional<State> directRegion2(double P, bool H, double value, double T0) {
     w::Props p;
-    const double T0 = H ? w::region2T_ph(P, value) : w::region2T_ps(P, value);
     if (!newtonOnIsobar([P](double T) { return w::region2(T, P); }, H, value, T0, p)) return std::nullopt;
     const double T = p.T;
     if (!(T >= w::Tt && T <= w::T25)) return std::nullopt;
@@ -154,7 +153,7 @@ std::optional<State> directRegion2(double P, bool H, double value) {
     return labelledFluid(p, fluidPhase(T, P), kSrc2, T, P, WarnNone);
 }
 
-std::optional<State> directRegion3(double P, bool H, double value) {
+std::optional<State> directRegion3(double P, bool H, double value, double T) {
     // Below the critical pressure, leave the neighbourhood of the two-phase
     // dome (p_3sat(h) or p_3sat(s), SR3-03 eqs. 10–11) to the general walk.
     // Eqs. 10–11 hold between the saturated liquid and vapour at 623.15 K;
@@ -169,7 +168,6 @@ std::optional<State> directRegion3(double P, bool H, double value) {
         }
     }
     double v = H ? w::region3v_ph(P, value) : w::region3v_ps(P, value);
-    double T = H ? w::region3T_ph(P, value) : w::region3T_ps(P, value);
     if (!(v > 0) || !(T > 0)) return std::nullopt;
     double rho = 1.0 / v;
     w::Props p;
@@ -198,17 +196,17 @@ std::optional<State> directState(double P, bool H, double value) {
     const double T1 = H ? w::region1T_ph(P, value) : w::region1T_ps(P, value);
     const double p623 = w::saturationPressureAt623();
     const double T1max = P <= p623 ? w::saturationTemperature(P) : w::T13;
-    if (T1 > w::Tt + margin && T1 < T1max - margin) return directRegion1(P, H, value);
+    if (T1 > w::Tt + margin && T1 < T1max - margin) return directRegion1(P, H, value, T1);
     if (P <= p623) {
         const double T2 = H ? w::region2T_ph(P, value) : w::region2T_ps(P, value);
-        if (T2 > T1max + margin && T2 < w::T25 - margin) return directRegion2(P, H, value);
+        if (T2 > T1max + margin && T2 < w::T25 - margin) return directRegion2(P, H, value, T2);
         return std::nullopt;
     }
     const double Tb = w::b23Temperature(P);
     const double T3 = H ? w::region3T_ph(P, value) : w::region3T_ps(P, value);
-    if (T3 > w::T13 + margin && T3 < Tb - margin) return directRegion3(P, H, value);
+    if (T3 > w::T13 + margin && T3 < Tb - margin) return directRegion3(P, H, value, T3);
     const double T2 = H ? w::region2T_ph(P, value) : w::region2T_ps(P, value);
-    if (T2 > Tb + margin && T2 < w::T25 - margin) return directRegion2(P, H, value);
+    if (T2 > Tb + margin && T2 < w::T25 - margin) return directRegion2(P, H, value, T2);
     return std::nullopt;
 }
 

@@ -46,6 +46,15 @@ struct Props {
 
 // ---- Forward equations ----------------------------------------------------
 Props region1(double T, double P);             // eq. 7, Table 2
+
+// Specific enthalpy and entropy alone (the sums the other properties need
+// are skipped): the same values as region1 / region2 give.
+struct HS {
+    double h = 0;  // J/kg
+    double s = 0;  // J/(kg K)
+};
+HS region1HS(double T, double P);
+HS region2HS(double T, double P);
 Props region2(double T, double P);             // eq. 15, Tables 10 and 11
 Props region2Metastable(double T, double P);   // eq. 18, Tables 16 and 17
 Props region3(double rho, double T);           // eq. 28, Table 30 (density input)
