@@ -4,6 +4,8 @@
 // 39) and a small power table so that no term calls std::pow.
 #include <cmath>
 #include <cstddef>
+#include <iterator>
+#include <utility>
 #include <limits>
 
 #include "heatchain/models/if97.hpp"
@@ -34,22 +36,34 @@ inline Props propsFromGamma(double T, double P, double pi, double tau, const Gam
 }
 
 // x^k for k in [lo, hi] (integers), one multiplication each: x^k =
-// x^(k/2) · x^(k − k/2), so no power waits on more than log2(k) products
-// before it (a chain x^k = x^(k−1) · x would make the 40th power wait on
-// 40 multiplications in turn, which was most of a region's evaluation).
+// x^(k/2) · x^(k − k/2), so no power waits on more than about log2(k)
+// products before it (a chain x^k = x^(k−1) · x would make the 41st power
+// wait on 41 multiplications in turn). Unrolled at compile time.
 template <int Lo, int Hi>
 struct PowTable {
     double p[Hi - Lo + 1];
     explicit PowTable(double x) {
         p[-Lo] = 1.0;
-        if constexpr (Hi >= 1) p[1 - Lo] = x;
-        for (int k = 2; k <= Hi; ++k) p[k - Lo] = p[k / 2 - Lo] * p[k - k / 2 - Lo];
+        if constexpr (Hi >= 1) {
+            p[1 - Lo] = x;
+            fillUp(std::make_index_sequence<(Hi >= 2 ? Hi - 1 : 0)>{});
+        }
         if constexpr (Lo < 0) {
             p[-1 - Lo] = 1.0 / x;
-            for (int k = 2; k <= -Lo; ++k) p[-k - Lo] = p[-(k / 2) - Lo] * p[-(k - k / 2) - Lo];
+            fillDown(std::make_index_sequence<(-Lo >= 2 ? -Lo - 1 : 0)>{});
         }
     }
     double operator[](int k) const { return p[k - Lo]; }
+
+private:
+    template <std::size_t... K>
+    void fillUp(std::index_sequence<K...>) {
+        ((p[int(K) + 2 - Lo] = p[(int(K) + 2) / 2 - Lo] * p[(int(K) + 2) - (int(K) + 2) / 2 - Lo]), ...);
+    }
+    template <std::size_t... K>
+    void fillDown(std::index_sequence<K...>) {
+        ((p[-(int(K) + 2) - Lo] = p[-((int(K) + 2) / 2) - Lo] * p[-((int(K) + 2) - (int(K) + 2) / 2) - Lo]), ...);
+    }
 };
 
 // One polynomial term n x^I y^J of a double series.
@@ -61,51 +75,55 @@ struct Term {
 
 // The sums over the terms of Σ n x^I y^J from which gamma and its first and
 // second derivatives follow: Σ w v with v = n x^I y^J and w = 1, I, I(I−1),
-// J, J(J−1), I J. Two interleaved partial sums halve the chain of additions
-// each sum waits on.
+// J, J(J−1), I J. Unrolled at compile time over a constexpr table, in the
+// table's order (so each sum is the same as a plain loop's to the last
+// bit), with the weights folded in and the terms whose weight is zero left
+// out (adding ±0 changes no sum).
 struct SeriesSums {
     double S = 0, SI = 0, SII = 0, SJ = 0, SJJ = 0, SIJ = 0;
 };
 
-template <std::size_t N, class PX, class PY>
-SeriesSums seriesSums(const Term (&terms)[N], const PX& px, const PY& py) {
-    double a[2][6] = {};
-    for (std::size_t i = 0; i < N; ++i) {
-        const Term& t = terms[i];
-        const double v = t.n * px[t.I] * py[t.J];
-        double* s = a[i & 1];
-        const double I = t.I, J = t.J;
-        s[0] += v;
-        s[1] += I * v;
-        s[2] += I * (I - 1) * v;
-        s[3] += J * v;
-        s[4] += J * (J - 1) * v;
-        s[5] += I * J * v;
-    }
-    return {a[0][0] + a[1][0], a[0][1] + a[1][1], a[0][2] + a[1][2],
-            a[0][3] + a[1][3], a[0][4] + a[1][4], a[0][5] + a[1][5]};
+template <int I, int J, class PX, class PY>
+inline void addTerm(double n, const PX& px, const PY& py, SeriesSums& m) {
+    const double v = n * px[I] * py[J];
+    m.S += v;
+    if constexpr (I != 0) m.SI += I * v;
+    if constexpr (I != 0 && I != 1) m.SII += I * (I - 1) * v;
+    if constexpr (J != 0) m.SJ += J * v;
+    if constexpr (J != 0 && J != 1) m.SJJ += J * (J - 1) * v;
+    if constexpr (I != 0 && J != 0) m.SIJ += I * J * v;
 }
 
-// Only the sums h and s need: Σ v and Σ J v.
-template <std::size_t N, class PX, class PY>
-void seriesSumsHS(const Term (&terms)[N], const PX& px, const PY& py, double& S, double& SJ) {
-    double a0 = 0, a1 = 0, b0 = 0, b1 = 0;
-    std::size_t i = 0;
-    for (; i + 1 < N; i += 2) {
-        const double v0 = terms[i].n * px[terms[i].I] * py[terms[i].J];
-        const double v1 = terms[i + 1].n * px[terms[i + 1].I] * py[terms[i + 1].J];
-        a0 += v0;
-        a1 += v1;
-        b0 += terms[i].J * v0;
-        b1 += terms[i + 1].J * v1;
-    }
-    if (i < N) {
-        const double v = terms[i].n * px[terms[i].I] * py[terms[i].J];
-        a0 += v;
-        b0 += terms[i].J * v;
-    }
-    S = a0 + a1;
-    SJ = b0 + b1;
+template <const auto& Terms, class PX, class PY, std::size_t... K>
+inline SeriesSums seriesSumsOf(const PX& px, const PY& py, std::index_sequence<K...>) {
+    SeriesSums m;
+    (addTerm<Terms[K].I, Terms[K].J>(Terms[K].n, px, py, m), ...);
+    return m;
+}
+
+template <const auto& Terms, class PX, class PY>
+inline SeriesSums seriesSums(const PX& px, const PY& py) {
+    return seriesSumsOf<Terms>(px, py, std::make_index_sequence<std::size(Terms)>{});
+}
+
+// Only the sums h and s need: Σ v and Σ J v, the same values as above.
+template <int J, class PX, class PY>
+inline void addTermHS(double n, double xI, const PY& py, double& S, double& SJ) {
+    const double v = n * xI * py[J];
+    S += v;
+    if constexpr (J != 0) SJ += J * v;
+}
+
+template <const auto& Terms, class PX, class PY, std::size_t... K>
+inline void seriesSumsHSOf(const PX& px, const PY& py, double& S, double& SJ, std::index_sequence<K...>) {
+    S = 0;
+    SJ = 0;
+    (addTermHS<Terms[K].J, PX>(Terms[K].n, px[Terms[K].I], py, S, SJ), ...);
+}
+
+template <const auto& Terms, class PX, class PY>
+inline void seriesSumsHS(const PX& px, const PY& py, double& S, double& SJ) {
+    seriesSumsHSOf<Terms>(px, py, S, SJ, std::make_index_sequence<std::size(Terms)>{});
 }
 
 }  // namespace heatchain::if97::detail

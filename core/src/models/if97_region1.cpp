@@ -59,7 +59,7 @@ Props region1(double T, double P) {
     const detail::PowTable<-41, 17> py(y);
     // Sums of n x^I y^J weighted by the exponents; derivatives follow by
     // dividing by x or y (d/dpi of x^I is -I x^(I-1)).
-    const detail::SeriesSums m = detail::seriesSums(kRegion1, px, py);
+    const detail::SeriesSums m = detail::seriesSums<kRegion1>(px, py);
     detail::Gamma G;
     G.g = m.S;
     G.gp = -m.SI / x;
@@ -77,7 +77,7 @@ HS region1HS(double T, double P) {
     const detail::PowTable<0, 32> px(7.1 - pi);
     const detail::PowTable<-41, 17> py(y);
     double S, SJ;
-    detail::seriesSumsHS(kRegion1, px, py, S, SJ);
+    detail::seriesSumsHS<kRegion1>(px, py, S, SJ);
     // Table 3: h = R T tau gamma_tau, s = R (tau gamma_tau − gamma),
     // written as propsFromGamma writes them.
     const double gt = SJ / y;

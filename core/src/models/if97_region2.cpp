@@ -61,8 +61,8 @@ constexpr double kMetaN02 = 0.10087275970006e2;
 constexpr double kPstar = 1e6;
 constexpr double kTstar = 540.0;
 
-template <std::size_t N, int MaxI, int MaxJ>
-Props evaluate(double T, double P, const Term (&res)[N], double n01, double n02) {
+template <const auto& Res, int MaxI, int MaxJ>
+Props evaluate(double T, double P, double n01, double n02) {
     const double pi = P / kPstar;
     const double tau = kTstar / T;
     detail::Gamma G;
@@ -80,7 +80,7 @@ Props evaluate(double T, double P, const Term (&res)[N], double n01, double n02)
     const double y = tau - 0.5;
     const detail::PowTable<0, MaxI> pp(pi);
     const detail::PowTable<0, MaxJ> py(y);
-    const detail::SeriesSums m = detail::seriesSums(res, pp, py);
+    const detail::SeriesSums m = detail::seriesSums<Res>(pp, py);
     G.g = g0 + m.S;
     G.gp = 1.0 / pi + m.SI / pi;
     G.gpp = -1.0 / (pi * pi) + m.SII / (pi * pi);
@@ -91,8 +91,8 @@ Props evaluate(double T, double P, const Term (&res)[N], double n01, double n02)
 }
 
 // h and s alone, written as evaluate() and propsFromGamma write them.
-template <std::size_t N, int MaxI, int MaxJ>
-HS evaluateHS(double T, double P, const Term (&res)[N], double n01, double n02) {
+template <const auto& Res, int MaxI, int MaxJ>
+HS evaluateHS(double T, double P, double n01, double n02) {
     const double pi = P / kPstar;
     const double tau = kTstar / T;
     const detail::PowTable<-7, 3> pt(tau);
@@ -107,7 +107,7 @@ HS evaluateHS(double T, double P, const Term (&res)[N], double n01, double n02) 
     const detail::PowTable<0, MaxI> pp(pi);
     const detail::PowTable<0, MaxJ> py(y);
     double S, SJ;
-    detail::seriesSumsHS(res, pp, py, S, SJ);
+    detail::seriesSumsHS<Res>(pp, py, S, SJ);
     const double g = g0 + S;
     const double gt = g0t + SJ / y;
     const double RT = R * T;
@@ -117,15 +117,15 @@ HS evaluateHS(double T, double P, const Term (&res)[N], double n01, double n02) 
 }  // namespace
 
 Props region2(double T, double P) {
-    return evaluate<43, 24, 58>(T, P, kResidual, kIdeal[0].n, kIdeal[1].n);
+    return evaluate<kResidual, 24, 58>(T, P, kIdeal[0].n, kIdeal[1].n);
 }
 
 HS region2HS(double T, double P) {
-    return evaluateHS<43, 24, 58>(T, P, kResidual, kIdeal[0].n, kIdeal[1].n);
+    return evaluateHS<kResidual, 24, 58>(T, P, kIdeal[0].n, kIdeal[1].n);
 }
 
 Props region2Metastable(double T, double P) {
-    return evaluate<13, 5, 16>(T, P, kMetaResidual, kMetaN01, kMetaN02);
+    return evaluate<kMetaResidual, 5, 16>(T, P, kMetaN01, kMetaN02);
 }
 
 }  // namespace heatchain::if97
