@@ -559,7 +559,7 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
     return s;
 }
 
-// ---- Utilities (issue 7: optional top-level "utilities" and "minApproach") ----
+// ---- Utilities (optional top-level "utilities" and "minApproach") ----
 
 constexpr std::string_view kUtilityFields[] = {"id", "kind", "name", "P", "in", "out", "cp", "density", "T"};
 
@@ -1039,7 +1039,7 @@ std::string writeProjectDump(const Project& p) {
     appendExtra(start, p.start.extra);
     j["start"] = std::move(start);
 
-    // Issue 7: after start, before the unknown fields.
+    // Utilities and minApproach: after start, before the unknown fields.
     if (p.minApproach) j["minApproach"] = quantityJson(*p.minApproach, Dimension::TemperatureDifference);
     if (p.hasUtilities || !p.utilities.empty()) {
         Json list = Json::array();

@@ -117,7 +117,7 @@ Json resultsToJson(const Project& project, const SequenceResult& r) {
                    {"dU", t.dU},     {"dS", t.dS},     {"Sgen", t.Sgen},
                    {"exergyDestroyed", t.exergyDestroyed},
                    {"heatingDuty", t.heatingDuty},     {"coolingDuty", t.coolingDuty}};
-    // Issue 7 (additive keys): exergy of the sequence and the utilities.
+    // Exergy of the sequence and the utilities.
     if (r.exergyAvailable) {
         j["exergy"] = {{"T0_K", r.T0},
                        {"P0_Pa", r.P0},

@@ -1,4 +1,4 @@
-// heatchain-cli with utilities, exergy and sweeps (issue 7): the samples show
+// heatchain-cli with utilities, exergy and sweeps: the samples show
 // their utilities, the JSON and CSV carry the additive keys and columns, an
 // unknown utility is invalid input naming the step, and `sweep` reports every
 // point in text, JSON and CSV.

@@ -1,4 +1,4 @@
-// Exergy (issue 7): the exergy balance of every step, the Gouy–Stodola
+// Exergy: the exergy balance of every step, the Gouy–Stodola
 // theorem, a reversible (Carnot) cycle, a throttle. The exergy of each state
 // is recomputed here from the states and the dead state (the substance at
 // the surroundings' T0, P0, same model), and the heat's exergy from

@@ -1,4 +1,4 @@
-// Utilities (issue 7): reading and writing the "utilities" list, the
+// Utilities: reading and writing the "utilities" list, the
 // approach temperature along a step's T–Q curve, consumption, and S_gen
 // against a utility. Expected values are computed in the tests from the
 // water model's saturation states and the utility's straight line, by a

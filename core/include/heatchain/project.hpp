@@ -47,7 +47,7 @@ std::string_view pathId(PathKind p);
 
 enum class HeatingAt { ConstantPressure, ConstantVolume };
 
-// A heat source or sink: a temperature, or (issue 7) a named utility.
+// A heat source or sink: a temperature, or a named utility.
 struct Reservoir {
     std::optional<Quantity> T;
     std::optional<std::string> utility;
@@ -79,7 +79,7 @@ struct Step {
     Json extra = Json::object();          // unknown fields, kept and written back
 };
 
-// A plant utility a step can take its heat from or give it to (issue 7),
+// A plant utility a step can take its heat from or give it to,
 // defined once in the project's top-level "utilities" list:
 //   steam     condensing (or raised) steam at a pressure P; its saturation
 //             temperature and latent heat come from the water reference model
@@ -141,7 +141,7 @@ struct Project {
     StartSpec start;
     std::vector<Step> steps;
     Json extra = Json::object();              // unknown top-level fields
-    // Issue 7 (optional fields of version 1): utilities and the smallest
+    // Optional fields of version 1: utilities and the smallest
     // temperature difference a heat exchanger with a utility should keep.
     std::vector<Utility> utilities;
     bool hasUtilities = false;                // written back only if it was in the file (or set)

@@ -33,7 +33,7 @@ struct SegmentResult {
     std::vector<CurvePoint> curve;
 };
 
-// ---- Utilities (issue 7) ------------------------------------------------
+// ---- Utilities ------------------------------------------------------------
 // A utility's temperature profile, resolved from its definition.
 struct UtilityProfile {
     std::string id;
@@ -110,7 +110,7 @@ struct StepResult {
     std::vector<std::string> warnings;
     std::optional<StepUtility> utility;  // when the source or sink names a utility
 
-    // Exergy (see solver.cpp, "Exergy"): specific exergy of the start and end
+    // Exergy (definitions in solver_exergy.cpp): specific exergy of the start and end
     // states relative to the dead state (J/kg); extensive change, exergy
     // carried in with the heat, the exergy supplied to the step and the
     // second-law efficiency 1 − destroyed / supplied (none when nothing is

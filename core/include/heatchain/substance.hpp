@@ -35,7 +35,7 @@ struct PhaseChangeData {
     double enthalpy = 0;  // J/kg, latent heat at (T, P)
 };
 
-// Optional Peng–Robinson refinements (issue: real fluids).
+// Optional Peng–Robinson refinements.
 struct PengRobinsonData {
     std::optional<double> twuL, twuM, twuN;  // Twu (1991) alpha parameters
     std::optional<double> volumeShift;       // Péneloux c, m3/mol

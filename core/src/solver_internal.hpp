@@ -1,0 +1,59 @@
+#pragma once
+// What the solver's files share (solver.cpp drives, solver_isobaric.cpp,
+// solver_pressure.cpp, solver_utility.cpp and solver_exergy.cpp each solve one
+// concern): the context of one step's calculation, what a step kind returns
+// before the driver's bookkeeping, and message formatting.
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "heatchain/solver.hpp"
+
+namespace heatchain::solver_detail {
+
+// The context every step calculation needs.
+struct Ctx {
+    const Project& project;
+    const PropertyModel& model;
+    double m;       // kg or kg/s
+    bool closed;
+    double T0;
+    int points;     // curve points for this step
+};
+
+// What a step kind computes; the driver (solver.cpp) adds ΔH, ΔU, ΔS, S_gen
+// and exergy destroyed from it, so those laws are written once.
+struct Outcome {
+    State end;
+    double Q = 0, W = 0;           // extensive
+    bool adiabatic = false;
+    std::vector<SegmentResult> segments;
+    std::vector<std::string> warnings;
+};
+
+// "%.4g"-style number for messages.
+std::string num(double v, int digits = 4);
+std::string degC(double T);
+std::string bar(double P);
+
+std::string stepWhere(const Step& step, std::size_t index);
+Error stepError(const Step& step, std::size_t idx, const std::string& msg);
+
+// solver_isobaric.cpp: heat and cool (constant pressure or, closed, constant
+// volume) and the six phase-change kinds.
+Result<Outcome> heatOrCool(const Ctx& c, const Step& step, std::size_t idx, const State& a, double Qcum);
+Result<Outcome> phaseChange(const Ctx& c, const Step& step, std::size_t idx, const State& a, double Qcum);
+
+// solver_pressure.cpp: compress, expand and throttle.
+Result<Outcome> pressureChange(const Ctx& c, const Step& step, std::size_t idx, const State& a, double Qcum);
+
+// solver_utility.cpp: the temperature of a plain source or sink, checked
+// against the direction of heat; and the exchange with a named utility.
+Result<std::optional<double>> reservoirFor(const Step& step, std::size_t idx, const Outcome& o, const State& a);
+Result<StepUtility> serveByUtility(const Ctx& c, const Step& step, std::size_t idx, const Outcome& o,
+                                   const std::vector<Result<UtilityProfile>>& profiles, double Qcum);
+
+// solver_exergy.cpp: exergy of every computed step and of the sequence.
+void exergyAccounts(const Project& project, const PropertyModel& model, SequenceResult& r);
+
+}  // namespace heatchain::solver_detail
