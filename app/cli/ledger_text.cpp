@@ -168,6 +168,11 @@ std::string exergyText(const Project& p, const SequenceResult& r) {
     auto pct = [](std::optional<double> v) { return v ? fixed(100 * *v, 1) + " %" : std::string("–"); };
     for (const auto& s : r.steps) {
         if (!s.computed) continue;
+        if (s.exergyNotCharged) {
+            t.rows.push_back({s.id, d.E(s.dEx), d.E(s.exergyHeat), d.E(s.usefulWork), d.E(s.exergySupplied),
+                              *s.exergyNotCharged, "–", "–"});
+            continue;
+        }
         t.rows.push_back({s.id, d.E(s.dEx), d.E(s.exergyHeat), d.E(s.usefulWork), d.E(s.exergySupplied),
                           d.E(s.exergyDestroyed), pct(s.exergyDestroyedShare), pct(s.secondLawEfficiency)});
     }
@@ -228,22 +233,29 @@ std::string ledgerText(const Project& p, const SequenceResult& r) {
         }
         t.rows.push_back({s.id, std::string(stepKindId(s.kind)), fixed(T(s.end.T), 2), fixed(P(s.end.P), 4),
                           phaseText(s.end), fixed(E(s.Q), dE_), fixed(E(s.W), dE_), fixed(E(s.dH), dE_),
-                          fixed(S(s.dS), dS_), fixed(S(s.Sgen), dS_), fixed(E(s.exergyDestroyed), dE_)});
+                          fixed(S(s.dS), dS_), fixed(S(s.Sgen), dS_),
+                          s.exergyNotCharged ? std::string("–") : fixed(E(s.exergyDestroyed), dE_)});
         if (s.segments.size() > 1)
             for (const auto& g : s.segments)
                 t.rows.push_back({"", "  " + g.label, fixed(T(g.end.T), 2), fixed(P(g.end.P), 4), phaseText(g.end),
                                   fixed(E(g.Q), dE_)});
     }
     const auto& tt = r.totals;
-    t.rows.push_back({"total", "", "", "", "", fixed(E(tt.Q), dE_), fixed(E(tt.W), dE_), fixed(E(tt.dH), dE_),
+    t.rows.push_back({tt.complete ? "total" : "total (incomplete)", "", "", "", "", fixed(E(tt.Q), dE_), fixed(E(tt.W), dE_), fixed(E(tt.dH), dE_),
                       fixed(S(tt.dS), dS_), fixed(S(tt.Sgen), dS_), fixed(E(tt.exergyDestroyed), dE_)});
     o << t.render();
+    if (!tt.complete) {
+        const auto done = std::count_if(r.steps.begin(), r.steps.end(), [](const StepResult& s) { return s.computed; });
+        o << "totals are incomplete: they add only the " << done << " computed step" << (done == 1 ? "" : "s")
+          << " of " << r.steps.size() << "\n";
+    }
     o << "heating duty " << fixed(E(tt.heatingDuty), dE_) << " " << uE << ", cooling duty "
       << fixed(E(tt.coolingDuty), dE_) << " " << uE << "\n";
 
     o << utilitiesText(p, r);
     o << exergyText(p, r);
 
+    // Errors and warnings first, notes apart: the levels core gave them.
     bool any = false;
     for (const auto& s : r.steps) {
         for (const auto& w : s.warnings) {
@@ -258,6 +270,16 @@ std::string ledgerText(const Project& p, const SequenceResult& r) {
     for (const auto& w : r.warnings) {
         if (!any) { o << "\nwarnings:\n"; any = true; }
         o << "  " << w << "\n";
+    }
+    bool anyNote = false;
+    for (const auto& s : r.steps)
+        for (const auto& n : s.notes) {
+            if (!anyNote) { o << "\nnotes:\n"; anyNote = true; }
+            o << "  " << s.id << ": " << n << "\n";
+        }
+    for (const auto& n : r.notes) {
+        if (!anyNote) { o << "\nnotes:\n"; anyNote = true; }
+        o << "  " << n << "\n";
     }
     o << "\nIdealised process paths. Pressure equipment, steam, cryogens and hot surfaces are governed by\n"
          "local codes and licensed practice; have results checked by a qualified engineer.\n";

@@ -41,11 +41,16 @@ Json utilityStepJson(const StepUtility& u, double minApproach, const std::vector
     return j;
 }
 
+// A step with no source given has no exergy-destroyed figure: null, and
+// "notCharged" says why.
 Json stepExergyJson(const StepResult& s) {
-    return {{"start_J_per_kg", s.exergyStart}, {"end_J_per_kg", s.exergyEnd}, {"change", s.dEx},
-            {"heat", s.exergyHeat},            {"usefulWork", s.usefulWork}, {"supplied", s.exergySupplied},
-            {"destroyed", s.exergyDestroyed},  {"destroyedShare", s.exergyDestroyedShare},
-            {"secondLawEfficiency", optNumber(s.secondLawEfficiency)}};
+    Json j = {{"start_J_per_kg", s.exergyStart}, {"end_J_per_kg", s.exergyEnd}, {"change", s.dEx},
+              {"heat", s.exergyHeat},            {"usefulWork", s.usefulWork}, {"supplied", s.exergySupplied},
+              {"destroyed", s.exergyNotCharged ? Json(nullptr) : Json(s.exergyDestroyed)},
+              {"destroyedShare", s.exergyDestroyedShare},
+              {"secondLawEfficiency", optNumber(s.secondLawEfficiency)}};
+    if (s.exergyNotCharged) j["notCharged"] = *s.exergyNotCharged;
+    return j;
 }
 
 }  // namespace
@@ -93,7 +98,7 @@ Json resultsToJson(const Project& project, const SequenceResult& r) {
             st["dU"] = s.dU;
             st["dS"] = s.dS;
             st["Sgen"] = s.Sgen;
-            st["exergyDestroyed"] = s.exergyDestroyed;
+            st["exergyDestroyed"] = s.exergyNotCharged ? Json(nullptr) : Json(s.exergyDestroyed);
             Json segs = Json::array();
             for (const auto& g : s.segments) {
                 segs.push_back({{"label", g.label}, {"start", stateToJson(g.start)},
@@ -108,6 +113,7 @@ Json resultsToJson(const Project& project, const SequenceResult& r) {
             st["segments"] = Json::array();
         }
         st["warnings"] = s.warnings;
+        st["notes"] = s.notes;
         if (s.error) st["error"] = s.error->text();
         steps.push_back(std::move(st));
     }
@@ -116,7 +122,10 @@ Json resultsToJson(const Project& project, const SequenceResult& r) {
     j["totals"] = {{"Q", t.Q},       {"W", t.W},       {"dH", t.dH},
                    {"dU", t.dU},     {"dS", t.dS},     {"Sgen", t.Sgen},
                    {"exergyDestroyed", t.exergyDestroyed},
-                   {"heatingDuty", t.heatingDuty},     {"coolingDuty", t.coolingDuty}};
+                   {"heatingDuty", t.heatingDuty},     {"coolingDuty", t.coolingDuty},
+                   {"complete", t.complete}};
+    j["warnings"] = r.warnings;
+    j["notes"] = r.notes;
     // Exergy of the sequence and the utilities.
     if (r.exergyAvailable) {
         j["exergy"] = {{"T0_K", r.T0},
@@ -196,7 +205,7 @@ std::string resultsToCsv(const Project& project, const SequenceResult& r) {
         out << q(s.id) << "," << stepKindId(s.kind) << ",," << n(s.start.T) << "," << n(s.start.P) << ","
             << n(s.end.T) << "," << n(s.end.P) << "," << phaseId(s.end.phase) << "," << qual(s.end) << ","
             << n(s.Q) << "," << n(s.W) << "," << n(s.dH) << "," << n(s.dS) << "," << n(s.Sgen) << ","
-            << n(s.exergyDestroyed);
+            << (s.exergyNotCharged ? std::string() : n(s.exergyDestroyed));
         if (s.utility) {
             out << "," << q(s.utility->id) << "," << (s.utility->kind == UtilityKind::Fixed ? "" : n(s.utility->mass))
                 << "," << (s.utility->volume ? n(*s.utility->volume) : "") << "," << n(s.utility->minApproach);
@@ -219,7 +228,7 @@ std::string resultsToCsv(const Project& project, const SequenceResult& r) {
         }
     }
     const auto& t = r.totals;
-    out << "total,,,,,,,,," << n(t.Q) << "," << n(t.W) << "," << n(t.dH) << "," << n(t.dS) << "," << n(t.Sgen)
+    out << (t.complete ? "total" : "total (incomplete)") << ",,,,,,,,," << n(t.Q) << "," << n(t.W) << "," << n(t.dH) << "," << n(t.dS) << "," << n(t.Sgen)
         << "," << n(t.exergyDestroyed) << ",,,,";
     if (r.exergyAvailable)
         out << "," << n(t.dEx) << "," << n(t.exergyHeatIn - t.exergyHeatOut) << "," << n(t.exergySupplied) << ","

@@ -26,8 +26,35 @@ std::string num(double v, int digits) {
     std::snprintf(buf, sizeof buf, "%.*g", digits, v);
     return buf;
 }
-std::string degC(double T) { return num(T - 273.15, 5) + " °C"; }
-std::string bar(double P) { return num(P / 1e5, 5) + " bar"; }
+std::string quantityText(double si, Dimension d, UnitSystem units, const UnitContext& context, int digits) {
+    return num(toDisplay(si, d, units, context), digits) + " " + unitLabel(displayUnit(d, units));
+}
+
+std::string Ctx::T(double K) const {
+    return quantityText(K, Dimension::Temperature, project.displayUnits, project.unitContext());
+}
+std::string Ctx::dT(double K, int digits) const {
+    return quantityText(K, Dimension::TemperatureDifference, project.displayUnits, project.unitContext(), digits);
+}
+std::string Ctx::P(double Pa) const {
+    return quantityText(Pa, Dimension::Pressure, project.displayUnits, project.unitContext());
+}
+std::string Ctx::E(double v) const {
+    return quantityText(v, closed ? Dimension::Energy : Dimension::Power, project.displayUnits, project.unitContext());
+}
+
+Outcome nullStep(const Ctx& c, const State& a, double Qcum, const std::string& what) {
+    Outcome o;
+    o.end = a;
+    SegmentResult seg;
+    seg.label = "no change";
+    seg.start = a;
+    seg.end = a;
+    if (c.points > 0) seg.curve.assign(2, CurvePoint{a.T, a.s, Qcum, a.P, a.h});
+    o.segments.push_back(std::move(seg));
+    o.warnings.push_back(what + ": the step changes nothing");
+    return o;
+}
 
 std::string stepWhere(const Step& step, std::size_t index) {
     return "step \"" + step.id + "\" (steps[" + std::to_string(index) + "])";
@@ -40,6 +67,30 @@ Error stepError(const Step& step, std::size_t idx, const std::string& msg) {
 }  // namespace solver_detail
 
 using namespace solver_detail;
+
+namespace {
+
+void appendMessages(std::vector<Message>& out, MessageLevel level, const std::vector<std::string>& texts) {
+    for (const auto& t : texts) out.push_back({level, t});
+}
+
+}  // namespace
+
+std::vector<Message> StepResult::messages() const {
+    std::vector<Message> out;
+    if (error) out.push_back({MessageLevel::Error, error->text()});
+    appendMessages(out, MessageLevel::Warning, warnings);
+    appendMessages(out, MessageLevel::Note, notes);
+    return out;
+}
+
+std::vector<Message> SequenceResult::messages() const {
+    std::vector<Message> out;
+    if (startError) out.push_back({MessageLevel::Error, startError->text()});
+    appendMessages(out, MessageLevel::Warning, warnings);
+    appendMessages(out, MessageLevel::Note, notes);
+    return out;
+}
 
 const Error* SequenceResult::firstError() const {
     if (startError) return &*startError;
@@ -70,6 +121,7 @@ SequenceResult solve(const Project& project, const SolveOptions& options) {
         SequenceResult r;
         r.system = project.system;
         r.startError = makeError(model.error().message, "model");
+        r.totals.complete = false;
         for (const auto& s : project.steps) {
             StepResult sr;
             sr.id = s.id;
@@ -106,13 +158,15 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
     auto start = startState(project, *model);
     if (!start) {
         r.startError = start.error();
+        r.totals.complete = false;
         return r;
     }
     r.start = *start;
     const Ctx c{project, *model, r.massBasis, project.system == SystemKind::Closed, r.T0, options.curvePointsPerStep};
     std::vector<Result<UtilityProfile>> profiles;
     profiles.reserve(project.utilities.size());
-    for (const Utility& u : project.utilities) profiles.push_back(resolveUtility(u));
+    for (const Utility& u : project.utilities)
+        profiles.push_back(resolveUtility(u, project.displayUnits, project.unitContext()));
     State cur = *start;
     double Qcum = 0;
     for (std::size_t i = 0; i < project.steps.size(); ++i) {
@@ -150,13 +204,13 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
             // 1 µK of slack: "38 degC" against "28 degC" is 10 K, not 9.999999999999943 K.
             if (su->minApproach < project.minApproachK() - 1e-6 && o.Q != 0) {
                 o.warnings.push_back("approach to " + std::string(su->asSource ? "source" : "sink") + " \"" + su->id +
-                                     "\" is " + num(su->minApproach, 3) + " K, below the minimum " +
-                                     num(project.minApproachK(), 3) + " K (" + su->position + " of " +
+                                     "\" is " + c.dT(su->minApproach, 3) + ", below the minimum " +
+                                     c.dT(project.minApproachK(), 3) + " (" + su->position + " of " +
                                      o.segments[su->segment].label + ")");
             }
             sr.utility = std::move(*su);
         } else {
-            auto res = reservoirFor(step, i, o, cur);
+            auto res = reservoirFor(c, step, i, o, cur);
             if (!res) {
                 sr.error = res.error();
                 break;
@@ -176,8 +230,11 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
         } else {
             // No reservoir named: heat is taken as exchanged at the material's own
             // temperature, so only irreversibility inside the material counts, and
-            // an internally reversible path generates none.
+            // an internally reversible path generates none. For heat and
+            // cool steps and phase changes that is a gap in the worksheet,
+            // not a result: nothing is charged for the heat.
             sr.Sgen = 0;
+            if (sr.Q != 0 && !isPressureChangeKind(step.kind)) sr.exergyNotCharged = "no source given";
         }
         // Round-off is judged against the entropies themselves as well: an
         // isentropic step has ΔS ≈ 0, and (P, s) inversions return s to about
@@ -193,6 +250,7 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
         sr.exergyDestroyed = r.T0 * sr.Sgen;
         sr.segments = std::move(o.segments);
         sr.warnings = std::move(o.warnings);
+        sr.notes = std::move(o.notes);
         std::uint32_t flags = o.end.warnings;
         for (const auto& seg : sr.segments) flags |= seg.start.warnings | seg.end.warnings;
         if (flags) sr.warnings.insert(sr.warnings.begin(), describeWarnings(flags));
@@ -210,6 +268,7 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
         if (sr.Q > 0) t.heatingDuty += sr.Q; else t.coolingDuty -= sr.Q;
     }
     if (r.start.warnings) r.warnings.push_back("start state: " + describeWarnings(r.start.warnings));
+    r.totals.complete = std::all_of(r.steps.begin(), r.steps.end(), [](const StepResult& s) { return s.computed; });
     exergyAccounts(project, *model, r);
     // Totals per utility, in the project's order.
     for (std::size_t k = 0; k < project.utilities.size(); ++k) {

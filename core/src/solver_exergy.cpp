@@ -30,7 +30,10 @@ void exergyAccounts(const Project& project, const PropertyModel& model, Sequence
     r.P0 = project.surroundingsP.si;
     auto dead = model.stateTP(r.T0, r.P0);
     if (!dead) {
-        r.warnings.push_back("exergy not computed: the dead state (" + degC(r.T0) + ", " + bar(r.P0) +
+        const UnitContext uc = project.unitContext();
+        r.warnings.push_back("exergy not computed: the dead state (" +
+                             quantityText(r.T0, Dimension::Temperature, project.displayUnits, uc) + ", " +
+                             quantityText(r.P0, Dimension::Pressure, project.displayUnits, uc) +
                              ") is outside the model: " + dead.error().message);
         return;
     }
@@ -44,6 +47,11 @@ void exergyAccounts(const Project& project, const PropertyModel& model, Sequence
     r.exergyStart = ex(r.start);
     auto& t = r.totals;
     const State* last = nullptr;
+    // Steps with no source given carry no exergy-destroyed figure; the
+    // sequence's figures leave them out whole (their heat and work, and the
+    // change of the material's exergy they make, ΔEx = Ex_Q + W_u).
+    double leftOutChange = 0;
+    std::string leftOut;
     for (auto& s : r.steps) {
         if (!s.computed) continue;
         s.exergyStart = ex(s.start);
@@ -53,15 +61,24 @@ void exergyAccounts(const Project& project, const PropertyModel& model, Sequence
         if (s.reservoirT) s.exergyHeat = s.Q * (1.0 - r.T0 / *s.reservoirT);
         else s.exergyHeat = s.Q == 0 ? 0.0 : s.Q - r.T0 * (s.dS - s.Sgen);
         s.exergySupplied = std::max(s.exergyHeat, 0.0) + std::max(s.usefulWork, 0.0) + std::max(-s.dEx, 0.0);
+        last = &s.end;
+        if (s.exergyNotCharged) {
+            leftOutChange += s.dEx;
+            leftOut += (leftOut.empty() ? "\"" : ", \"") + s.id + "\"";
+            continue;
+        }
         if (s.exergySupplied > 0)
             s.secondLawEfficiency = std::clamp(1.0 - s.exergyDestroyed / s.exergySupplied, 0.0, 1.0);
         if (s.exergyHeat > 0) t.exergyHeatIn += s.exergyHeat; else t.exergyHeatOut -= s.exergyHeat;
         if (s.usefulWork > 0) t.workIn += s.usefulWork; else t.workOut -= s.usefulWork;
-        last = &s.end;
     }
     if (last) t.dEx = m * (ex(*last) - r.exergyStart);
-    t.exergySupplied = t.exergyHeatIn + t.workIn + std::max(-t.dEx, 0.0);
-    if (t.exergySupplied > 0) t.secondLawEfficiency = std::clamp(1.0 - t.exergyDestroyed / t.exergySupplied, 0.0, 1.0);
+    t.exergySupplied = t.exergyHeatIn + t.workIn + std::max(-(t.dEx - leftOutChange), 0.0);
+    // While a step fails, a figure for the sequence would describe only part of it.
+    if (t.exergySupplied > 0 && t.complete)
+        t.secondLawEfficiency = std::clamp(1.0 - t.exergyDestroyed / t.exergySupplied, 0.0, 1.0);
+    if (!leftOut.empty())
+        r.notes.push_back("the sequence's exergy supplied and η_II leave out " + leftOut + ": no source given");
     for (auto& s : r.steps)
         if (s.computed && t.exergyDestroyed > 0) s.exergyDestroyedShare = s.exergyDestroyed / t.exergyDestroyed;
 }

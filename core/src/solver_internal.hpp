@@ -19,6 +19,12 @@ struct Ctx {
     bool closed;
     double T0;
     int points;     // curve points for this step
+
+    // Values quoted in messages, in the project's display units.
+    std::string T(double K) const;        // a temperature
+    std::string dT(double K, int digits = 5) const;  // a temperature difference
+    std::string P(double Pa) const;       // a pressure
+    std::string E(double v) const;        // an energy (closed) or power (steady flow)
 };
 
 // What a step kind computes; the driver (solver.cpp) adds ΔH, ΔU, ΔS, S_gen
@@ -28,13 +34,19 @@ struct Outcome {
     double Q = 0, W = 0;           // extensive
     bool adiabatic = false;
     std::vector<SegmentResult> segments;
-    std::vector<std::string> warnings;
+    std::vector<std::string> warnings;  // MessageLevel::Warning
+    std::vector<std::string> notes;     // MessageLevel::Note
 };
 
 // "%.4g"-style number for messages.
 std::string num(double v, int digits = 4);
-std::string degC(double T);
-std::string bar(double P);
+// A value in display units for messages: "80 °C", "12 bar", "176 °F".
+std::string quantityText(double si, Dimension d, UnitSystem units, const UnitContext& context, int digits = 5);
+
+// A step whose target is where the material already is: it is computed, with
+// nothing exchanged and one segment from the start to itself, and `what`
+// (e.g. "the target 80 °C is the start temperature") as its warning.
+Outcome nullStep(const Ctx& c, const State& a, double Qcum, const std::string& what);
 
 std::string stepWhere(const Step& step, std::size_t index);
 Error stepError(const Step& step, std::size_t idx, const std::string& msg);
@@ -49,7 +61,7 @@ Result<Outcome> pressureChange(const Ctx& c, const Step& step, std::size_t idx, 
 
 // solver_utility.cpp: the temperature of a plain source or sink, checked
 // against the direction of heat; and the exchange with a named utility.
-Result<std::optional<double>> reservoirFor(const Step& step, std::size_t idx, const Outcome& o, const State& a);
+Result<std::optional<double>> reservoirFor(const Ctx& c, const Step& step, std::size_t idx, const Outcome& o, const State& a);
 Result<StepUtility> serveByUtility(const Ctx& c, const Step& step, std::size_t idx, const Outcome& o,
                                    const std::vector<Result<UtilityProfile>>& profiles, double Qcum);
 

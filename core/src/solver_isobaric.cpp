@@ -4,6 +4,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <optional>
 #include <string>
 
 #include "numerics/root.hpp"
@@ -91,14 +92,23 @@ void sampleIsobarSegment(const Ctx& c, const State& a, const State& b, const Lin
     }
 }
 
+// A stretch of a step spent on a phase line.
+struct OnLine {
+    Transition t;
+    double T;  // K
+    double Q;  // extensive, signed
+};
+
 // Builds the segments of a constant-pressure change from `a` to `b` (which
-// the caller has already found), splitting at each phase line crossed.
-std::vector<SegmentResult> isobarSegments(const Ctx& c, const State& a, const State& b, double Qstart) {
+// the caller has already found), splitting at each phase line crossed; the
+// stretches on a line go to `onLines`.
+std::vector<SegmentResult> isobarSegments(const Ctx& c, const State& a, const State& b, double Qstart,
+                                          std::vector<OnLine>& onLines) {
     std::vector<SegmentResult> segs;
     const bool rising = b.h >= a.h;
     const auto lines = linesOnIsobar(c.model, a.P);
     // Breakpoints strictly between a.h and b.h, in path order, each a known state.
-    struct Bp { double h; State s; const LineSpan* line; bool enteringLine; };
+    struct Bp { double h; State s; };
     std::vector<Bp> bps;
     const double lo = std::min(a.h, b.h), hi = std::max(a.h, b.h);
     const double eps = 1e-9 * std::max(1.0, std::max(std::fabs(lo), std::fabs(hi)));
@@ -107,7 +117,7 @@ std::vector<SegmentResult> isobarSegments(const Ctx& c, const State& a, const St
             if (s->h > lo + eps && s->h < hi - eps) {
                 const bool isLower = (s == &L.lower);
                 const State on = PropertyModel::mix(L.lower, L.upper, L.t, isLower ? 0.0 : 1.0);
-                bps.push_back({s->h, on, &L, rising ? isLower : !isLower});
+                bps.push_back({s->h, on});
             }
         }
     }
@@ -137,6 +147,7 @@ std::vector<SegmentResult> isobarSegments(const Ctx& c, const State& a, const St
         const LineSpan* L = lineHolding(s0.h, s1.h);
         if (L) {
             seg.label = lineLabel(L->t, rising);
+            onLines.push_back({L->t, L->T, c.m * (s1.h - s0.h)});
         } else {
             // The single phase of the span: take it from a state strictly inside.
             Phase ph = isTwoPhase(s0.phase) ? singlePhaseOf(s0, !rising) : s0.phase;
@@ -166,6 +177,19 @@ Result<State> isobarToT(const PropertyModel& model, const State& a, double T) {
     return model.stateTP(T, P);
 }
 
+// A step whose enthalpy change is round-off of its start enthalpy.
+bool isNull(double dh, double h) { return std::fabs(dh) <= 1e-10 * std::max(1.0, std::fabs(h)); }
+
+// The phase-change step kind of a line, in the direction of travel.
+StepKind lineStepKind(Transition t, bool rising) {
+    switch (t) {
+        case Transition::Melting: return rising ? StepKind::Melt : StepKind::Freeze;
+        case Transition::Boiling: return rising ? StepKind::Boil : StepKind::Condense;
+        case Transition::Sublimation: return rising ? StepKind::Sublimate : StepKind::Deposit;
+    }
+    return StepKind::Boil;
+}
+
 }  // namespace
 
 Result<Outcome> heatOrCool(const Ctx& c, const Step& step, std::size_t idx, const State& a, double Qcum) {
@@ -173,6 +197,15 @@ Result<Outcome> heatOrCool(const Ctx& c, const Step& step, std::size_t idx, cons
     const char* verb = heating ? "heat" : "cool";
     const bool constantVolume = step.at && *step.at == HeatingAt::ConstantVolume;
     Outcome o;
+    if (step.to.duty && !(step.to.duty->si >= 0)) {
+        // The project's sign rule: a step's duty is the heat it moves, put in
+        // by a heat step and taken out by a cool step, written positive.
+        return stepError(step, idx, "to.duty is " + step.to.duty->text + ": the duty of a " + verb +
+                                        " step is the heat " + (heating ? "put into" : "taken from") +
+                                        " the material, written as a positive number; a negative duty would " +
+                                        (heating ? "cool" : "heat") + " it (write it positive, or use a " +
+                                        (heating ? "cool" : "heat") + " step)");
+    }
     if (constantVolume) {
         if (!c.closed)
             return stepError(step, idx, "constant-volume heating needs a closed system (a rigid vessel); this project is steady-flow");
@@ -212,7 +245,7 @@ Result<Outcome> heatOrCool(const Ctx& c, const Step& step, std::size_t idx, cons
             }
         }
         if (o.end.P > a.P * 1.0001)
-            o.warnings.push_back("pressure in the closed vessel rises from " + bar(a.P) + " to " + bar(o.end.P));
+            o.notes.push_back("pressure in the closed vessel rises from " + c.P(a.P) + " to " + c.P(o.end.P));
         o.segments.push_back(std::move(seg));
         return o;
     }
@@ -230,20 +263,47 @@ Result<Outcome> heatOrCool(const Ctx& c, const Step& step, std::size_t idx, cons
     }
     if (!end) return stepError(step, idx, end.error().message);
     const double dh = end->h - a.h;
+    const std::string target = step.to.T ? c.T(step.to.T->si) : std::string("that target");
+    if (isNull(dh, a.h)) {
+        return nullStep(c, a, Qcum,
+                        step.to.T ? "the target " + target + " is where the material already is"
+                                  : (step.to.duty ? "a duty of " + step.to.duty->text
+                                                  : "the target quality is where the material already is"));
+    }
     if (heating && !(dh > 0)) {
-        return stepError(step, idx, "heating to " + (step.to.T ? degC(step.to.T->si) : std::string("that target")) +
-                                        " would cool the material (it starts at " + degC(a.T) +
+        return stepError(step, idx, "heating to " + target + " would cool the material (it starts at " + c.T(a.T) +
                                         "); use a cool step or a higher target");
     }
     if (!heating && !(dh < 0)) {
-        return stepError(step, idx, "cooling to " + (step.to.T ? degC(step.to.T->si) : std::string("that target")) +
-                                        " would heat the material (it starts at " + degC(a.T) +
+        return stepError(step, idx, "cooling to " + target + " would heat the material (it starts at " + c.T(a.T) +
                                         "); use a heat step or a lower target");
     }
     o.end = *end;
     o.Q = c.m * dh;
     o.W = c.closed ? -c.m * a.P * (o.end.v - a.v) : 0.0;
-    o.segments = isobarSegments(c, a, o.end, Qcum);
+    std::vector<OnLine> onLines;
+    o.segments = isobarSegments(c, a, o.end, Qcum, onLines);
+    // A heat or cool step crosses a phase line only because its target lies
+    // past it; that is seldom meant (a phase-change step says it), so each
+    // line crossed is a warning with its share of the duty. A quality target
+    // asks for the boiling line itself.
+    const std::string did = std::string(heating ? "heating" : "cooling") + " to " + target;
+    auto share = [&](double q) { return num(100.0 * q / o.Q, 3) + " % of the step's duty"; };
+    if (isTwoPhase(o.end.phase) && !step.to.quality && !onLines.empty()) {
+        const OnLine last = onLines.back();
+        onLines.pop_back();
+        const bool melt = last.t == Transition::Melting;
+        const std::optional<double> x = melt ? o.end.meltFraction : o.end.quality;
+        o.warnings.push_back(did + " ends part-way through " + lineLabel(last.t, heating) + " (" +
+                             (melt ? "liquid fraction " : "quality ") + (x ? num(*x, 3) : std::string("?")) +
+                             ", " + share(last.Q) + ")");
+    }
+    for (const OnLine& L : onLines) {
+        if (step.to.quality && L.t == Transition::Boiling) continue;
+        o.warnings.push_back(did + " crosses the " + std::string(transitionLabel(L.t)) + " point (" + c.T(L.T) +
+                             "): " + share(L.Q) + " is " + lineLabel(L.t, heating) + "; a " +
+                             std::string(stepKindId(lineStepKind(L.t, heating))) + " step says so, if that is meant");
+    }
     return o;
 }
 
@@ -263,29 +323,40 @@ Result<Outcome> phaseChange(const Ctx& c, const Step& step, std::size_t idx, con
     const std::string kind(stepKindId(step.kind));
     auto Tline = c.model.transitionTemperature(t, a.P);
     if (!Tline) {
-        return stepError(step, idx, "no " + std::string(transitionLabel(t)) + " at " + bar(a.P) + ": " +
+        return stepError(step, idx, "no " + std::string(transitionLabel(t)) + " at " + c.P(a.P) + ": " +
                                         Tline.error().message);
     }
     auto end = c.model.stateOnLineP(t, a.P, toUpper ? f : 1.0 - f);
     if (!end) return stepError(step, idx, end.error().message);
     const double dh = end->h - a.h;
+    std::string what = std::string(phaseLabel(a.phase));
+    if (a.quality) what += " (quality " + num(*a.quality, 3) + ")";
+    if (a.meltFraction) what += " (liquid fraction " + num(*a.meltFraction, 3) + ")";
+    if (isNull(dh, a.h))
+        return nullStep(c, a, Qcum, "nothing to " + kind + ": the material is already " + what + " at " + c.T(a.T));
     if ((toUpper && !(dh > 0)) || (!toUpper && !(dh < 0))) {
-        std::string what = std::string(phaseLabel(a.phase));
-        if (a.quality) what += " (quality " + num(*a.quality, 3) + ")";
-        if (a.meltFraction) what += " (melt fraction " + num(*a.meltFraction, 3) + ")";
-        return stepError(step, idx, "nothing to " + kind + ": the material is " + what + " at " + degC(a.T) +
+        return stepError(step, idx, "nothing to " + kind + ": the material is " + what + " at " + c.T(a.T) +
                                         ", already past the end of this step (" +
-                                        std::string(transitionLabel(t)) + " at " + degC(*Tline) + ", " +
-                                        bar(a.P) + ")");
+                                        std::string(transitionLabel(t)) + " at " + c.T(*Tline) + ", " +
+                                        c.P(a.P) + ")");
     }
     Outcome o;
     o.end = *end;
     o.Q = c.m * dh;
     o.W = c.closed ? -c.m * a.P * (o.end.v - a.v) : 0.0;
-    o.segments = isobarSegments(c, a, o.end, Qcum);
+    std::vector<OnLine> onLines;
+    o.segments = isobarSegments(c, a, o.end, Qcum, onLines);
     if (o.segments.size() > 1)
-        o.warnings.push_back("the step includes sensible " + std::string(toUpper ? "heating" : "cooling") +
-                             " to the " + std::string(transitionLabel(t)) + " point (" + degC(*Tline) + ")");
+        o.notes.push_back("the step includes sensible " + std::string(toUpper ? "heating" : "cooling") +
+                          " to the " + std::string(transitionLabel(t)) + " point (" + c.T(*Tline) + ")");
+    // Another line on the way (a boil step that starts as ice) was not asked for.
+    for (const OnLine& L : onLines) {
+        if (L.t == t) continue;
+        o.warnings.push_back("the step also crosses the " + std::string(transitionLabel(L.t)) + " point (" +
+                             c.T(L.T) + "): " + num(100.0 * L.Q / o.Q, 3) + " % of its duty is " +
+                             lineLabel(L.t, toUpper));
+    }
     return o;
 }
+
 }  // namespace heatchain::solver_detail

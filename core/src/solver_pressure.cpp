@@ -23,11 +23,15 @@ Result<Outcome> pressureChange(const Ctx& c, const Step& step, std::size_t idx, 
         return stepError(step, idx, std::string(stepKindId(step.kind)) +
                                         (throttle ? " step needs to.P" : " step needs to.P or to.ratio"));
     }
+    if (throttle && c.closed)
+        return stepError(step, idx, "throttling is a flow process; it needs a steady-flow system");
+    if (std::fabs(P2 - a.P) <= 1e-12 * a.P)
+        return nullStep(c, a, Qcum, "the target " + c.P(P2) + " is the pressure the material is already at");
     if (compress && !(P2 > a.P))
-        return stepError(step, idx, "compressing to " + bar(P2) + " would lower the pressure (it starts at " + bar(a.P) + "); use an expand step");
+        return stepError(step, idx, "compressing to " + c.P(P2) + " would lower the pressure (it starts at " + c.P(a.P) + "); use an expand step");
     if (!compress && !(P2 < a.P))
-        return stepError(step, idx, std::string(throttle ? "throttling" : "expanding") + " to " + bar(P2) +
-                                        " would raise the pressure (it starts at " + bar(a.P) + ")");
+        return stepError(step, idx, std::string(throttle ? "throttling" : "expanding") + " to " + c.P(P2) +
+                                        " would raise the pressure (it starts at " + c.P(a.P) + ")");
     Outcome o;
     const int n = std::max(2, c.points);
     auto Pk = [&](int k) { return a.P * std::pow(P2 / a.P, double(k) / (n - 1)); };
@@ -35,8 +39,6 @@ Result<Outcome> pressureChange(const Ctx& c, const Step& step, std::size_t idx, 
     seg.start = a;
 
     if (throttle) {
-        if (c.closed)
-            return stepError(step, idx, "throttling is a flow process; it needs a steady-flow system");
         auto end = c.model.statePH(P2, a.h);
         if (!end) return stepError(step, idx, end.error().message);
         o.end = *end;
@@ -52,8 +54,8 @@ Result<Outcome> pressureChange(const Ctx& c, const Step& step, std::size_t idx, 
             }
         const double dT = o.end.T - a.T;
         if (std::fabs(dT) > 1e-3)
-            o.warnings.push_back(std::string("Joule–Thomson effect: the temperature ") + (dT < 0 ? "falls" : "rises") +
-                                 " by " + num(std::fabs(dT), 3) + " K");
+            o.notes.push_back(std::string("Joule–Thomson effect: the temperature ") + (dT < 0 ? "falls" : "rises") +
+                              " by " + c.dT(std::fabs(dT), 3));
     } else {
         const PathKind path = step.path ? *step.path : (step.efficiency ? PathKind::Adiabatic : PathKind::Isentropic);
         const std::string what = compress ? "compression" : "expansion";
@@ -144,10 +146,18 @@ Result<Outcome> pressureChange(const Ctx& c, const Step& step, std::size_t idx, 
         } else if (path == PathKind::Isothermal) {
             o.W = c.m * (E(o.end) - E(a)) - o.Q;
         }
-        if (o.end.phase == Phase::LiquidVapor && o.end.quality)
+        // Saturated liquid (x = 0) and saturated vapour (x = 1) are one
+        // phase at the edge of the dome, the design inlets of a feed pump
+        // and of a refrigeration compressor; only a mixture strictly inside
+        // is two-phase.
+        auto mixture = [](const State& s) {
+            return s.phase == Phase::LiquidVapor && s.quality && *s.quality > 1e-9 && *s.quality < 1.0 - 1e-9;
+        };
+        if (mixture(o.end))
             o.warnings.push_back("discharge is two-phase (quality " + num(*o.end.quality, 3) + ")");
-        if (compress && a.phase == Phase::LiquidVapor)
-            o.warnings.push_back("compressing a two-phase mixture: liquid in a compressor damages it");
+        if (compress && mixture(a))
+            o.warnings.push_back("compressing a two-phase mixture (quality " + num(*a.quality, 3) +
+                                 "): liquid in a compressor damages it");
     }
     seg.end = o.end;
     seg.Q = o.Q;

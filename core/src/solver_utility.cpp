@@ -24,7 +24,8 @@ double UtilityProfile::massPerHeat() const {
     return 0.0;
 }
 
-Result<UtilityProfile> resolveUtility(const Utility& u) {
+Result<UtilityProfile> resolveUtility(const Utility& u, UnitSystem units, const UnitContext& context) {
+    auto bar = [&](double P) { return solver_detail::quantityText(P, Dimension::Pressure, units, context); };
     UtilityProfile p;
     p.id = u.id;
     p.kind = u.kind;
@@ -75,7 +76,7 @@ Result<UtilityProfile> resolveUtility(const Utility& u) {
 namespace solver_detail {
 
 // Reservoir temperature of a step, checked against the direction of heat.
-Result<std::optional<double>> reservoirFor(const Step& step, std::size_t idx, const Outcome& o, const State& a) {
+Result<std::optional<double>> reservoirFor(const Ctx& c, const Step& step, std::size_t idx, const Outcome& o, const State& a) {
     const Reservoir* r = nullptr;
     const char* role = nullptr;
     if (step.source) { r = &*step.source; role = "source"; }
@@ -94,13 +95,13 @@ Result<std::optional<double>> reservoirFor(const Step& step, std::size_t idx, co
         if (std::string(role) == "sink")
             return stepError(step, idx, "heat flows into the material in this step, so it needs a source, not a sink");
         if (Tr < Tmax - tol)
-            return stepError(step, idx, "the source at " + degC(Tr) + " is colder than the material reaches (" + degC(Tmax) +
+            return stepError(step, idx, "the source at " + c.T(Tr) + " is colder than the material reaches (" + c.T(Tmax) +
                                             "): heat cannot flow from cold to hot");
     } else if (o.Q < 0) {
         if (std::string(role) == "source")
             return stepError(step, idx, "heat leaves the material in this step, so it needs a sink, not a source");
         if (Tr > Tmin + tol)
-            return stepError(step, idx, "the sink at " + degC(Tr) + " is warmer than the material gets (" + degC(Tmin) +
+            return stepError(step, idx, "the sink at " + c.T(Tr) + " is warmer than the material gets (" + c.T(Tmin) +
                                             "): heat cannot flow from cold to hot");
     }
     return std::optional<double>{Tr};
@@ -135,10 +136,10 @@ Result<StepUtility> serveByUtility(const Ctx& c, const Step& step, std::size_t i
         return stepError(step, idx, "heat leaves the material in this step, so it needs a sink, not a source");
     if (u.kind == UtilityKind::Sensible) {
         if (asSource && u.Tin < u.Tout)
-            return stepError(step, idx, "utility \"" + u.id + "\" warms from " + degC(u.Tin) + " to " + degC(u.Tout) +
+            return stepError(step, idx, "utility \"" + u.id + "\" warms from " + c.T(u.Tin) + " to " + c.T(u.Tout) +
                                             ", so it can only take heat (a sink), not be a source");
         if (!asSource && u.Tin > u.Tout)
-            return stepError(step, idx, "utility \"" + u.id + "\" cools from " + degC(u.Tin) + " to " + degC(u.Tout) +
+            return stepError(step, idx, "utility \"" + u.id + "\" cools from " + c.T(u.Tin) + " to " + c.T(u.Tout) +
                                             ", so it can only give heat (a source), not be a sink");
     }
     su.line = {{Qcum, u.temperatureAt(0.0)}, {Qcum + o.Q, u.temperatureAt(1.0)}};
@@ -234,10 +235,10 @@ Result<StepUtility> serveByUtility(const Ctx& c, const Step& step, std::size_t i
     const double tol = 1e-9 * std::max(u.Tin, u.Tout);
     if (su.minApproach < -tol) {
         const std::string& label = o.segments[su.segment].label;
-        return stepError(step, idx, std::string("the ") + role + " \"" + u.id + "\" is " + degC(su.Tutility) +
-                                        " where the material is " + degC(su.Tmaterial) + " (" + su.position + " of " +
-                                        label + ", after " + num(su.approachDuty / 1e3, 5) +
-                                        (c.closed ? " kJ" : " kW") + " of the step's duty): heat cannot flow from cold to hot");
+        return stepError(step, idx, std::string("the ") + role + " \"" + u.id + "\" is " + c.T(su.Tutility) +
+                                        " where the material is " + c.T(su.Tmaterial) + " (" + su.position + " of " +
+                                        label + ", after " + c.E(su.approachDuty) +
+                                        " of the step's duty): heat cannot flow from cold to hot");
     }
     return su;
 }

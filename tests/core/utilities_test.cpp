@@ -5,6 +5,7 @@
 // different route than the solver's (which walks the sampled curve).
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
 #include <string>
 
@@ -138,12 +139,21 @@ TEST(Utilities, ApproachPinchAtTheBubblePoint) {
     EXPECT_DOUBLE_EQ(s.utility->line[0].T, 433.15);
     EXPECT_DOUBLE_EQ(s.utility->line[1].T, 573.15);
     EXPECT_DOUBLE_EQ(s.utility->line[1].Q - s.utility->line[0].Q, s.Q);
-    // About 36 K: no warning at the default 10 K; a warning at 40 K.
-    EXPECT_TRUE(s.warnings.empty());
+    // About 36 K: no approach warning at the default 10 K; one at 40 K. (The
+    // step also warns that it boils the water, which a heat step to 200 °C
+    // at 5 bar does without being asked.)
+    auto approachWarnings = [](const StepResult& st) {
+        return std::count_if(st.warnings.begin(), st.warnings.end(),
+                             [](const std::string& w) { return w.find("approach") != std::string::npos; });
+    };
+    EXPECT_EQ(approachWarnings(s), 0);
     auto r40 = solveText(project(kOil, kRaise, kStart5bar, R"j("minApproach": "40 K",)j"));
     ASSERT_TRUE(r40.ok());
-    ASSERT_EQ(r40.steps[0].warnings.size(), 1u);
-    EXPECT_CONTAINS(r40.steps[0].warnings[0], "below the minimum 40 K");
+    ASSERT_EQ(approachWarnings(r40.steps[0]), 1);
+    for (const auto& w : r40.steps[0].warnings)
+        if (w.find("approach") != std::string::npos) {
+            EXPECT_CONTAINS(w, "below the minimum 40 K");
+        }
 }
 
 TEST(Utilities, HeatFromColdToHotIsAnError) {

@@ -18,6 +18,29 @@ struct Error {
     std::string text() const;
 };
 
+// How much a message matters, decided in core; every surface shows the level.
+//   Error    the step (or the sequence) cannot be computed
+//   Warning  the result is probably not what was meant, or a model is
+//            stretched (outside its range, an approach below the required)
+//   Note     an ordinary fact worth knowing (the sensible part of a boil
+//            step, the temperature drop of a throttle)
+enum class MessageLevel { Error, Warning, Note };
+
+// "error", "warning", "note"
+constexpr const char* messageLevelId(MessageLevel level) {
+    switch (level) {
+        case MessageLevel::Error: return "error";
+        case MessageLevel::Warning: return "warning";
+        case MessageLevel::Note: return "note";
+    }
+    return "note";
+}
+
+struct Message {
+    MessageLevel level = MessageLevel::Note;
+    std::string text;
+};
+
 inline Error makeError(std::string message, std::string where = {}) {
     return Error{std::move(message), std::move(where), 0, 0};
 }

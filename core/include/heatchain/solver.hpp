@@ -56,7 +56,9 @@ struct UtilityProfile {
     // counter-current: the utility enters (T_in) where the material leaves.
     double temperatureAt(double f) const { return Tout + (Tin - Tout) * f; }
 };
-Result<UtilityProfile> resolveUtility(const Utility& u);
+// Messages quote temperatures and pressures in `units`.
+Result<UtilityProfile> resolveUtility(const Utility& u, UnitSystem units = UnitSystem::MetricEngineering,
+                                      const UnitContext& context = {});
 
 struct UtilityLinePoint {
     double Q;  // cumulative heat into the material from the sequence start, as CurvePoint::Q
@@ -107,7 +109,11 @@ struct StepResult {
     double Q = 0, W = 0, dH = 0, dU = 0, dS = 0, Sgen = 0, exergyDestroyed = 0;
     std::optional<double> reservoirT;  // the source or sink temperature used, K
     std::vector<SegmentResult> segments;
+    // Messages of the step by level (see MessageLevel); its error, if any, is
+    // `error`. messages() lists all three, most serious first.
     std::vector<std::string> warnings;
+    std::vector<std::string> notes;
+    std::vector<Message> messages() const;
     std::optional<StepUtility> utility;  // when the source or sink names a utility
 
     // Exergy (definitions in solver_exergy.cpp): specific exergy of the start and end
@@ -119,6 +125,12 @@ struct StepResult {
     double dEx = 0, exergyHeat = 0, usefulWork = 0, exergySupplied = 0;
     std::optional<double> secondLawEfficiency;
     double exergyDestroyedShare = 0;  // of the sequence total, 0–1 (bar chart)
+    // Heat exchanged with no source, sink or utility named: nothing is charged
+    // for the heat, so the step has no exergy-destroyed figure and no η_II
+    // (exergyDestroyed and Sgen stay 0, secondLawEfficiency empty); this says
+    // why ("no source given"), and the sequence's exergy figures leave the
+    // step out.
+    std::optional<std::string> exergyNotCharged;
 };
 
 struct Totals {
@@ -127,7 +139,10 @@ struct Totals {
     double coolingDuty = 0;  // sum of |negative Q|
     // Exergy of the sequence as one process (start state to last end state).
     double dEx = 0, exergyHeatIn = 0, exergyHeatOut = 0, workIn = 0, workOut = 0, exergySupplied = 0;
-    std::optional<double> secondLawEfficiency;
+    std::optional<double> secondLawEfficiency;  // none while a step fails
+    // False when any step was not computed; the sums above then add only
+    // the computed steps.
+    bool complete = true;
 };
 
 struct SequenceResult {
@@ -139,7 +154,11 @@ struct SequenceResult {
     State start;
     std::vector<StepResult> steps;
     Totals totals;
-    std::vector<std::string> warnings;  // sequence-wide (e.g. model range notes)
+    // Sequence-wide messages by level (a model's limits, steps left out of
+    // the exergy figures); messages() lists the start error, then these.
+    std::vector<std::string> warnings;
+    std::vector<std::string> notes;
+    std::vector<Message> messages() const;
     std::vector<UtilityTotal> utilities;  // one per project utility
     // Exergy needs the dead state: the substance at the surroundings' T and P,
     // same model. When it cannot be computed, exergy fields stay 0.
