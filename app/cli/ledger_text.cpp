@@ -6,6 +6,7 @@
 #include <sstream>
 #include <vector>
 
+#include "heatchain/rules.hpp"
 #include "heatchain/units.hpp"
 
 namespace heatchain::cli {
@@ -140,7 +141,7 @@ std::string utilitiesText(const Project& p, const SequenceResult& r) {
         std::string where = u.position + " of " + (u.segment < s.segments.size() ? s.segments[u.segment].label : "");
         if (u.position != "start" || u.segment != 0) where += ", after " + d.E(u.approachDuty);
         std::string approach = fixed(u.minApproach, 1) + " K";
-        if (u.minApproach < p.minApproachK() - 1e-6 && u.duty > 0) approach += " (!)";
+        if (approachBelowRequired(u.minApproach, p.minApproachK(), u.duty, true)) approach += " (!)";
         t.rows.push_back({s.id, u.id, u.asSource ? "source" : "sink", d.E(u.duty), use, exergy(s.exergyHeat), approach, where});
     }
     for (const auto& u : r.utilities) {
@@ -231,18 +232,25 @@ std::string ledgerText(const Project& p, const SequenceResult& r) {
             t.rows.push_back({s.id, std::string(stepKindId(s.kind)), "–", "–", s.error ? "ERROR" : "not computed"});
             continue;
         }
+        // Round-off shows as zero by core's rule, judged within the step.
+        const double eS = energyScale(s), sS = entropyScale(s);
+        auto e = [&](double v) { return fixed(E(forDisplay(v, eS)), dE_); };
+        auto en = [&](double v) { return fixed(S(forDisplay(v, sS)), dS_); };
         t.rows.push_back({s.id, std::string(stepKindId(s.kind)), fixed(T(s.end.T), 2), fixed(P(s.end.P), 4),
-                          phaseText(s.end), fixed(E(s.Q), dE_), fixed(E(s.W), dE_), fixed(E(s.dH), dE_),
-                          fixed(S(s.dS), dS_), fixed(S(s.Sgen), dS_),
-                          s.exergyNotCharged ? std::string("–") : fixed(E(s.exergyDestroyed), dE_)});
+                          phaseText(s.end), e(s.Q), e(s.W), e(s.dH), en(s.dS), en(s.Sgen),
+                          s.exergyNotCharged ? std::string("–") : e(s.exergyDestroyed)});
         if (s.segments.size() > 1)
             for (const auto& g : s.segments)
                 t.rows.push_back({"", "  " + g.label, fixed(T(g.end.T), 2), fixed(P(g.end.P), 4), phaseText(g.end),
-                                  fixed(E(g.Q), dE_)});
+                                  e(g.Q)});
     }
     const auto& tt = r.totals;
-    t.rows.push_back({tt.complete ? "total" : "total (incomplete)", "", "", "", "", fixed(E(tt.Q), dE_), fixed(E(tt.W), dE_), fixed(E(tt.dH), dE_),
-                      fixed(S(tt.dS), dS_), fixed(S(tt.Sgen), dS_), fixed(E(tt.exergyDestroyed), dE_)});
+    const double eT = std::max({std::fabs(tt.Q), std::fabs(tt.W), std::fabs(tt.dH), std::fabs(tt.dU)});
+    const double sT = std::max(std::fabs(tt.dS), std::fabs(tt.Sgen));
+    auto te = [&](double v) { return fixed(E(forDisplay(v, eT)), dE_); };
+    auto ts = [&](double v) { return fixed(S(forDisplay(v, sT)), dS_); };
+    t.rows.push_back({tt.complete ? "total" : "total (incomplete)", "", "", "", "", te(tt.Q), te(tt.W), te(tt.dH),
+                      ts(tt.dS), ts(tt.Sgen), te(tt.exergyDestroyed)});
     o << t.render();
     if (!tt.complete) {
         const auto done = std::count_if(r.steps.begin(), r.steps.end(), [](const StepResult& s) { return s.computed; });

@@ -37,6 +37,7 @@
 #include <utility>
 
 #include "atomic_save_faults.hpp"
+#include "heatchain/rules.hpp"
 #include "json_locations.hpp"
 #include "heatchain/tolerance.hpp"
 
@@ -218,18 +219,11 @@ public:
         return token;
     }
 
-    // A number within [lo, hi] (bounds open where said).
-    Number bounded(const Json& v, const JsonPath& path, double lo, bool loOpen, double hi, bool hiOpen,
-                   std::string_view what) const {
+    // A number within the range core gives its field (rules.hpp), the same
+    // rule the step panel and quick add apply.
+    Number bounded(const Json& v, const JsonPath& path, BoundedField field) const {
         Number n = number(v, path);
-        const bool okLow = loOpen ? n.value > lo : n.value >= lo;
-        const bool okHigh = hiOpen ? n.value < hi : n.value <= hi;
-        if (!okLow || !okHigh) {
-            std::ostringstream msg;
-            msg << what << " must be in " << (loOpen ? "(" : "[") << lo << ", " << hi << (hiOpen ? ")" : "]")
-                << "; found " << v.dump();
-            fail(path, msg.str());
-        }
+        if (auto problem = checkBounded(field, n.value)) fail(path, *problem);
         return n;
     }
 
@@ -365,9 +359,9 @@ void readStart(const Reader& r, const Json& v, StartSpec& start) {
     start.T = r.optionalQuantity(v, path, "T", Dimension::Temperature);
     start.P = r.optionalQuantity(v, path, "P", Dimension::Pressure);
     if (const Json* q = member(v, "quality"))
-        start.quality = r.bounded(*q, child(path, "quality"), 0, false, 1, false, "quality (vapour fraction)");
+        start.quality = r.bounded(*q, child(path, "quality"), BoundedField::Quality);
     if (const Json* m = member(v, "meltFraction"))
-        start.meltFraction = r.bounded(*m, child(path, "meltFraction"), 0, false, 1, false, "meltFraction");
+        start.meltFraction = r.bounded(*m, child(path, "meltFraction"), BoundedField::MeltFraction);
     start.extra = Reader::unknownFields(v, {"T", "P", "quality", "meltFraction"});
 
     const int given = (start.T ? 1 : 0) + (start.P ? 1 : 0);
@@ -486,13 +480,8 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
         s.to.duty = r.optionalQuantity(*to, toPath, "duty",
                                        p.system == SystemKind::Closed ? Dimension::Energy : Dimension::Power);
         if (const Json* q = member(*to, "quality"))
-            s.to.quality = r.bounded(*q, child(toPath, "quality"), 0, false, 1, false, "quality (vapour fraction)");
-        if (const Json* ratio = member(*to, "ratio")) {
-            s.to.ratio = r.number(*ratio, child(toPath, "ratio"));
-            if (!(s.to.ratio->value > 1.0))
-                r.fail(child(toPath, "ratio"), "a pressure ratio must be greater than 1 (expand divides by it); found " +
-                                                   ratio->dump());
-        }
+            s.to.quality = r.bounded(*q, child(toPath, "quality"), BoundedField::Quality);
+        if (const Json* ratio = member(*to, "ratio")) s.to.ratio = r.bounded(*ratio, child(toPath, "ratio"), BoundedField::Ratio);
         s.to.extra = Reader::unknownFields(*to, kTargetFields);
         s.hasTo = true;
     } else if (heatCool) {
@@ -517,7 +506,7 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
     }
 
     if (const Json* f = member(v, "fraction"))
-        s.fraction = r.bounded(*f, child(path, "fraction"), 0, true, 1, false, "fraction");
+        s.fraction = r.bounded(*f, child(path, "fraction"), BoundedField::Fraction);
 
     if (machine) {
         // Without "path": adiabatic when an efficiency is given, else
@@ -540,7 +529,7 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
         const PathKind effective = s.path ? *s.path : (eff ? PathKind::Adiabatic : PathKind::Isentropic);
         if (effective == PathKind::Polytropic) {
             if (!n) r.fail(path, "a polytropic path needs the exponent \"n\", e.g. 1.3");
-            s.n = r.number(*n, child(path, "n"));
+            s.n = r.bounded(*n, child(path, "n"), BoundedField::PolytropicExponent);
         } else if (n) {
             r.fail(child(path, "n"), "\"n\" belongs to a polytropic path; this path is " + pathName);
         }
@@ -548,7 +537,7 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
             if (effective != PathKind::Adiabatic)
                 r.fail(child(path, "efficiency"),
                        "\"efficiency\" belongs to an adiabatic path; this path is " + pathName);
-            s.efficiency = r.bounded(*eff, child(path, "efficiency"), 0, true, 1, false, "efficiency");
+            s.efficiency = r.bounded(*eff, child(path, "efficiency"), BoundedField::Efficiency);
         }
     }
 

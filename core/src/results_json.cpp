@@ -2,6 +2,8 @@
 // fixed keys, SI numbers. Also the CSV ledger with units in the header row.
 #include "heatchain/results_json.hpp"
 
+#include "heatchain/rules.hpp"
+
 #include <cmath>
 #include <cstdio>
 #include <sstream>
@@ -27,7 +29,7 @@ Json utilityStepJson(const StepUtility& u, double minApproach, const std::vector
     Json a = Json::object();
     a["minimum_K"] = u.minApproach;
     a["required_K"] = minApproach;
-    a["belowRequired"] = u.minApproach < minApproach - 1e-6 && u.duty > 0;
+    a["belowRequired"] = approachBelowRequired(u.minApproach, minApproach, u.duty, true);
     a["segment"] = u.segment;
     a["segmentLabel"] = u.segment < segs.size() ? segs[u.segment].label : std::string();
     a["position"] = u.position;

@@ -15,6 +15,7 @@
 #include <cstdio>
 #include <string>
 
+#include "heatchain/rules.hpp"
 #include "solver_internal.hpp"
 
 namespace heatchain {
@@ -201,8 +202,7 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
                 break;
             }
             if (o.Q != 0 && !o.adiabatic) sr.reservoirT = su->Tmean;
-            // 1 µK of slack: "38 degC" against "28 degC" is 10 K, not 9.999999999999943 K.
-            if (su->minApproach < project.minApproachK() - 1e-6 && o.Q != 0) {
+            if (approachBelowRequired(su->minApproach, project.minApproachK(), o.Q, true)) {
                 o.warnings.push_back("approach to " + std::string(su->asSource ? "source" : "sink") + " \"" + su->id +
                                      "\" is " + c.dT(su->minApproach, 3) + ", below the minimum " +
                                      c.dT(project.minApproachK(), 3) + " (" + su->position + " of " +

@@ -5,6 +5,7 @@
 #include <cmath>
 #include <string>
 
+#include "heatchain/rules.hpp"
 #include "solver_internal.hpp"
 
 namespace heatchain::solver_detail {
@@ -17,7 +18,7 @@ Result<Outcome> pressureChange(const Ctx& c, const Step& step, std::size_t idx, 
         P2 = step.to.P->si;
     } else if (step.to.ratio && !throttle) {
         const double r = step.to.ratio->value;
-        if (!(r > 1)) return stepError(step, idx, "pressure ratio must be greater than 1, got " + num(r));
+        if (auto problem = checkBounded(BoundedField::Ratio, r)) return stepError(step, idx, *problem);
         P2 = compress ? a.P * r : a.P / r;
     } else {
         return stepError(step, idx, std::string(stepKindId(step.kind)) +
@@ -65,8 +66,7 @@ Result<Outcome> pressureChange(const Ctx& c, const Step& step, std::size_t idx, 
             case PathKind::Isentropic:
             case PathKind::Adiabatic: {
                 const double eta = path == PathKind::Adiabatic ? (step.efficiency ? step.efficiency->value : 1.0) : 1.0;
-                if (!(eta > 0 && eta <= 1))
-                    return stepError(step, idx, "isentropic efficiency must be in (0, 1], got " + num(eta));
+                if (auto problem = checkBounded(BoundedField::Efficiency, eta)) return stepError(step, idx, *problem);
                 auto endAt = [&](double P) -> Result<State> {
                     auto s = c.model.statePS(P, a.s);
                     if (!s || eta == 1.0) return s;
@@ -116,7 +116,7 @@ Result<Outcome> pressureChange(const Ctx& c, const Step& step, std::size_t idx, 
             case PathKind::Polytropic: {
                 if (!step.n) return stepError(step, idx, "a polytropic path needs the exponent n");
                 const double nn = step.n->value;
-                if (!(nn > 0)) return stepError(step, idx, "polytropic exponent n must be positive, got " + num(nn));
+                if (auto problem = checkBounded(BoundedField::PolytropicExponent, nn)) return stepError(step, idx, *problem);
                 auto vAt = [&](double P) { return a.v * std::pow(a.P / P, 1.0 / nn); };
                 auto end = c.model.stateP(P2, Property::Volume, vAt(P2));
                 if (!end) return stepError(step, idx, end.error().message);
