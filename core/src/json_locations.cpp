@@ -235,13 +235,20 @@ JsonPath child(const JsonPath& parent, long index) {
 std::string formatJsonPath(const JsonPath& path) {
     std::string out;
     for (const JsonPathElement& e : path) {
+        // Appended piece by piece: "[" + std::to_string(…) makes GCC 12's
+        // -Wrestrict see an overlapping copy in std::string's insert when
+        // optimising (a false positive), which breaks Release -Werror builds.
         if (e.index >= 0) {
-            out += "[" + std::to_string(e.index) + "]";
+            out += '[';
+            out += std::to_string(e.index);
+            out += ']';
         } else if (isPlainName(e.key)) {
-            if (!out.empty()) out += ".";
+            if (!out.empty()) out += '.';
             out += e.key;
         } else {
-            out += "[\"" + e.key + "\"]";
+            out += "[\"";
+            out += e.key;
+            out += "\"]";
         }
     }
     return out;
