@@ -18,11 +18,6 @@
 // "2.5" on the first save, and stays so).
 #include "heatchain/project_file.hpp"
 
-#include <fcntl.h>
-#include <sys/stat.h>
-#include <unistd.h>
-
-#include <atomic>
 #include <cerrno>
 #include <cmath>
 #include <cstring>
@@ -36,19 +31,11 @@
 #include <string>
 #include <utility>
 
-#include "atomic_save_faults.hpp"
 #include "heatchain/rules.hpp"
 #include "json_locations.hpp"
 #include "heatchain/tolerance.hpp"
 
 namespace heatchain {
-
-namespace detail {
-AtomicSaveFaults& atomicSaveFaultsForTests() {
-    static AtomicSaveFaults faults;
-    return faults;
-}
-}  // namespace detail
 
 namespace {
 
@@ -832,76 +819,86 @@ Json quantityJson(const Quantity& q, Dimension d) {
     return s.str();
 }
 
-// While writeProject runs, numbers typed in a file are written through
-// placeholders that are swapped for their original characters after the dump
-// (nlohmann/json always reprints a double in its own shortest form).
-thread_local std::vector<std::string>* typedNumbers = nullptr;
-
-Json numberJson(const Number& n) {
-    if (typedNumbers && !n.text.empty() && n.raw.is_number()) {
-        typedNumbers->push_back(n.text);
-        return "\x01hcnum" + std::to_string(typedNumbers->size() - 1) + "\x01";
-    }
-    if (n.raw.is_number() || n.raw.is_string()) return n.raw;
-    return n.value;
-}
-
 void appendExtra(Json& j, const Json& extra) {
     if (!extra.is_object()) return;
     for (auto it = extra.begin(); it != extra.end(); ++it)
         if (!j.contains(it.key())) j[it.key()] = it.value();
 }
 
-Json reservoirJson(const Reservoir& r) {
-    Json j = Json::object();
-    if (r.T) j["T"] = quantityJson(*r.T, Dimension::Temperature);
-    if (r.utility) j["utility"] = *r.utility;
-    appendExtra(j, r.extra);
-    return j;
-}
+// The writer mirrors the reader: one object per write, one member per part
+// of the file. Numbers typed in a file are written through placeholders
+// (when `typed` is given) that writeProject swaps for their original
+// characters after the dump: nlohmann/json always reprints a double in its
+// own shortest form.
+class Writer {
+public:
+    explicit Writer(std::vector<std::string>* typed) : typed_(typed) {}
 
-Json stepJson(const Step& s, SystemKind system) {
-    Json j = Json::object();
-    j["id"] = s.id;
-    j["kind"] = std::string(stepKindId(s.kind));
-    if (s.hasTo) {
-        Json to = Json::object();
-        if (s.to.T) to["T"] = quantityJson(*s.to.T, Dimension::Temperature);
-        if (s.to.P) to["P"] = quantityJson(*s.to.P, Dimension::Pressure);
-        if (s.to.duty)
-            to["duty"] = quantityJson(*s.to.duty, system == SystemKind::Closed ? Dimension::Energy : Dimension::Power);
-        if (s.to.quality) to["quality"] = numberJson(*s.to.quality);
-        if (s.to.ratio) to["ratio"] = numberJson(*s.to.ratio);
-        appendExtra(to, s.to.extra);
-        j["to"] = std::move(to);
+    std::string project(const Project& p) const;
+
+private:
+    std::vector<std::string>* typed_;  // null: numbers in nlohmann/json's form
+
+    Json number(const Number& n) const {
+        if (typed_ && !n.text.empty() && n.raw.is_number()) {
+            typed_->push_back(n.text);
+            return "\x01hcnum" + std::to_string(typed_->size() - 1) + "\x01";
+        }
+        if (n.raw.is_number() || n.raw.is_string()) return n.raw;
+        return n.value;
     }
-    if (s.at) j["at"] = *s.at == HeatingAt::ConstantVolume ? "constant-volume" : "constant-pressure";
-    if (s.fraction) j["fraction"] = numberJson(*s.fraction);
-    if (s.path) j["path"] = std::string(pathId(*s.path));
-    if (s.n) j["n"] = numberJson(*s.n);
-    if (s.efficiency) j["efficiency"] = numberJson(*s.efficiency);
-    if (s.source) j["source"] = reservoirJson(*s.source);
-    if (s.sink) j["sink"] = reservoirJson(*s.sink);
-    if (s.note) j["note"] = *s.note;
-    appendExtra(j, s.extra);
-    return j;
-}
 
-// Key order: id, kind, name, P, in, out, cp, density, T, then unknown fields.
-Json utilityJson(const Utility& u) {
-    Json j = Json::object();
-    j["id"] = u.id;
-    j["kind"] = std::string(utilityKindId(u.kind));
-    if (u.name) j["name"] = *u.name;
-    if (u.P) j["P"] = quantityJson(*u.P, Dimension::Pressure);
-    if (u.Tin) j["in"] = quantityJson(*u.Tin, Dimension::Temperature);
-    if (u.Tout) j["out"] = quantityJson(*u.Tout, Dimension::Temperature);
-    if (u.cp) j["cp"] = quantityJson(*u.cp, Dimension::SpecificEntropy);
-    if (u.density) j["density"] = quantityJson(*u.density, Dimension::Density);
-    if (u.T) j["T"] = quantityJson(*u.T, Dimension::Temperature);
-    appendExtra(j, u.extra);
-    return j;
-}
+    static Json reservoir(const Reservoir& r) {
+        Json j = Json::object();
+        if (r.T) j["T"] = quantityJson(*r.T, Dimension::Temperature);
+        if (r.utility) j["utility"] = *r.utility;
+        appendExtra(j, r.extra);
+        return j;
+    }
+
+    Json step(const Step& s, SystemKind system) const {
+        Json j = Json::object();
+        j["id"] = s.id;
+        j["kind"] = std::string(stepKindId(s.kind));
+        if (s.hasTo) {
+            Json to = Json::object();
+            if (s.to.T) to["T"] = quantityJson(*s.to.T, Dimension::Temperature);
+            if (s.to.P) to["P"] = quantityJson(*s.to.P, Dimension::Pressure);
+            if (s.to.duty)
+                to["duty"] = quantityJson(*s.to.duty, system == SystemKind::Closed ? Dimension::Energy : Dimension::Power);
+            if (s.to.quality) to["quality"] = number(*s.to.quality);
+            if (s.to.ratio) to["ratio"] = number(*s.to.ratio);
+            appendExtra(to, s.to.extra);
+            j["to"] = std::move(to);
+        }
+        if (s.at) j["at"] = *s.at == HeatingAt::ConstantVolume ? "constant-volume" : "constant-pressure";
+        if (s.fraction) j["fraction"] = number(*s.fraction);
+        if (s.path) j["path"] = std::string(pathId(*s.path));
+        if (s.n) j["n"] = number(*s.n);
+        if (s.efficiency) j["efficiency"] = number(*s.efficiency);
+        if (s.source) j["source"] = reservoir(*s.source);
+        if (s.sink) j["sink"] = reservoir(*s.sink);
+        if (s.note) j["note"] = *s.note;
+        appendExtra(j, s.extra);
+        return j;
+    }
+
+    // Key order: id, kind, name, P, in, out, cp, density, T, then unknown fields.
+    static Json utility(const Utility& u) {
+        Json j = Json::object();
+        j["id"] = u.id;
+        j["kind"] = std::string(utilityKindId(u.kind));
+        if (u.name) j["name"] = *u.name;
+        if (u.P) j["P"] = quantityJson(*u.P, Dimension::Pressure);
+        if (u.Tin) j["in"] = quantityJson(*u.Tin, Dimension::Temperature);
+        if (u.Tout) j["out"] = quantityJson(*u.Tout, Dimension::Temperature);
+        if (u.cp) j["cp"] = quantityJson(*u.cp, Dimension::SpecificEntropy);
+        if (u.density) j["density"] = quantityJson(*u.density, Dimension::Density);
+        if (u.T) j["T"] = quantityJson(*u.T, Dimension::Temperature);
+        appendExtra(j, u.extra);
+        return j;
+    }
+};
 
 std::string osReason(int error) { return std::strerror(error); }
 
@@ -939,13 +936,9 @@ Result<Project> loadProject(const std::filesystem::path& file) {
     return parseProject(text, name);
 }
 
-std::string writeProjectDump(const Project& p);
-
 std::string writeProject(const Project& p) {
     std::vector<std::string> typed;
-    typedNumbers = &typed;
-    std::string out = writeProjectDump(p);
-    typedNumbers = nullptr;
+    std::string out = Writer(&typed).project(p);
     if (typed.empty()) return out;
     // Swap each placeholder for the typed characters; if a placeholder is not
     // found exactly once (a string value that happens to look like one), write
@@ -961,17 +954,17 @@ std::string writeProject(const Project& p) {
         const std::size_t digits = q;
         while (q < out.size() && out[q] >= '0' && out[q] <= '9' && q - digits < 12) k = k * 10 + std::size_t(out[q++] - '0');
         if (q == digits || out.compare(q, close.size(), close) != 0) continue;  // not a placeholder
-        if (k >= typed.size() || ++seen[k] > 1) return writeProjectDump(p);
+        if (k >= typed.size() || ++seen[k] > 1) return Writer(nullptr).project(p);
         swapped.append(std::string_view(out).substr(from, at - from)).append(typed[k]);
         from = q + close.size();
     }
     swapped.append(std::string_view(out).substr(from));
     for (int n : seen)
-        if (n != 1) return writeProjectDump(p);
+        if (n != 1) return Writer(nullptr).project(p);
     return swapped;
 }
 
-std::string writeProjectDump(const Project& p) {
+std::string Writer::project(const Project& p) const {
     Json j = Json::object();
     j["format"] = std::string(kFormatName);
     j["version"] = p.version;
@@ -1023,8 +1016,8 @@ std::string writeProjectDump(const Project& p) {
     Json start = Json::object();
     if (p.start.T) start["T"] = quantityJson(*p.start.T, Dimension::Temperature);
     if (p.start.P) start["P"] = quantityJson(*p.start.P, Dimension::Pressure);
-    if (p.start.quality) start["quality"] = numberJson(*p.start.quality);
-    if (p.start.meltFraction) start["meltFraction"] = numberJson(*p.start.meltFraction);
+    if (p.start.quality) start["quality"] = number(*p.start.quality);
+    if (p.start.meltFraction) start["meltFraction"] = number(*p.start.meltFraction);
     appendExtra(start, p.start.extra);
     j["start"] = std::move(start);
 
@@ -1032,7 +1025,7 @@ std::string writeProjectDump(const Project& p) {
     if (p.minApproach) j["minApproach"] = quantityJson(*p.minApproach, Dimension::TemperatureDifference);
     if (p.hasUtilities || !p.utilities.empty()) {
         Json list = Json::array();
-        for (const Utility& u : p.utilities) list.push_back(utilityJson(u));
+        for (const Utility& u : p.utilities) list.push_back(utility(u));
         j["utilities"] = std::move(list);
     }
 
@@ -1042,7 +1035,7 @@ std::string writeProjectDump(const Project& p) {
     appendExtra(j, extra);
 
     Json steps = Json::array();
-    for (const Step& s : p.steps) steps.push_back(stepJson(s, p.system));
+    for (const Step& s : p.steps) steps.push_back(step(s, p.system));
     j["steps"] = std::move(steps);
 
     // Invalid UTF-8 cannot come from a parsed file; from code it is replaced
@@ -1052,96 +1045,6 @@ std::string writeProjectDump(const Project& p) {
 
 Status saveProject(const Project& project, const std::filesystem::path& file) {
     return writeFileAtomically(file, writeProject(project), true);
-}
-
-Status writeFileAtomically(const std::filesystem::path& file, std::string_view bytes, bool keepBackup) {
-    namespace fs = std::filesystem;
-    const detail::AtomicSaveFaults& faults = detail::atomicSaveFaultsForTests();
-    const std::string name = file.string();
-    std::error_code ec;
-
-    // Saving through a symbolic link replaces the file it points to, not the link.
-    fs::path target = file;
-    if (fs::is_symlink(target, ec)) {
-        const fs::path resolved = fs::weakly_canonical(target, ec);
-        if (!ec) target = resolved;
-    }
-    if (target.filename().empty()) return makeError("cannot save: no file name", name);
-    if (fs::is_directory(target, ec)) return makeError("cannot save: this is a folder", name);
-    fs::path folder = target.parent_path();
-    if (folder.empty()) folder = ".";
-    if (!fs::is_directory(folder, ec))
-        return makeError("cannot save: the folder " + folder.string() + " does not exist", name);
-
-    static std::atomic<unsigned> counter{0};
-    const fs::path temp = folder / ("." + target.filename().string() + ".saving-" + std::to_string(::getpid()) + "-" +
-                                    std::to_string(counter++));
-    const int fd = ::open(temp.c_str(), O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0666);
-    if (fd < 0)
-        return makeError("cannot save: cannot create a temporary file in " + folder.string() + ": " +
-                             osReason(errno),
-                         name);
-
-    auto abandon = [&](const std::string& what, int error) -> Status {
-        ::close(fd);
-        ::unlink(temp.c_str());
-        return makeError("cannot save: " + what + ": " + osReason(error) + "; the file on disk is unchanged", name);
-    };
-
-    // Keep the previous file's permissions.
-    struct stat previous {};
-    const bool hadFile = ::stat(target.c_str(), &previous) == 0;
-    if (hadFile) (void)::fchmod(fd, previous.st_mode & 07777);
-
-    std::size_t done = 0;
-    int interruptions = 0;
-    while (done < bytes.size()) {
-        std::size_t chunk = bytes.size() - done;
-        if (faults.failWriteAfterBytes >= 0) {
-            const auto limit = static_cast<std::size_t>(faults.failWriteAfterBytes);
-            if (done >= limit) return abandon("writing the temporary file failed", ENOSPC);
-            chunk = std::min(chunk, limit - done);
-        }
-        const ssize_t written = ::write(fd, bytes.data() + done, chunk);
-        if (written < 0) {
-            if (errno == EINTR && ++interruptions < 100) continue;
-            return abandon("writing the temporary file failed", errno);
-        }
-        if (written == 0) return abandon("writing the temporary file made no progress", EIO);
-        done += static_cast<std::size_t>(written);
-    }
-    if (faults.failSync) return abandon("flushing the temporary file to disk failed", EIO);
-    if (::fsync(fd) != 0) return abandon("flushing the temporary file to disk failed", errno);
-    if (::close(fd) != 0) {
-        const int error = errno;
-        ::unlink(temp.c_str());
-        return makeError("cannot save: closing the temporary file failed: " + osReason(error) +
-                             "; the file on disk is unchanged",
-                         name);
-    }
-
-    auto discard = [&](const std::string& what, int error) -> Status {
-        ::unlink(temp.c_str());
-        return makeError("cannot save: " + what + ": " + osReason(error) + "; the file on disk is unchanged", name);
-    };
-    if (keepBackup && hadFile) {
-        fs::path backup = target;
-        backup += ".bak";
-        if (faults.failBackup) return discard("cannot keep the previous version as " + backup.string(), EACCES);
-        fs::copy_file(target, backup, fs::copy_options::overwrite_existing, ec);
-        if (ec) return discard("cannot keep the previous version as " + backup.string(), ec.value());
-    }
-    if (faults.failRename) return discard("cannot replace the file with the new version", EACCES);
-    if (::rename(temp.c_str(), target.c_str()) != 0)
-        return discard("cannot replace the file with the new version", errno);
-
-    // Make the rename itself durable (best effort: some file systems refuse).
-    const int dirFd = ::open(folder.c_str(), O_RDONLY | O_DIRECTORY | O_CLOEXEC);
-    if (dirFd >= 0) {
-        (void)::fsync(dirFd);
-        ::close(dirFd);
-    }
-    return Ok{};
 }
 
 }  // namespace heatchain
