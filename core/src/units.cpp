@@ -89,6 +89,12 @@ constexpr std::array kUnits = std::to_array<UnitInfo>({
     {"barg", D::Pressure, kBar_Pa, 0.0, true},
     {"kPag", D::Pressure, 1.0e3, 0.0, true},
     {"psig", D::Pressure, kPsi_Pa, 0.0, true},
+    {"MPag", D::Pressure, 1.0e6, 0.0, true},
+    // Kilogram-force per square centimetre (the technical atmosphere), still
+    // on older plants' gauges: 1 kgf/cm2 = 9.806 65 E+04 Pa (NIST SP 811
+    // (2008), Appendix B.8), here as g_n * 1 kg / 1 cm2.
+    {"kgf/cm2", D::Pressure, kStandardGravity_m_s2 * 1.0e4, 0.0, false},
+    {"kgf/cm2g", D::Pressure, kStandardGravity_m_s2 * 1.0e4, 0.0, true},
 
     {"kg", D::Mass, 1.0, 0.0, false},
     {"g", D::Mass, 1.0e-3, 0.0, false},
@@ -195,6 +201,29 @@ constexpr std::array kAliases = std::to_array<Alias>({
     {"°F", D::TemperatureDifference, "delta_degF"},
     {"F", D::TemperatureDifference, "delta_degF"},
     {"psi", D::Pressure, "psia"},
+    // The written forms of absolute and gauge on data sheets and P&IDs. Spaces
+    // are dropped before the lookup, so "bar g" reads as "barg" and
+    // "bar(a)" as "bar(a)".
+    {"bara", D::Pressure, "bar"},
+    {"bar(a)", D::Pressure, "bar"},
+    {"bar(abs)", D::Pressure, "bar"},
+    {"bar(g)", D::Pressure, "barg"},
+    {"kPaa", D::Pressure, "kPa"},
+    {"kPa(a)", D::Pressure, "kPa"},
+    {"kPa(g)", D::Pressure, "kPag"},
+    {"MPaa", D::Pressure, "MPa"},
+    {"MPa(a)", D::Pressure, "MPa"},
+    {"MPa(g)", D::Pressure, "MPag"},
+    {"psi(a)", D::Pressure, "psia"},
+    {"psi(g)", D::Pressure, "psig"},
+    {"kg/cm2", D::Pressure, "kgf/cm2"},
+    {"kg/cm2a", D::Pressure, "kgf/cm2"},
+    {"kg/cm2(a)", D::Pressure, "kgf/cm2"},
+    {"kgf/cm2a", D::Pressure, "kgf/cm2"},
+    {"kgf/cm2(a)", D::Pressure, "kgf/cm2"},
+    {"kg/cm2g", D::Pressure, "kgf/cm2g"},
+    {"kg/cm2(g)", D::Pressure, "kgf/cm2g"},
+    {"kgf/cm2(g)", D::Pressure, "kgf/cm2g"},
     {"tonne", D::Mass, "t"},
     {"kg/hr", D::MassFlow, "kg/h"},
     {"lb/hr", D::MassFlow, "lb/h"},
@@ -231,6 +260,7 @@ std::string normaliseUnit(std::string_view u) {
             const unsigned char n = static_cast<unsigned char>(u[i + 1]);
             if (n == 0xB7) { ++i; continue; }                 // '·'
             if (n == 0xB3) { ++i; out.push_back('3'); continue; }  // '³'
+            if (n == 0xB2) { ++i; out.push_back('2'); continue; }  // '²'
         }
         if (c == 0xE2 && i + 2 < u.size() && static_cast<unsigned char>(u[i + 1]) == 0x8B &&
             static_cast<unsigned char>(u[i + 2]) == 0x85) {  // '⋅'
@@ -462,6 +492,17 @@ Result<double> fromSI(double si, std::string_view unit, Dimension dimension, con
     return (si - offsetOf(**u, context)) / (*u)->factor;
 }
 
+std::string_view displayUnit(Dimension d, UnitSystem system, const UnitContext& context) {
+    if (d == D::Pressure && context.gaugeDisplay) {
+        switch (system) {
+            case UnitSystem::SI: return "kPag";
+            case UnitSystem::MetricEngineering: return "barg";
+            case UnitSystem::USCustomary: return "psig";
+        }
+    }
+    return displayUnit(d, system);
+}
+
 std::string_view displayUnit(Dimension d, UnitSystem system) {
     const int s = static_cast<int>(system);  // SI, MetricEngineering, USCustomary
     auto pick = [s](std::string_view si, std::string_view metric, std::string_view us) {
@@ -525,6 +566,16 @@ double toDisplay(double si, Dimension d, UnitSystem system, const UnitContext& c
         return t;
     }();
     const UnitInfo* u = table[std::size_t(static_cast<int>(d))][std::size_t(static_cast<int>(system))];
+    if (d == D::Pressure && context.gaugeDisplay) {
+        static const auto gauge = [] {
+            std::array<const UnitInfo*, kSystems> g{};
+            for (int s = 0; s < kSystems; ++s)
+                g[std::size_t(s)] = findIn(displayUnit(D::Pressure, static_cast<UnitSystem>(s), UnitContext{101325.0, true}),
+                                           D::Pressure);
+            return g;
+        }();
+        u = gauge[std::size_t(static_cast<int>(system))];
+    }
     if (!u) return si;
     return (si - offsetOf(*u, context)) / u->factor;
 }
@@ -532,7 +583,7 @@ double toDisplay(double si, Dimension d, UnitSystem system, const UnitContext& c
 std::string formatQuantity(double si, Dimension d, UnitSystem system, const UnitContext& context,
                            int significant) {
     const double v = toDisplay(si, d, system, context);
-    const std::string_view unit = displayUnit(d, system);
+    const std::string_view unit = displayUnit(d, system, context);
     std::string number;
     if (!std::isfinite(v)) {
         number = std::isnan(v) ? "NaN" : (v > 0 ? "inf" : "-inf");

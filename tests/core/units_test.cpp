@@ -76,6 +76,51 @@ TEST(Units, PressuresAbsoluteAndGauge) {
     EXPECT_DOUBLE_EQ(parsed("-0.5 barg", Dimension::Pressure), 51325.0);
 }
 
+TEST(Units, WrittenFormsOfAbsoluteAndGauge) {
+    // The forms on data sheets and P&IDs: each is the same pressure as the
+    // plain spelling (absolute = gauge + atmosphere, 101 325 Pa by default).
+    for (const char* gauge : {"4 barg", "4 bar g", "4 bar(g)", "4 bar (g)"})
+        EXPECT_DOUBLE_EQ(parsed(gauge, Dimension::Pressure), 4e5 + 101325.0) << gauge;
+    for (const char* absolute : {"4 bar", "4 bara", "4 bar a", "4 bar(a)", "4 bar (abs)"})
+        EXPECT_DOUBLE_EQ(parsed(absolute, Dimension::Pressure), 4e5) << absolute;
+    EXPECT_DOUBLE_EQ(parsed("300 kPa(a)", Dimension::Pressure), 3e5);
+    EXPECT_DOUBLE_EQ(parsed("300 kPa(g)", Dimension::Pressure), 3e5 + 101325.0);
+    EXPECT_DOUBLE_EQ(parsed("1.2 MPa(g)", Dimension::Pressure), 1.2e6 + 101325.0);
+    EXPECT_DOUBLE_EQ(parsed("1.2 MPag", Dimension::Pressure), 1.2e6 + 101325.0);
+    EXPECT_NEAR(parsed("10 psi(g)", Dimension::Pressure), 68947.57 + 101325.0, 1e-2);
+    EXPECT_NEAR(parsed("10 psi g", Dimension::Pressure), 68947.57 + 101325.0, 1e-2);
+    EXPECT_NEAR(parsed("10 psi(a)", Dimension::Pressure), 68947.57, 1e-2);
+    // Kilogram-force per square centimetre: 9.806 65 E+04 Pa (NIST SP 811
+    // (2008), Appendix B.8, "kilogram-force per square centimeter").
+    EXPECT_DOUBLE_EQ(parsed("1 kgf/cm2", Dimension::Pressure), 98066.5);
+    EXPECT_DOUBLE_EQ(parsed("1 kg/cm2", Dimension::Pressure), 98066.5);
+    EXPECT_DOUBLE_EQ(parsed("1 kg/cm²", Dimension::Pressure), 98066.5);
+    EXPECT_DOUBLE_EQ(parsed("7 kg/cm2 g", Dimension::Pressure), 7 * 98066.5 + 101325.0);
+    EXPECT_DOUBLE_EQ(parsed("7 kg/cm2(g)", Dimension::Pressure), 7 * 98066.5 + 101325.0);
+    EXPECT_DOUBLE_EQ(parsed("7 kgf/cm2g", Dimension::Pressure), 7 * 98066.5 + 101325.0);
+    // Gauge follows the worksheet's atmosphere.
+    EXPECT_DOUBLE_EQ(parsed("1 bar(g)", Dimension::Pressure, UnitContext{90000.0}), 190000.0);
+}
+
+TEST(Units, GaugeDisplay) {
+    // A display context may ask for gauge: the number is absolute minus the
+    // atmosphere, and the unit says gauge.
+    UnitContext gauge{101325.0, true};
+    EXPECT_EQ(displayUnit(Dimension::Pressure, UnitSystem::MetricEngineering, gauge), "barg");
+    EXPECT_EQ(displayUnit(Dimension::Pressure, UnitSystem::SI, gauge), "kPag");
+    EXPECT_EQ(displayUnit(Dimension::Pressure, UnitSystem::USCustomary, gauge), "psig");
+    EXPECT_EQ(displayUnit(Dimension::Pressure, UnitSystem::MetricEngineering, UnitContext{}), "bar");
+    EXPECT_DOUBLE_EQ(toDisplay(501325.0, Dimension::Pressure, UnitSystem::MetricEngineering, gauge), 4.0);
+    EXPECT_DOUBLE_EQ(toDisplay(501325.0, Dimension::Pressure, UnitSystem::MetricEngineering), 5.01325);
+    EXPECT_EQ(formatQuantity(501325.0, Dimension::Pressure, UnitSystem::MetricEngineering, gauge), "4.0000 barg");
+    // Temperatures are not affected.
+    EXPECT_DOUBLE_EQ(toDisplay(373.15, Dimension::Temperature, UnitSystem::MetricEngineering, gauge), 100.0);
+    // What is printed reads back as the same pressure.
+    EXPECT_DOUBLE_EQ(parsed(formatQuantity(501325.0, Dimension::Pressure, UnitSystem::MetricEngineering, gauge),
+                            Dimension::Pressure),
+                     501325.0);
+}
+
 TEST(Units, MassFlowEnergyAndTheRest) {
     EXPECT_NEAR(parsed("4.2 t/h", Dimension::MassFlow), 4200.0 / 3600.0, 1e-15);
     EXPECT_NEAR(parsed("3600 kg/h", Dimension::MassFlow), 1.0, 1e-15);

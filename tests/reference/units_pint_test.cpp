@@ -53,6 +53,9 @@ const std::map<std::pair<D, std::string>, std::string>& pintNames() {
         {{D::Pressure, "barg"}, "bar"},   // factor only, see header comment
         {{D::Pressure, "kPag"}, "kPa"},   // factor only
         {{D::Pressure, "psig"}, "psi"},   // factor only
+        {{D::Pressure, "MPag"}, "MPa"},   // factor only
+        {{D::Pressure, "kgf/cm2"}, "kgf/cm**2"},
+        {{D::Pressure, "kgf/cm2g"}, "kgf/cm**2"},  // factor only
         {{D::Mass, "kg"}, "kg"},
         {{D::Mass, "g"}, "g"},
         {{D::Mass, "t"}, "tonne"},
@@ -212,9 +215,13 @@ TEST(UnitsAgainstPint, ParsedTextMatchesPintIncludingGauge) {
         "print(repr((Q(3.0, 'kPa') + Q(95.0, 'kPa')).to('Pa').magnitude))\n"
         "print(repr(Q(4.2, 'tonne/hour').to('kg/s').magnitude))\n"
         "print(repr(Q(0.5, 'international_british_thermal_unit/lb/delta_degF').to('J/kg/K').magnitude))\n"
-        "print(repr(Q(25.0, 'delta_degF').to('K').magnitude))\n");
+        "print(repr(Q(25.0, 'delta_degF').to('K').magnitude))\n"
+        "print(repr((Q(7.0, 'kgf/cm**2') + Q(1.0, 'atm')).to('Pa').magnitude))\n"
+        "print(repr(Q(2.5, 'bar').to('Pa').magnitude))\n"
+        "print(repr((Q(1.2, 'MPa') + Q(1.0, 'atm')).to('Pa').magnitude))\n"
+        "print(repr((Q(10.0, 'psi') + Q(1.0, 'atm')).to('Pa').magnitude))\n");
     std::istringstream in(out);
-    double v[8];
+    double v[12];
     for (double& x : v) ASSERT_TRUE(static_cast<bool>(in >> x)) << out;
     expectRelNear(*parseQuantity("48 °C", D::Temperature), v[0], "48 °C");
     expectRelNear(*parseQuantity("-40 F", D::Temperature), v[1], "-40 F");
@@ -224,6 +231,14 @@ TEST(UnitsAgainstPint, ParsedTextMatchesPintIncludingGauge) {
     expectRelNear(*parseQuantity("4.2 t/h", D::MassFlow), v[5], "4.2 t/h");
     expectRelNear(*parseQuantity("0.5 Btu/lb/F", D::SpecificEntropy), v[6], "0.5 Btu/lb/F");
     expectRelNear(*parseQuantity("25 degF", D::TemperatureDifference), v[7], "25 degF difference");
+    // The written forms of gauge and absolute (pint has no gauge: its
+    // absolute value plus one atmosphere).
+    expectRelNear(*parseQuantity("7 kg/cm2 g", D::Pressure), v[8], "7 kg/cm2 g");
+    expectRelNear(*parseQuantity("2.5 bar(a)", D::Pressure), v[9], "2.5 bar(a)");
+    expectRelNear(*parseQuantity("2.5 bara", D::Pressure), v[9], "2.5 bara");
+    expectRelNear(*parseQuantity("1.2 MPa(g)", D::Pressure), v[10], "1.2 MPa(g)");
+    expectRelNear(*parseQuantity("10 psi(g)", D::Pressure), v[11], "10 psi(g)");
+    expectRelNear(*parseQuantity("10 psig", D::Pressure), v[11], "10 psig");
 }
 
 }  // namespace

@@ -45,8 +45,11 @@ std::string_view unitSystemId(UnitSystem s);  // "SI", "metric-engineering", "US
 Result<UnitSystem> parseUnitSystem(std::string_view id);
 
 // Context a parse needs: gauge pressures are relative to the atmosphere.
+// For display, `gaugeDisplay` shows pressures as gauge readings (barg, kPag,
+// psig) instead of absolute ones; parsing ignores it.
 struct UnitContext {
     double atmosphere_Pa = 101325.0;
+    bool gaugeDisplay = false;
 };
 
 // One unit: SI = value * factor + offset.
@@ -78,6 +81,9 @@ Result<double> toSI(double value, std::string_view unit, Dimension dimension,
 // The unit a display system uses for a dimension ("degC" and "bar" in
 // metric-engineering, "degF" and "psia" in US customary, "K" and "kPa" in SI).
 std::string_view displayUnit(Dimension d, UnitSystem system);
+// The same, and for pressures the gauge unit ("barg", "kPag", "psig") when the
+// context asks for gauge display.
+std::string_view displayUnit(Dimension d, UnitSystem system, const UnitContext& context);
 
 // The unit as people read it: "degC" → "°C", "m3" → "m³", "kJ/(kg K)" → "kJ/(kg·K)".
 std::string unitLabel(std::string_view symbol);
@@ -87,7 +93,7 @@ std::string unitLabel(std::string_view symbol);
 std::string formatQuantity(double si, Dimension d, UnitSystem system,
                            const UnitContext& context = {}, int significant = 5);
 
-// The number alone, in displayUnit(d, system).
+// The number alone, in displayUnit(d, system, context).
 double toDisplay(double si, Dimension d, UnitSystem system, const UnitContext& context = {});
 
 }  // namespace heatchain
