@@ -13,9 +13,9 @@
 #include <QWheelEvent>
 #include <cmath>
 
-#include "heatchain_qt/format.hpp"
-#include "heatchain_qt/palette.hpp"
-#include "heatchain_qt/step_icons.hpp"
+#include "heatchain_view/format.hpp"
+#include "heatchain_view/palette.hpp"
+#include "heatchain_view/step_icons.hpp"
 
 namespace heatchain::gui {
 
@@ -42,6 +42,7 @@ public:
     QRectF boundingRect() const override { return {-2, -2, kCardW + 4, kCardH + 4}; }
 
     int index() const { return index_; }
+    QColor colour() const { return colour_; }
     void setSelectedCard(bool on) {
         if (selected_ != on) {
             selected_ = on;
@@ -53,13 +54,13 @@ public:
         kind_.reset();
         colour_ = QColor();
         accent_ = QColor(0x4d, 0x55, 0x60);
-        heading_ = QStringLiteral("Start");
+        heading_ = p.steps.empty() ? QStringLiteral("Start · click to choose") : QStringLiteral("Start");
         title_ = qs(p.substance.name.empty() ? p.substanceId : p.substance.name);
-        const QString model = r.model ? qs(std::string(r.model->name())) : qs(std::string(modelId(p.model)));
+        const QString model = modelTitle(p.model);
         spec_ = QStringLiteral("%1 · %2").arg(model, p.system == SystemKind::Closed
                                                          ? QStringLiteral("closed batch")
                                                          : QStringLiteral("steady flow"));
-        const UnitContext ctx = p.unitContext();
+        const UnitContext ctx = displayContext(p);
         const Dimension basisDim = p.basis.kind == Basis::Kind::Mass ? Dimension::Mass
                                  : p.basis.kind == Basis::Kind::Amount ? Dimension::Amount
                                  : p.basis.kind == Basis::Kind::MassFlow ? Dimension::MassFlow
@@ -80,13 +81,15 @@ public:
         }
         warnings_.clear();
         for (const std::string& w : r.warnings) warnings_ << qs(w);
+        notes_.clear();
+        for (const std::string& n : notesOf(r)) notes_ << qs(n);
         finish();
     }
 
     void setStep(const Project& p, const SequenceResult& r, int i) {
         const Step& s = p.steps[std::size_t(i)];
         kind_ = s.kind;
-        colour_ = stepColour(i);
+        colour_ = view_->stepColourOf(i);
         accent_ = familyAccent(kindFamily(s.kind));
         heading_ = QStringLiteral("%1  ·  %2").arg(i + 1).arg(stepKindTitle(s.kind));
         title_ = qs(s.id);
@@ -95,10 +98,11 @@ public:
                                                                : QStringLiteral("(no target)");
         error_.clear();
         warnings_.clear();
+        notes_.clear();
         line1_.clear(); line2_.clear(); line3_.clear();
         if (i < int(r.steps.size())) {
             const StepResult& sr = r.steps[std::size_t(i)];
-            const UnitContext ctx = p.unitContext();
+            const UnitContext ctx = displayContext(p);
             const UnitSystem u = p.displayUnits;
             if (sr.computed) {
                 line1_ = QStringLiteral("→ %1   %2").arg(
@@ -118,6 +122,7 @@ public:
             }
             if (sr.error) error_ = qs(sr.error->message);
             for (const std::string& w : sr.warnings) warnings_ << qs(w);
+            for (const std::string& n : notesOf(sr)) notes_ << qs(n);
         }
         finish();
     }
@@ -128,6 +133,7 @@ public:
         QColor border(0xc4, 0xc9, 0xd0);
         double bw = 1.0;
         if (!error_.isEmpty()) { border = ink::error(); bw = 1.6; }
+        else if (!warnings_.isEmpty()) { border = ink::warning(); bw = 1.6; }
         if (selected_) { border = ink::selection(); bw = 2.6; }
         p->setPen(Qt::NoPen);
         p->setBrush(QColor(0, 0, 0, 18));
@@ -196,9 +202,18 @@ public:
             p->drawText(QRectF(x, 126, w, 16), Qt::AlignVCenter,
                         fmS.elidedText(QStringLiteral("✖ ") + error_, Qt::ElideRight, w));
         } else if (!warnings_.isEmpty()) {
+            QFont boldSmall = small;
+            boldSmall.setBold(true);
+            p->setFont(boldSmall);
             p->setPen(ink::warning().darker(140));
+            const QString more = warnings_.size() > 1 ? QStringLiteral(" (+%1)").arg(warnings_.size() - 1) : QString();
             p->drawText(QRectF(x, 126, w, 16), Qt::AlignVCenter,
-                        fmS.elidedText(QStringLiteral("⚠ ") + warnings_.front(), Qt::ElideRight, w));
+                        QFontMetricsF(boldSmall).elidedText(QStringLiteral("⚠ ") + warnings_.front() + more, Qt::ElideRight, w));
+        } else if (!notes_.isEmpty()) {
+            // Notes are ordinary facts: quiet, one line, the rest in the tooltip.
+            p->setPen(ink::muted());
+            p->drawText(QRectF(x, 126, w, 16), Qt::AlignVCenter,
+                        fmS.elidedText(QStringLiteral("ⓘ ") + notes_.front(), Qt::ElideRight, w));
         }
     }
 
@@ -240,7 +255,7 @@ private:
     void finish() {
         const QString key = heading_ + QChar(1) + title_ + QChar(1) + spec_ + QChar(1) + line1_ +
                             QChar(1) + line2_ + QChar(1) + line3_ + QChar(1) + error_ + QChar(1) +
-                            warnings_.join(QChar(2)) + QChar(1) + colour_.name();
+                            warnings_.join(QChar(2)) + QChar(1) + notes_.join(QChar(2)) + QChar(1) + colour_.name();
         if (key == key_) return;
         key_ = key;
         QStringList tip;
@@ -249,7 +264,9 @@ private:
         if (!line1_.isEmpty()) tip << QStringLiteral("%1<br>%2<br>%3").arg(line1_, line2_, line3_);
         if (!error_.isEmpty()) tip << QStringLiteral("<span style='color:#b42318'>Error: %1</span>").arg(error_.toHtmlEscaped());
         for (const QString& w : warnings_)
-            tip << QStringLiteral("<span style='color:#8a5a00'>Warning: %1</span>").arg(w.toHtmlEscaped());
+            tip << QStringLiteral("<span style='color:#8a5a00'><b>Warning:</b> %1</span>").arg(w.toHtmlEscaped());
+        for (const QString& n : notes_)
+            tip << QStringLiteral("<span style='color:#6b727a'>Note: %1</span>").arg(n.toHtmlEscaped());
         setToolTip(tip.join(QStringLiteral("<br>")));
         update();
     }
@@ -261,7 +278,7 @@ private:
     std::optional<StepKind> kind_;
     QColor colour_, accent_;
     QString heading_, title_, spec_, line1_, line2_, line3_, error_, key_;
-    QStringList warnings_;
+    QStringList warnings_, notes_;
 };
 
 // ---------------------------------------------------------------------------
@@ -433,10 +450,18 @@ void ChainView::layoutCards() {
 void ChainView::updateSelection() {
     const int sel = doc_->selectedStep();
     for (std::size_t i = 0; i < cards_.size(); ++i) cards_[i]->setSelectedCard(int(i) == sel);
+    // No step selected: the Start card is what the step panel edits.
+    startCard_->setSelectedCard(sel < 0);
     if (sel >= 0 && sel < int(cards_.size())) ensureVisible(cards_[std::size_t(sel)], 20, 20);
 }
 
+QColor ChainView::cardColour(int index) const {
+    if (index < 0 || index >= int(cards_.size())) return {};
+    return cards_[std::size_t(index)]->colour();
+}
+
 QRectF ChainView::cardRect(int index) const {
+    if (index == -1 && startCard_) return startCard_->sceneBoundingRect();
     if (index < 0 || index >= int(cards_.size())) return {};
     return cards_[std::size_t(index)]->sceneBoundingRect();
 }

@@ -25,8 +25,12 @@ public:
     void resetZoom();
     double zoom() const { return zoom_; }
     int cardCount() const { return int(cards_.size()); }
-    // Scene position of a step's card (for tests and the drag logic).
+    // Scene position of a step's card (for tests and the drag logic); −1: the
+    // Start card.
     QRectF cardRect(int index) const;
+    // The colour a step keeps for its life (the document's).
+    QColor stepColourOf(int index) const { return doc_->stepColour(index); }
+    QColor cardColour(int index) const;
     // Where a card dropped with its centre at `scenePos` goes (final index).
     int dropIndex(int from, QPointF scenePos) const;
 

@@ -3,8 +3,8 @@
 #include <QMouseEvent>
 #include <QPainter>
 
-#include "heatchain_qt/format.hpp"
-#include "heatchain_qt/palette.hpp"
+#include "heatchain_view/format.hpp"
+#include "heatchain_view/palette.hpp"
 
 namespace heatchain::gui {
 
@@ -25,6 +25,7 @@ ChartWidget::ChartWidget(ProjectDocument* doc, view::ProcessChart::Kind kind, QW
 }
 
 void ChartWidget::refresh() {
+    chart_.setStepColours(doc_->stepColours());
     chart_.setData(doc_->project(), doc_->result(), doc_->dome());
     chart_.setSelectedStep(doc_->selectedStep());
     hover_.reset();

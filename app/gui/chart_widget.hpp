@@ -5,7 +5,7 @@
 #include <QWidget>
 
 #include "document.hpp"
-#include "heatchain_qt/process_chart.hpp"
+#include "heatchain_view/process_chart.hpp"
 
 namespace heatchain::gui {
 

@@ -2,13 +2,16 @@
 
 #include <QApplication>
 #include <QClipboard>
+#include <QFileInfo>
+#include <filesystem>
 #include <QDialogButtonBox>
 #include <QHeaderView>
 #include <QPushButton>
 #include <QVBoxLayout>
 #include <functional>
 
-#include "heatchain_qt/format.hpp"
+#include "heatchain/project_file.hpp"
+#include "heatchain_view/format.hpp"
 
 namespace heatchain::gui {
 
@@ -242,6 +245,22 @@ QString CompareDialog::visibleText() const {
     };
     for (int i = 0; i < tree_->topLevelItemCount(); ++i) walk(tree_->topLevelItem(i), 0);
     return lines.join(QLatin1Char('\n'));
+}
+
+CompareDialog* CompareDialog::againstFile(const ProjectDocument& doc, const QString& path, QString* error,
+                                         QWidget* parent) {
+    auto other = loadProject(std::filesystem::path(path.toStdString()));
+    if (!other) {
+        if (error)
+            *error = tr("%1 could not be read.\n\n%2").arg(QFileInfo(path).fileName(), view::escapedText(other.error().text()));
+        return nullptr;
+    }
+    SequenceResult otherResult = solve(other.value());
+    QString mine = doc.filePath().isEmpty() ? tr("this worksheet (not saved)")
+                                            : tr("this worksheet, %1").arg(QFileInfo(doc.filePath()).fileName());
+    if (doc.isModified() && !doc.filePath().isEmpty()) mine += tr(" with unsaved changes");
+    return new CompareDialog(Revision{std::move(other.value()), std::move(otherResult), QFileInfo(path).fileName()},
+                             Revision{doc.project(), doc.result(), mine}, parent);
 }
 
 }  // namespace heatchain::gui

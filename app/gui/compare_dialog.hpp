@@ -7,6 +7,7 @@
 #include <QLabel>
 #include <QTreeWidget>
 
+#include "document.hpp"
 #include "heatchain/project_diff.hpp"
 
 namespace heatchain::gui {
@@ -21,6 +22,11 @@ class CompareDialog : public QDialog {
     Q_OBJECT
 public:
     CompareDialog(Revision before, Revision after, QWidget* parent = nullptr);
+
+    // The revision in `path` (before) against the worksheet as it is now
+    // (after); null with the reason in `error` when the file cannot be read.
+    static CompareDialog* againstFile(const ProjectDocument& doc, const QString& path, QString* error,
+                                      QWidget* parent = nullptr);
 
     const ProjectDiff& diff() const { return diff_; }
     QTreeWidget* tree() const { return tree_; }

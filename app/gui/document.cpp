@@ -8,7 +8,11 @@
 #include <filesystem>
 
 #include "heatchain/project_file.hpp"
+#include "heatchain_view/palette.hpp"
 #include "project_edit.hpp"
+
+#include <array>
+#include <unordered_map>
 
 namespace heatchain::gui {
 
@@ -110,6 +114,8 @@ void ProjectDocument::reset(Project project, const QString& path) {
     stamp_ = DiskStamp::of(path);
     dirty_ = false;
     selected_ = project_.steps.empty() ? -1 : 0;
+    colours_.clear();
+    for (std::size_t i = 0; i < project_.steps.size(); ++i) colours_.push_back(int(i) % view::kStepColourCount);
     recompute();
     emit changed();
     emit selectionChanged(selected_);
@@ -117,17 +123,68 @@ void ProjectDocument::reset(Project project, const QString& path) {
 }
 
 void ProjectDocument::setProject(Project project) {
+    const std::vector<std::string> before = stepIds();
     project_ = std::move(project);
+    keepColours(before);
     recompute();
     if (selected_ >= int(project_.steps.size())) selected_ = int(project_.steps.size()) - 1;
     emit changed();
 }
 
 void ProjectDocument::mutate(const std::function<void(Project&)>& change) {
+    const std::vector<std::string> before = stepIds();
     change(project_);
+    keepColours(before);
     recompute();
     if (selected_ >= int(project_.steps.size())) selected_ = int(project_.steps.size()) - 1;
     emit changed();
+}
+
+std::vector<std::string> ProjectDocument::stepIds() const {
+    std::vector<std::string> ids;
+    ids.reserve(project_.steps.size());
+    for (const Step& s : project_.steps) ids.push_back(s.id);
+    return ids;
+}
+
+void ProjectDocument::keepColours(const std::vector<std::string>& before) {
+    const auto& steps = project_.steps;
+    std::vector<int> now(steps.size(), -1);
+    // A step keeps its colour by name; a renamed step (same place, same
+    // number of steps) keeps its place's colour.
+    std::unordered_map<std::string, int> byId;
+    for (std::size_t i = 0; i < before.size() && i < colours_.size(); ++i) byId[before[i]] = colours_[i];
+    for (std::size_t i = 0; i < steps.size(); ++i) {
+        if (auto it = byId.find(steps[i].id); it != byId.end()) now[i] = it->second;
+        else if (before.size() == steps.size() && i < colours_.size()) now[i] = colours_[i];
+    }
+    // A new step takes the colour used least, and never its neighbours'.
+    for (std::size_t i = 0; i < steps.size(); ++i) {
+        if (now[i] >= 0) continue;
+        std::array<int, view::kStepColourCount> uses{};
+        for (int c : now)
+            if (c >= 0) ++uses[std::size_t(c)];
+        int best = -1;
+        for (int c = 0; c < view::kStepColourCount; ++c) {
+            const bool neighbour = (i > 0 && now[i - 1] == c) || (i + 1 < steps.size() && now[i + 1] == c);
+            if (neighbour) continue;
+            if (best < 0 || uses[std::size_t(c)] < uses[std::size_t(best)]) best = c;
+        }
+        now[i] = best < 0 ? 0 : best;
+    }
+    colours_ = std::move(now);
+}
+
+QColor ProjectDocument::stepColour(int index) const {
+    if (index >= 0 && index < int(colours_.size())) return view::stepColour(colours_[std::size_t(index)]);
+    return view::stepColour(index);
+}
+
+std::vector<QColor> ProjectDocument::stepColours() const {
+    std::vector<QColor> out;
+    out.reserve(colours_.size());
+    for (int c : colours_) out.push_back(view::stepColour(c));
+    return out;
 }
 
 void ProjectDocument::recompute() {

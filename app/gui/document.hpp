@@ -8,6 +8,7 @@
 #include <QDateTime>
 #include <QObject>
 #include <QString>
+#include <QColor>
 #include <QUndoStack>
 #include <functional>
 #include <memory>
@@ -73,6 +74,11 @@ public:
     void setProject(Project project);
     void mutate(const std::function<void(Project&)>& change);
 
+    // The colour of a step on the cards and charts: its own for its life,
+    // kept when other steps are inserted, removed or moved.
+    QColor stepColour(int index) const;
+    std::vector<QColor> stepColours() const;
+
     // Time the last solve took, ms.
     double lastSolveMs() const { return lastSolveMs_; }
 
@@ -83,6 +89,8 @@ signals:
 
 private:
     void recompute();
+    std::vector<std::string> stepIds() const;
+    void keepColours(const std::vector<std::string>& before);
 
     Project project_;
     SequenceResult result_;
@@ -94,6 +102,7 @@ private:
     DiskStamp stamp_;
     bool dirty_ = false;
     int selected_ = -1;
+    std::vector<int> colours_;  // palette slot of each step
     double lastSolveMs_ = 0;
 };
 

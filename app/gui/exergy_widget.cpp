@@ -3,9 +3,9 @@
 #include <QMouseEvent>
 #include <QPainter>
 
-#include "heatchain_qt/format.hpp"
-#include "heatchain_qt/palette.hpp"
-#include "heatchain_qt/utility_text.hpp"
+#include "heatchain_view/format.hpp"
+#include "heatchain_view/palette.hpp"
+#include "heatchain_view/utility_text.hpp"
 
 namespace heatchain::gui {
 
@@ -19,6 +19,7 @@ ExergyWidget::ExergyWidget(ProjectDocument* doc, QWidget* parent) : QWidget(pare
 }
 
 void ExergyWidget::refresh() {
+    chart_.setStepColours(doc_->stepColours());
     chart_.setData(doc_->project(), doc_->result());
     chart_.setSelectedStep(doc_->selectedStep());
     updateGeometry();

@@ -4,7 +4,7 @@
 #include <QWidget>
 
 #include "document.hpp"
-#include "heatchain_qt/exergy_chart.hpp"
+#include "heatchain_view/exergy_chart.hpp"
 
 namespace heatchain::gui {
 

@@ -3,9 +3,10 @@
 #include <QBrush>
 #include <QColor>
 #include <QFont>
+#include <algorithm>
 #include <cmath>
 
-#include "heatchain_qt/format.hpp"
+#include "heatchain_view/format.hpp"
 
 namespace heatchain::gui {
 
@@ -24,13 +25,31 @@ void LedgerModel::refresh() {
     rows_.push_back({RowKind::Start});
     for (std::size_t i = 0; i < r.steps.size(); ++i) {
         rows_.push_back({RowKind::Step, int(i)});
-        if (r.steps[i].segments.size() > 1)
+        if (r.steps[i].segments.size() > 1 && opened_.count(r.steps[i].id))
             for (std::size_t k = 0; k < r.steps[i].segments.size(); ++k)
                 rows_.push_back({RowKind::Segment, int(i), int(k)});
     }
     rows_.push_back({RowKind::Total});
     rows_.push_back({RowKind::HeatingDuty});
     rows_.push_back({RowKind::CoolingDuty});
+    const Project& p = doc_->project();
+    const UnitContext ctx = displayContext(p);
+    decimals_.assign(ColumnCount, -1);
+    for (int c = ColTin; c < ColumnCount; ++c) {
+        if (c == ColPhase) continue;
+        const Dimension d = dimensionOf(c);
+        double largest = 0;
+        for (const Row& row : rows_)
+            if (const QVariant v = siValue(row, c); v.isValid())
+                largest = std::max(largest, std::fabs(toDisplay(v.toDouble(), d, p.displayUnits, ctx)));
+        if (d == Dimension::Temperature) {
+            decimals_[std::size_t(c)] = largest < 10 ? 2 : 1;
+        } else {
+            // Five significant digits for the largest, at most four decimals.
+            const int mag = largest > 0 ? int(std::floor(std::log10(largest))) : 0;
+            decimals_[std::size_t(c)] = std::clamp(4 - mag, 0, 4);
+        }
+    }
     endResetModel();
     emit headerDataChanged(Qt::Horizontal, 0, ColumnCount - 1);
 }
@@ -40,6 +59,23 @@ int LedgerModel::rowCount(const QModelIndex& parent) const {
 }
 int LedgerModel::columnCount(const QModelIndex& parent) const {
     return parent.isValid() ? 0 : ColumnCount;
+}
+
+bool LedgerModel::hasSegments(int stepIndex) const {
+    const SequenceResult& r = doc_->result();
+    return stepIndex >= 0 && std::size_t(stepIndex) < r.steps.size() && r.steps[std::size_t(stepIndex)].segments.size() > 1;
+}
+
+bool LedgerModel::segmentsShown(int stepIndex) const {
+    return hasSegments(stepIndex) && opened_.count(doc_->result().steps[std::size_t(stepIndex)].id) > 0;
+}
+
+void LedgerModel::setSegmentsShown(int stepIndex, bool shown) {
+    if (!hasSegments(stepIndex) || segmentsShown(stepIndex) == shown) return;
+    const std::string& id = doc_->result().steps[std::size_t(stepIndex)].id;
+    if (shown) opened_.insert(id);
+    else opened_.erase(id);
+    refresh();
 }
 
 int LedgerModel::rowOfStep(int stepIndex) const {
@@ -134,7 +170,13 @@ QString LedgerModel::text(const Row& row, int c) const {
     if (c == ColWhat) {
         switch (row.kind) {
         case RowKind::Start: return QString::fromStdString(p.substance.name);
-        case RowKind::Step: return stepKindTitle(r.steps[std::size_t(row.step)].kind);
+        case RowKind::Step: {
+            const StepResult& s = r.steps[std::size_t(row.step)];
+            if (s.segments.size() <= 1) return stepKindTitle(s.kind);
+            return tr("%1  %2 %3 parts").arg(stepKindTitle(s.kind), opened_.count(s.id) ? QStringLiteral("▾")
+                                                                                          : QStringLiteral("▸"))
+                .arg(s.segments.size());
+        }
         case RowKind::Segment:
             return QStringLiteral("   └ %1").arg(QString::fromStdString(
                 r.steps[std::size_t(row.step)].segments[std::size_t(row.segment)].label));
@@ -159,6 +201,8 @@ QString LedgerModel::text(const Row& row, int c) const {
         default: return {};
         }
     }
+    if (c == ColExd && row.kind == RowKind::Step && noSourceGiven(r.steps[std::size_t(row.step)]))
+        return noSourceText();
     const QVariant v = siValue(row, c);
     if (!v.isValid()) return {};
     if (c >= ColQ && c != ColdS && c != ColSgen) {
@@ -172,7 +216,10 @@ QString LedgerModel::text(const Row& row, int c) const {
         }
         if (std::fabs(v.toDouble()) < 1e-9 * scale) return QStringLiteral("0");
     }
-    return formatDisplay(v.toDouble(), dimensionOf(c), p.displayUnits, p.unitContext());
+    const double shown = toDisplay(v.toDouble(), dimensionOf(c), p.displayUnits, displayContext(p));
+    if (std::size_t(c) < decimals_.size() && decimals_[std::size_t(c)] >= 0)
+        return formatFixed(shown, decimals_[std::size_t(c)]);
+    return formatDisplay(v.toDouble(), dimensionOf(c), p.displayUnits, displayContext(p));
 }
 
 QVariant LedgerModel::data(const QModelIndex& index, int role) const {
@@ -229,7 +276,7 @@ QVariant LedgerModel::headerData(int section, Qt::Orientation o, int role) const
     if (role != Qt::DisplayRole) return {};
     const UnitSystem u = doc_->project().displayUnits;
     auto h = [&](const QString& name) {
-        return QStringLiteral("%1\n[%2]").arg(name, unitSymbol(dimensionOf(section), u));
+        return QStringLiteral("%1\n[%2]").arg(name, unitSymbol(dimensionOf(section), u, displayContext(doc_->project())));
     };
     switch (section) {
     case ColStep: return tr("Step\n");
@@ -245,7 +292,7 @@ QVariant LedgerModel::headerData(int section, Qt::Orientation o, int role) const
     case ColdU: return h(tr("ΔU"));
     case ColdS: return h(tr("ΔS"));
     case ColSgen: return h(tr("S_gen"));
-    case ColExd: return h(tr("Ex. destroyed"));
+    case ColExd: return h(tr("Exergy destroyed"));
     default: return {};
     }
 }
@@ -263,7 +310,7 @@ QString LedgerModel::toTabSeparated() const {
             const QVariant v = siValue(row, c);
             if (v.isValid()) {
                 // Full precision and a plain minus for spreadsheets.
-                cells << QString::number(toDisplay(v.toDouble(), dimensionOf(c), p.displayUnits, p.unitContext()), 'g', 10);
+                cells << QString::number(toDisplay(v.toDouble(), dimensionOf(c), p.displayUnits, displayContext(p)), 'g', 10);
             } else {
                 cells << text(row, c).trimmed().replace(QStringLiteral("└ "), QString());
             }

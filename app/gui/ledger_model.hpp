@@ -5,6 +5,8 @@
 // right-aligned. Rows keep the sequence order: sorting is deliberately not
 // offered, because the order of the steps is the process itself.
 #include <QAbstractTableModel>
+#include <set>
+#include <string>
 #include <vector>
 
 #include "document.hpp"
@@ -34,6 +36,12 @@ public:
 
     // The row of step `index` (−1 if none).
     int rowOfStep(int stepIndex) const;
+    // A step's segments (the parts of a heat step that crosses a phase line)
+    // are folded under its row until opened, so later steps stay in view.
+    // The step keeps its state by name across edits.
+    bool hasSegments(int stepIndex) const;
+    bool segmentsShown(int stepIndex) const;
+    void setSegmentsShown(int stepIndex, bool shown);
     // The whole ledger as tab-separated text: a header line with units, then
     // one line per row; numbers in display units with full precision.
     QString toTabSeparated() const;
@@ -53,6 +61,10 @@ private:
 
     ProjectDocument* doc_;
     std::vector<Row> rows_;
+    std::set<std::string> opened_;  // ids of the steps whose segments are shown
+    // Decimals of each numeric column, from its largest value, so a column
+    // reads with one number of decimals from top to bottom.
+    std::vector<int> decimals_;
 };
 
 }  // namespace heatchain::gui

@@ -3,7 +3,7 @@
 #include <QElapsedTimer>
 #include <cstdio>
 
-#include "heatchain_qt/step_icons.hpp"
+#include "heatchain_view/step_icons.hpp"
 #include "main_window.hpp"
 
 int main(int argc, char** argv) {

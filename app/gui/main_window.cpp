@@ -29,8 +29,8 @@
 #include "commands.hpp"
 #include "compare_dialog.hpp"
 #include "heatchain/project_file.hpp"
-#include "heatchain_qt/format.hpp"
-#include "heatchain_qt/step_icons.hpp"
+#include "heatchain_view/format.hpp"
+#include "heatchain_view/step_icons.hpp"
 #include "project_edit.hpp"
 #include "settings_dialog.hpp"
 #include "sweep_dialog.hpp"
@@ -48,6 +48,24 @@ const char* kCaution =
     "qualified engineer.";
 QString qs(const std::string& s) { return QString::fromStdString(s); }
 QString qs(std::string_view s) { return QString::fromUtf8(s.data(), qsizetype(s.size())); }
+
+// The quick-add phrases, for its tooltip and the getting-started page.
+const char* const kQuickAddPhrases[][2] = {
+    {"heat to 180 degC source 240 degC", "heat to an end temperature, with the heat's source"},
+    {"heat by 10 K", "a change: 10 K above where the step starts"},
+    {"heat duty 250 kW", "add an amount of heat"},
+    {"boil", "the whole phase change (add fraction 0.5 or 50 % for half)"},
+    {"cool to x 0.2 sink 30 degC", "to a quality, with the heat's sink"},
+    {"compress to 14 barg eff 0.72", "to a pressure, adiabatic with an isentropic efficiency"},
+    {"expand ratio 3 isentropic", "by a pressure ratio"},
+    {"throttle to 2 bar(a)", "across a valve"},
+};
+
+QString quickAddHelp() {
+    QString t = QObject::tr("Type a step and press Enter, e.g.");
+    for (const auto& row : kQuickAddPhrases) t += QStringLiteral("\n  %1").arg(QString::fromUtf8(row[0]));
+    return t;
+}
 }  // namespace
 
 MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
@@ -79,6 +97,13 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     for (int c = LedgerModel::ColTin; c < LedgerModel::ColumnCount; ++c) ledgerView_->setColumnWidth(c, 82);
     ledgerView_->setColumnWidth(LedgerModel::ColPhase, 170);
     ledgerView_->setColumnWidth(LedgerModel::ColExd, 100);
+    // A click on "▸ n parts" opens a step's segments, another folds them.
+    connect(ledgerView_, &QTableView::clicked, this, [this](const QModelIndex& index) {
+        if (index.column() != LedgerModel::ColWhat) return;
+        const int step = ledger_->data(index, LedgerModel::RowStepRole).toInt();
+        if (ledger_->data(index, LedgerModel::RowKindRole).toInt() != int(LedgerModel::RowKind::Step)) return;
+        if (ledger_->hasSegments(step)) ledger_->setSegmentsShown(step, !ledger_->segmentsShown(step));
+    });
     connect(ledgerView_->selectionModel(), &QItemSelectionModel::currentRowChanged, this,
             [this](const QModelIndex& current) {
                 if (!current.isValid()) return;
@@ -91,7 +116,8 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     auto* centreLayout = new QVBoxLayout(centre);
     centreLayout->setContentsMargins(0, 0, 0, 0);
     centreLayout->setSpacing(0);
-    buildNotice();
+    notice_ = new DiskWatch(&doc_, centre);
+    connect(notice_, &DiskWatch::reloadRequested, this, &MainWindow::reloadFromDisk);
     centreLayout->addWidget(notice_);
     centreLayout->addWidget(chain_, 1);
     setCentralWidget(centre);
@@ -104,7 +130,7 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     buildActions();
     // Utilities and sweeps (issue 7): their own menu, before View.
     auto* process = new QMenu(tr("&Process"), this);
-    process->addAction(tr("&Utilities and minimum approach…"), this, &MainWindow::editUtilities);
+    process->addAction(tr("&Utilities and required minimum approach…"), this, &MainWindow::editUtilities);
     process->addAction(tr("&Sweep an input…"), this, &MainWindow::openSweep);
     menuBar()->insertMenu(viewMenu_->menuAction(), process);
 
@@ -152,20 +178,14 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
             f->lineEdit()->setFocus();
         else editor_->field(QStringLiteral("id"))->lineEdit()->setFocus();
     });
-    connect(&doc_, &ProjectDocument::fileStateChanged, this, &MainWindow::watchFile);
 
-    // Autosave: a minute of work is the most a crash can take.
-    autosave_ = std::make_unique<AutosaveStore>(AutosaveStore::defaultFolder());
-    autosaveTimer_.setInterval(60 * 1000);
-    connect(&autosaveTimer_, &QTimer::timeout, this, &MainWindow::autosaveNow);
-    autosaveTimer_.start();
-
-    // Someone else's change to the file: the watcher fires (often several
-    // times for one save); look once things have settled.
-    diskCheck_.setSingleShot(true);
-    diskCheck_.setInterval(300);
-    connect(&diskCheck_, &QTimer::timeout, this, &MainWindow::checkDiskNow);
-    connect(&watcher_, &QFileSystemWatcher::fileChanged, this, [this] { diskCheck_.start(); });
+    // The helpers ask through the window and report through it.
+    WindowHooks hooks{[this](Question q, const QString& t) { return ask(q, t); },
+                      [this] { return confirmDiscard(); },
+                      [this](const QString& title, const QString& text) { reportError(title, text); },
+                      [this](const QString& text, int ms) { statusBar()->showMessage(text, ms); }};
+    keeper_ = new AutosaveKeeper(&doc_, hooks, this);
+    exporter_ = new Exporter(&doc_, this, hooks);
 
     updateTitle();
     updateStatus();
@@ -179,13 +199,41 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     }
 }
 
+MainWindow::~MainWindow() {
+    hide();
+    qDeleteAll(findChildren<QDockWidget*>(Qt::FindDirectChildrenOnly));
+    delete takeCentralWidget();
+}
+
 void MainWindow::buildDocks() {
-    editor_ = new StepEditor(&doc_, this);
+    // The step panel edits the selected card: the Start card (no step
+    // selected) or a step.
+    auto* panel = new QWidget(this);
+    auto* panelLayout = new QVBoxLayout(panel);
+    panelLayout->setContentsMargins(0, 0, 0, 0);
+    startEditor_ = new StartEditor(&doc_, panel);
+    editor_ = new StepEditor(&doc_, panel);
+    panelLayout->addWidget(startEditor_);
+    panelLayout->addWidget(editor_, 1);
+    auto showPanel = [this] {
+        const bool start = doc_.selectedStep() < 0;
+        startEditor_->setVisible(start);
+        editor_->setVisible(!start);
+    };
+    connect(&doc_, &ProjectDocument::selectionChanged, this, showPanel);
+    connect(&doc_, &ProjectDocument::changed, this, showPanel);
+    showPanel();
+    connect(startEditor_, &StartEditor::rejected, this, [this](const QString& what) {
+        statusBar()->showMessage(what, 10000);
+    });
+    connect(editor_, &StepEditor::rejected, this, [this](const QString& what) {
+        statusBar()->showMessage(what, 10000);
+    });
     auto* editorScroll = new QScrollArea(this);
-    editorScroll->setWidget(editor_);
+    editorScroll->setWidget(panel);
     editorScroll->setWidgetResizable(true);
     editorScroll->setFrameShape(QFrame::NoFrame);
-    auto* editorDock = new QDockWidget(tr("Step"), this);
+    auto* editorDock = new QDockWidget(tr("Step panel"), this);
     editorDock->setObjectName(QStringLiteral("stepDock"));
     editorDock->setWidget(editorScroll);
     editorDock->setMinimumWidth(430);
@@ -200,7 +248,7 @@ void MainWindow::buildDocks() {
     charts->addWidget(exergy_);
     charts->setStretchFactor(0, 3);
     charts->setStretchFactor(1, 3);
-    charts->setStretchFactor(2, 2);
+    charts->setStretchFactor(2, 3);
     auto* chartDock = new QDockWidget(tr("Charts"), this);
     chartDock->setObjectName(QStringLiteral("chartDock"));
     chartDock->setWidget(charts);
@@ -212,16 +260,47 @@ void MainWindow::buildDocks() {
     ledgerDock->setWidget(ledgerView_);
     addDockWidget(Qt::BottomDockWidgetArea, ledgerDock);
 
-    messages_ = new MessagesPanel(&doc_, this);
+    // The messages panel, with one filter button per level above it.
+    auto* msgBox = new QWidget(this);
+    auto* msgLayout = new QVBoxLayout(msgBox);
+    msgLayout->setContentsMargins(0, 0, 0, 0);
+    msgLayout->setSpacing(0);
+    auto* filters = new QHBoxLayout;
+    filters->setContentsMargins(4, 2, 4, 2);
+    messages_ = new MessagesPanel(&doc_, msgBox);
+    std::vector<std::pair<MessagesPanel::Level, QToolButton*>> levelButtons;
+    for (auto level : {MessagesPanel::Level::Error, MessagesPanel::Level::Warning, MessagesPanel::Level::Note,
+                       MessagesPanel::Level::Caution}) {
+        auto* b = new QToolButton(msgBox);
+        b->setCheckable(true);
+        b->setChecked(true);
+        b->setAutoRaise(true);
+        b->setObjectName(QStringLiteral("filter-%1").arg(MessagesPanel::levelName(level)));
+        b->setToolTip(tr("Show or hide the %1s").arg(MessagesPanel::levelName(level)));
+        connect(b, &QToolButton::toggled, messages_, [this, level](bool on) { messages_->setLevelShown(level, on); });
+        filters->addWidget(b);
+        levelButtons.emplace_back(level, b);
+    }
+    filters->addStretch(1);
+    msgLayout->addLayout(filters);
+    msgLayout->addWidget(messages_, 1);
     auto* msgDock = new QDockWidget(tr("Messages"), this);
     msgDock->setObjectName(QStringLiteral("messagesDock"));
-    msgDock->setWidget(messages_);
+    msgDock->setWidget(msgBox);
     addDockWidget(Qt::BottomDockWidgetArea, msgDock);
     splitDockWidget(ledgerDock, msgDock, Qt::Vertical);
-    connect(messages_, &MessagesPanel::countsChanged, msgDock, [msgDock](int e, int w) {
-        msgDock->setWindowTitle(e + w == 0 ? tr("Messages") : tr("Messages — %1 error(s), %2 warning(s)").arg(e).arg(w));
-    });
-    resizeDocks({ledgerDock, msgDock}, {215, 64}, Qt::Vertical);
+    auto countLabels = [this, msgDock, levelButtons] {
+        static const char* const names[] = {QT_TR_NOOP("Errors"), QT_TR_NOOP("Warnings"), QT_TR_NOOP("Notes"),
+                                            QT_TR_NOOP("Cautions")};
+        for (const auto& [level, button] : levelButtons)
+            button->setText(QStringLiteral("%1 %2").arg(tr(names[int(level)])).arg(messages_->count(level)));
+        const int e = messages_->errorCount(), w = messages_->warningCount(), n = messages_->noteCount();
+        msgDock->setWindowTitle(e + w + n == 0 ? tr("Messages")
+                                               : tr("Messages — %1 error(s), %2 warning(s), %3 note(s)").arg(e).arg(w).arg(n));
+    };
+    connect(messages_, &MessagesPanel::countsChanged, msgDock, countLabels);
+    countLabels();
+    resizeDocks({ledgerDock, msgDock}, {300, 90}, Qt::Vertical);
     // Utilities and the second law: a tab beside the ledger.
     secondLaw_ = new SecondLawPanel(&doc_, this);
     auto* secondLawDock = new QDockWidget(tr("Utilities and exergy"), this);
@@ -229,7 +308,7 @@ void MainWindow::buildDocks() {
     secondLawDock->setWidget(secondLaw_);
     tabifyDockWidget(ledgerDock, secondLawDock);
     ledgerDock->raise();
-    resizeDocks({editorDock, chartDock}, {440, 520}, Qt::Horizontal);
+    resizeDocks({editorDock, chartDock}, {440, 640}, Qt::Horizontal);
     viewMenu_ = new QMenu(tr("&View"), this);
     viewMenu_->addAction(editorDock->toggleViewAction());
     viewMenu_->addAction(chartDock->toggleViewAction());
@@ -252,18 +331,19 @@ void MainWindow::buildActions() {
     QAction* actSave = file->addAction(tr("&Save"), this, &MainWindow::save);
     actSave->setShortcut(QKeySequence::Save);
     QAction* actSaveAs = file->addAction(tr("Save &as…"), this, &MainWindow::saveAsDialog);
-    actSaveAs->setShortcut(QKeySequence::SaveAs);
+    // QKeySequence::SaveAs is empty on some desktops: name the keys.
+    actSaveAs->setShortcut(QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_S));
     file->addSeparator();
     file->addAction(tr("Co&mpare with…"), this, &MainWindow::compareDialog);
     QMenu* exp = file->addMenu(tr("&Export"));
-    exp->addAction(tr("Step &report (PDF)…"), this, &MainWindow::exportReportDialog)
+    exp->addAction(tr("&Report (PDF)…"), this, [this] { exporter_->reportDialog(); })
         ->setShortcut(QKeySequence(Qt::CTRL | Qt::Key_E));
     exp->addSeparator();
-    exp->addAction(tr("&T–s chart (PNG or SVG)…"), this, [this] { exportChartDialog(ChartKind::TemperatureEntropy); });
-    exp->addAction(tr("T–&Q chart (PNG or SVG)…"), this, [this] { exportChartDialog(ChartKind::TemperatureDuty); });
+    exp->addAction(tr("&T–s chart (PNG or SVG)…"), this, [this] { exporter_->chartDialog(ChartKind::TemperatureEntropy); });
+    exp->addAction(tr("T–&Q chart (PNG or SVG)…"), this, [this] { exporter_->chartDialog(ChartKind::TemperatureDuty); });
     exp->addSeparator();
-    exp->addAction(tr("&Ledger as CSV…"), this, [this] { exportDataDialog(true); });
-    exp->addAction(tr("Results as &JSON…"), this, [this] { exportDataDialog(false); });
+    exp->addAction(tr("&Ledger as CSV…"), this, [this] { exporter_->dataDialog(true); });
+    exp->addAction(tr("Results as &JSON…"), this, [this] { exporter_->dataDialog(false); });
     file->addSeparator();
     file->addAction(tr("Worksheet &settings…"), this, &MainWindow::editSettings)
         ->setShortcut(QKeySequence(Qt::CTRL | Qt::Key_Comma));
@@ -271,16 +351,44 @@ void MainWindow::buildActions() {
     file->addAction(tr("&Quit"), this, &QWidget::close)->setShortcut(QKeySequence::Quit);
 
     QMenu* edit = menuBar()->addMenu(tr("&Edit"));
-    QAction* actUndo = undo->createUndoAction(this, tr("&Undo"));
+    // Undo and Redo keep a fixed text, so nothing on the toolbar moves after
+    // an edit; what they would undo or redo is in the tooltip (and the menu's
+    // status tip).
+    QAction* actUndo = new QAction(tr("&Undo"), this);
+    actUndo->setObjectName(QStringLiteral("undoAction"));
     actUndo->setShortcut(QKeySequence::Undo);
-    QAction* actRedo = undo->createRedoAction(this, tr("&Redo"));
-    actRedo->setShortcut(QKeySequence::Redo);
+    QAction* actRedo = new QAction(tr("&Redo"), this);
+    actRedo->setObjectName(QStringLiteral("redoAction"));
+    {
+        QList<QKeySequence> redoKeys = QKeySequence::keyBindings(QKeySequence::Redo);
+        const QKeySequence ctrlY(Qt::CTRL | Qt::Key_Y);
+        if (!redoKeys.contains(ctrlY)) redoKeys.prepend(ctrlY);
+        actRedo->setShortcuts(redoKeys);
+    }
+    connect(actUndo, &QAction::triggered, undo, &QUndoStack::undo);
+    connect(actRedo, &QAction::triggered, undo, &QUndoStack::redo);
+    auto syncUndo = [undo, actUndo, actRedo] {
+        actUndo->setEnabled(undo->canUndo());
+        actRedo->setEnabled(undo->canRedo());
+        const QString u = undo->undoText(), r = undo->redoText();
+        actUndo->setToolTip(u.isEmpty() ? tr("Nothing to undo") : tr("Undo: %1").arg(u));
+        actRedo->setToolTip(r.isEmpty() ? tr("Nothing to redo") : tr("Redo: %1").arg(r));
+        actUndo->setStatusTip(actUndo->toolTip());
+        actRedo->setStatusTip(actRedo->toolTip());
+    };
+    connect(undo, &QUndoStack::indexChanged, this, syncUndo);
+    connect(undo, &QUndoStack::cleanChanged, this, syncUndo);
+    connect(undo, &QUndoStack::canUndoChanged, this, syncUndo);
+    connect(undo, &QUndoStack::canRedoChanged, this, syncUndo);
+    syncUndo();
     edit->addAction(actUndo);
     edit->addAction(actRedo);
     edit->addSeparator();
     QMenu* add = edit->addMenu(tr("&Add step after selection"));
     for (StepKind k : allStepKinds())
         add->addAction(stepIcon(k), stepKindTitle(k), this, [this, k] { addStep(doc_.selectedStep() + 1, k); });
+    QAction* rename = edit->addAction(tr("Re&name step"), this, &MainWindow::renameSelected);
+    rename->setShortcut(QKeySequence(Qt::Key_F2));
     QAction* dup = edit->addAction(tr("D&uplicate step"), this, &MainWindow::duplicateSelected);
     dup->setShortcut(QKeySequence(Qt::CTRL | Qt::Key_D));
     QAction* del = edit->addAction(tr("&Delete step"), this, &MainWindow::removeSelected);
@@ -307,6 +415,12 @@ void MainWindow::buildActions() {
         unitActions_ << a;
         connect(a, &QAction::triggered, this, [this, u] { setDisplayUnits(u); });
     }
+    units->addSeparator();
+    gaugeAction_ = units->addAction(tr("Pressures as &gauge"));
+    gaugeAction_->setCheckable(true);
+    gaugeAction_->setToolTip(tr("Show pressures above the worksheet's atmosphere (bar(g), kPa(g), psig) instead "
+                                "of absolute (bar(a), kPa(a), psia)"));
+    connect(gaugeAction_, &QAction::triggered, this, &MainWindow::setGaugeDisplay);
     viewMenu_->addSeparator();
     viewMenu_->addAction(tr("Zoom &in"), this, [this] { chain_->zoomBy(1.2); })->setShortcut(QKeySequence::ZoomIn);
     viewMenu_->addAction(tr("Zoom &out"), this, [this] { chain_->zoomBy(1 / 1.2); })->setShortcut(QKeySequence::ZoomOut);
@@ -314,6 +428,7 @@ void MainWindow::buildActions() {
         ->setShortcut(QKeySequence(Qt::CTRL | Qt::Key_0));
 
     QMenu* help = menuBar()->addMenu(tr("&Help"));
+    help->addAction(tr("&Getting started"), this, &MainWindow::showGettingStarted)->setShortcut(QKeySequence::HelpContents);
     help->addAction(tr("&About Heatchain"), this, &MainWindow::showAbout);
 
     // Toolbar: file, undo, the step kinds, and the quick-add line.
@@ -333,18 +448,23 @@ void MainWindow::buildActions() {
     steps->setIconSize(QSize(22, 22));
     for (StepKind k : allStepKinds()) {
         QAction* a = steps->addAction(stepIcon(k), stepKindTitle(k), this, [this, k] { addStep(doc_.selectedStep() + 1, k); });
-        a->setToolTip(tr("Add a %1 step after the selected one").arg(stepKindTitle(k).toLower()));
+        a->setToolTip(tr("Add a %1 step after the selected card: %2").arg(stepKindTitle(k).toLower(), stepKindMeaning(k)));
     }
     steps->addSeparator();
     quickAdd_ = new QLineEdit(this);
-    quickAdd_->setPlaceholderText(tr("quick add: heat to 180 degC source 240 degC"));
+    quickAdd_->setPlaceholderText(tr("quick add (Ctrl+L): heat to 180 degC source 240 degC"));
     quickAdd_->setClearButtonEnabled(true);
     quickAdd_->setMinimumWidth(300);
-    quickAdd_->setToolTip(tr("Type a step and press Enter, e.g.\n"
-                             "  heat to 180 degC source 240 degC\n"
-                             "  boil\n  compress to 14 barg eff 0.72\n"
-                             "  expand ratio 3 isentropic\n  cool to x 0.2 sink 30 degC"));
+    quickAdd_->setToolTip(quickAddHelp());
     steps->addWidget(quickAdd_);
+    // Ctrl+L: type a step without reaching for the mouse.
+    auto* focusQuickAdd = new QAction(tr("Quick add"), this);
+    focusQuickAdd->setShortcut(QKeySequence(Qt::CTRL | Qt::Key_L));
+    connect(focusQuickAdd, &QAction::triggered, this, [this] {
+        quickAdd_->setFocus(Qt::ShortcutFocusReason);
+        quickAdd_->selectAll();
+    });
+    addAction(focusQuickAdd);
     connect(quickAdd_, &QLineEdit::returnPressed, this, [this] {
         if (quickAddStep(quickAdd_->text())) quickAdd_->clear();
     });
@@ -357,7 +477,10 @@ void MainWindow::addStep(int index, StepKind kind) {
 }
 
 bool MainWindow::quickAddStep(const QString& text) {
-    auto step = parseQuickAdd(text.toStdString(), doc_.project());
+    // After the selected card; the Start card (no step selected) puts it first.
+    const int index = std::clamp(doc_.selectedStep() + 1, 0, int(doc_.project().steps.size()));
+    auto step = parseQuickAdd(text.toStdString(), doc_.project(),
+                              stateBefore(doc_.project(), doc_.result(), index).first);
     if (!step) {
         quickAdd_->setStyleSheet(QStringLiteral("QLineEdit { border: 1px solid #b42318; background: #fdecea; }"));
         quickAdd_->setToolTip(qs(step.error().message));
@@ -366,8 +489,11 @@ bool MainWindow::quickAddStep(const QString& text) {
         return false;
     }
     quickAdd_->setStyleSheet({});
+    quickAdd_->setToolTip(quickAddHelp());
+    // The message of an earlier failure no longer applies.
+    if (statusBar()->currentMessage().startsWith(tr("Not added:"))) statusBar()->clearMessage();
+    lastError_.clear();
     Step s = std::move(step.value());
-    const int index = doc_.selectedStep() + 1 > 0 ? doc_.selectedStep() + 1 : int(doc_.project().steps.size());
     // A quick-added step without a target takes the defaults of its kind.
     if (!s.hasTo && !isPhaseChangeKind(s.kind)) {
         Step d = defaultStep(doc_.project(), doc_.result(), s.kind, index);
@@ -381,6 +507,13 @@ bool MainWindow::quickAddStep(const QString& text) {
 void MainWindow::removeSelected() {
     const int i = doc_.selectedStep();
     if (i >= 0) doc_.undoStack()->push(new RemoveStep(&doc_, i));
+}
+
+void MainWindow::renameSelected() {
+    if (doc_.selectedStep() < 0) return;
+    QLineEdit* name = editor_->field(QStringLiteral("id"))->lineEdit();
+    name->setFocus(Qt::ShortcutFocusReason);
+    name->selectAll();
 }
 
 void MainWindow::duplicateSelected() {
@@ -400,6 +533,14 @@ void MainWindow::setDisplayUnits(UnitSystem u) {
     Project p = doc_.project();
     p.displayUnits = u;
     doc_.undoStack()->push(new EditProjectSettings(&doc_, std::move(p), tr("Change display units")));
+}
+
+void MainWindow::setGaugeDisplay(bool gauge) {
+    if (view::gaugeDisplay(doc_.project()) == gauge) return;
+    Project p = doc_.project();
+    view::setGaugeDisplay(p, gauge);
+    doc_.undoStack()->push(new EditProjectSettings(&doc_, std::move(p),
+                                                   gauge ? tr("Show gauge pressures") : tr("Show absolute pressures")));
 }
 
 void MainWindow::copyLedger() {
@@ -436,7 +577,7 @@ bool MainWindow::openFile(const QString& path) {
     if (!st) {
         reportError(tr("Cannot open worksheet"),
                     tr("%1 could not be opened. The current worksheet is unchanged.\n\n%2")
-                        .arg(QFileInfo(path).fileName(), qs(st.error().text())));
+                        .arg(QFileInfo(path).fileName(), view::escapedText(st.error().text())));
         return false;
     }
     lastError_.clear();
@@ -445,6 +586,7 @@ bool MainWindow::openFile(const QString& path) {
 }
 
 bool MainWindow::saveFile(const QString& path) {
+    const bool replacing = QFileInfo::exists(path);
     auto st = doc_.saveAs(path);
     if (!st) {
         reportError(tr("Cannot save worksheet"),
@@ -453,10 +595,18 @@ bool MainWindow::saveFile(const QString& path) {
     }
     rememberRecent(path);
     notice_->hide();
-    watchFile();
+    notice_->watchFile();
     // Saved: nothing left to lose, so no autosave to recover from.
-    autosave_->remove();
-    statusBar()->showMessage(tr("Saved %1").arg(path), 4000);
+    keeper_->forget();
+    // Save keeps the version it replaces as <file>.bak; say so once a session.
+    if (replacing && !bakMentioned_) {
+        bakMentioned_ = true;
+        statusBar()->showMessage(tr("Saved %1. The version it replaced is kept as %2.bak (once, overwritten at each save).")
+                                     .arg(path, QFileInfo(path).fileName()),
+                                 10000);
+    } else {
+        statusBar()->showMessage(tr("Saved %1").arg(path), 4000);
+    }
     return true;
 }
 
@@ -514,20 +664,6 @@ bool MainWindow::confirmDiscard() {
     return a == Answer::Discard;
 }
 
-QString MainWindow::describeDiskChange() const {
-    const QString path = doc_.filePath();
-    const QString name = QFileInfo(path).fileName();
-    const QFileInfo now(path);
-    if (!now.exists())
-        return tr("“%1” was removed or renamed since this worksheet last read or wrote it.\n\n%2").arg(name, path);
-    const DiskStamp& was = doc_.diskStamp();
-    const QLocale loc;
-    return tr("“%1” was changed on disk by someone else since this worksheet last read or wrote it.\n\n"
-              "Then: %2, %3 bytes\nNow:  %4, %5 bytes\n%6")
-        .arg(name, loc.toString(was.modified, QLocale::ShortFormat), loc.toString(was.size),
-             loc.toString(now.lastModified(), QLocale::ShortFormat), loc.toString(now.size()), path);
-}
-
 void MainWindow::newWorksheet() {
     if (!confirmDiscard()) return;
     auto p = newProject();
@@ -538,10 +674,18 @@ void MainWindow::newWorksheet() {
     doc_.reset(std::move(p.value()));
 }
 
+QString MainWindow::openDialogFolder() const {
+    // The folder of the last worksheet opened or saved, then the open
+    // worksheet's, then the samples.
+    const QString last = QSettings().value(QStringLiteral("lastFolder")).toString();
+    if (!last.isEmpty() && QFileInfo(last).isDir()) return last;
+    if (!doc_.filePath().isEmpty()) return QFileInfo(doc_.filePath()).path();
+    return QStringLiteral(HEATCHAIN_SAMPLES_DIR);
+}
+
 void MainWindow::openDialog() {
     if (!confirmDiscard()) return;
-    const QString start = doc_.filePath().isEmpty() ? QStringLiteral(HEATCHAIN_SAMPLES_DIR) : QFileInfo(doc_.filePath()).path();
-    const QString path = QFileDialog::getOpenFileName(this, tr("Open worksheet"), start,
+    const QString path = QFileDialog::getOpenFileName(this, tr("Open worksheet"), openDialogFolder(),
                                                       tr("Heatchain worksheets (*.hchain);;All files (*)"));
     if (!path.isEmpty()) openFile(path);
 }
@@ -550,7 +694,7 @@ bool MainWindow::save() {
     if (doc_.filePath().isEmpty()) return saveAsDialog();
     if (doc_.fileChangedOnDisk()) {
         // Never overwrite someone else's change without saying so.
-        switch (ask(Question::ChangedOnDisk, describeDiskChange())) {
+        switch (ask(Question::ChangedOnDisk, notice_->describeChange())) {
         case Answer::Overwrite: break;
         case Answer::SaveAs: return saveAsDialog();
         default: return false;
@@ -575,6 +719,7 @@ void MainWindow::rememberRecent(const QString& path) {
     recent.prepend(abs);
     while (recent.size() > kMaxRecent) recent.removeLast();
     s.setValue(QStringLiteral("recentFiles"), recent);
+    s.setValue(QStringLiteral("lastFolder"), QFileInfo(abs).path());
 }
 
 void MainWindow::fillRecentMenu() {
@@ -597,6 +742,7 @@ void MainWindow::updateTitle() {
                        .arg(p.meta.title.empty() ? tr("Untitled worksheet") : qs(p.meta.title), file));
     setWindowModified(doc_.isModified());
     for (QAction* a : unitActions_) a->setChecked(UnitSystem(a->data().toInt()) == p.displayUnits);
+    if (gaugeAction_) gaugeAction_->setChecked(view::gaugeDisplay(p));
 }
 
 void MainWindow::updateStatus() {
@@ -619,6 +765,49 @@ void MainWindow::updateStatus() {
         setMessages(tr("<span style='color:#8a5a00'>%1 warning(s)</span>").arg(w));
     else
         setMessages(tr("<span style='color:#2e7d32'>no warnings</span>"));
+}
+
+QString MainWindow::gettingStartedHtml() {
+    QString html = tr(
+        "<h3>Getting started</h3>"
+        "<p>A worksheet follows one material through a chain of steps. The chain starts with the "
+        "<b>Start card</b>; each step card after it is one change: heat, cool, melt, freeze, boil, "
+        "condense, sublimate, deposit (vapour → solid), compress, expand or throttle.</p>"
+        "<ol>"
+        "<li><b>Choose the material and where it starts.</b> Click the Start card: the step panel on the "
+        "left shows the substance, the property model (Reference is the best the substance has), the "
+        "start temperature and pressure and the basis (for example 2 kg/s). Type a value and press Enter; "
+        "every value keeps the units you type (<i>180 degC</i>, <i>6 barg</i>, <i>4.2 t/h</i>).</li>"
+        "<li><b>Add steps.</b> Use the toolbar's step buttons, the + between two cards, or type a phrase "
+        "in the quick-add line (Ctrl+L) and press Enter. A new step goes after the selected card.</li>"
+        "<li><b>Edit a step.</b> Click its card; the step panel shows its target (<i>to</i> a temperature, "
+        "a pressure or a quality, a duty, or a pressure ratio), its source or sink, and its result. "
+        "F2 renames it. Ctrl+Z and Ctrl+Y undo and redo.</li>"
+        "<li><b>Read the results.</b> Every card shows the state after its step and its duty Q and work "
+        "W; the ledger below lists every step, the charts on the right draw the path. The messages panel "
+        "lists errors (nothing computed), warnings (probably not what you meant) and notes (ordinary "
+        "facts).</li>"
+        "<li><b>Save and report.</b> Ctrl+S saves the worksheet file (the previous version is kept as "
+        "<i>.bak</i>); File ▸ Export ▸ Report writes the PDF for review.</li>"
+        "</ol>"
+        "<h4>Quick-add phrases</h4><table cellspacing='0' cellpadding='2'>");
+    for (const auto& row : kQuickAddPhrases)
+        html += QStringLiteral("<tr><td><code>%1</code></td><td>&nbsp;&nbsp;%2</td></tr>")
+                    .arg(QString::fromUtf8(row[0]).toHtmlEscaped(), tr(row[1]).toHtmlEscaped());
+    html += tr("</table><p><i>to</i> always names an end value; <i>by</i> only a change of temperature. "
+               "Pressures: <i>bar(a)</i>, <i>bara</i> are absolute, <i>barg</i>, <i>bar(g)</i>, <i>psig</i> "
+               "gauge (above the worksheet's atmosphere).</p>"
+               "<p>The samples (File ▸ Open, folder <i>sample-projects</i>) are complete worksheets to "
+               "look at. The words used here are defined in <i>docs/glossary.md</i>.</p>");
+    return html;
+}
+
+void MainWindow::showGettingStarted() {
+    QMessageBox box(this);
+    box.setWindowTitle(tr("Getting started"));
+    box.setTextFormat(Qt::RichText);
+    box.setText(gettingStartedHtml());
+    box.exec();
 }
 
 void MainWindow::showAbout() {
@@ -682,8 +871,12 @@ void MainWindow::startUp(const QStringList& arguments) {
         const QStringList recent = s.value(QStringLiteral("recentFiles")).toStringList();
         if (!recent.isEmpty() && QFileInfo::exists(recent.front()) && openFile(recent.front())) return;
     }
-    const QString sample = QStringLiteral(HEATCHAIN_SAMPLES_DIR "/melt-tank.hchain");
-    if (QFileInfo::exists(sample)) openFile(sample);
+    // Nothing to reopen: a blank worksheet, with the Start card selected so
+    // the step panel asks for the material and where it starts.
+    doc_.setSelectedStep(-1);
+    if (first)
+        statusBar()->showMessage(tr("New worksheet: choose the material and where it starts, then add steps. "
+                                    "Help ▸ Getting started; the samples are under File ▸ Open."), 15000);
 }
 
 void MainWindow::closeEvent(QCloseEvent* e) {
@@ -696,61 +889,14 @@ void MainWindow::closeEvent(QCloseEvent* e) {
     s.setValue(QStringLiteral("window/state"), saveState());
     e->accept();
     // A clean close: this session's autosave has nothing left to protect.
-    autosaveTimer_.stop();
-    autosave_->remove();
+    keeper_->stop();
+    keeper_->forget();
 }
 
-// ---- notice strip: the file changed on disk --------------------------------
+// ---- the helpers' entry points: the window only wires ---------------------
 
-void MainWindow::buildNotice() {
-    notice_ = new QFrame(this);
-    notice_->setObjectName(QStringLiteral("diskNotice"));
-    notice_->setStyleSheet(QStringLiteral(
-        "#diskNotice { background: #fff6e0; border-bottom: 1px solid #e0c36a; }"
-        "#diskNotice QLabel { color: #5c4300; }"));
-    auto* row = new QHBoxLayout(notice_);
-    row->setContentsMargins(10, 5, 8, 5);
-    noticeText_ = new QLabel(notice_);
-    noticeText_->setTextFormat(Qt::PlainText);
-    noticeText_->setWordWrap(true);
-    noticeReload_ = new QPushButton(tr("Reload"), notice_);
-    auto* dismiss = noticeDismiss_ = new QPushButton(tr("Keep mine"), notice_);
-    dismiss->setToolTip(tr("Hide this notice. Save will still ask before overwriting the other version."));
-    row->addWidget(noticeText_, 1);
-    row->addWidget(noticeReload_);
-    row->addWidget(dismiss);
-    connect(noticeReload_, &QPushButton::clicked, this, &MainWindow::reloadFromDisk);
-    connect(dismiss, &QPushButton::clicked, notice_, &QWidget::hide);
-    notice_->hide();
-}
-
-void MainWindow::watchFile() {
-    const QString path = doc_.filePath();
-    const QStringList watched = watcher_.files();
-    // An atomic save by anyone (us included) replaces the file, and the
-    // watch on the old one is gone: watch the path again.
-    if (watched.size() == 1 && watched.front() == path && QFileInfo::exists(path)) return;
-    if (!watched.isEmpty()) watcher_.removePaths(watched);
-    if (!path.isEmpty() && QFileInfo::exists(path)) watcher_.addPath(path);
-}
-
-void MainWindow::checkDiskNow() {
-    watchFile();
-    if (!doc_.fileChangedOnDisk()) {
-        notice_->hide();
-        return;
-    }
-    const bool exists = QFileInfo::exists(doc_.filePath());
-    const QString name = QFileInfo(doc_.filePath()).fileName();
-    noticeText_->setText(exists ? tr("“%1” was changed on disk by another program. What you see here is your version; "
-                                     "Save will ask before overwriting theirs.")
-                                      .arg(name)
-                                : tr("“%1” was removed or renamed on disk. Save writes it again.").arg(name));
-    noticeReload_->setVisible(exists);
-    noticeReload_->setText(doc_.isModified() ? tr("Reload (drop my edits)") : tr("Reload"));
-    noticeDismiss_->setText(doc_.isModified() ? tr("Keep mine") : tr("Dismiss"));
-    notice_->show();
-}
+void MainWindow::checkDiskNow() { notice_->checkNow(); }
+bool MainWindow::diskNoticeShown() const { return notice_->noticeShown(); }
 
 void MainWindow::reloadFromDisk() {
     const QString path = doc_.filePath();
@@ -761,198 +907,28 @@ void MainWindow::reloadFromDisk() {
     }
 }
 
-// ---- autosave and recovery --------------------------------------------------
+void MainWindow::setAutosaveInterval(int ms) { keeper_->setInterval(ms); }
+int MainWindow::autosaveInterval() const { return keeper_->interval(); }
+void MainWindow::setAutosaveFolder(const QString& folder) { keeper_->setFolder(folder); }
+AutosaveStore* MainWindow::autosaveStore() const { return keeper_->store(); }
+void MainWindow::autosaveNow() { keeper_->autosaveNow(); }
+bool MainWindow::offerRecovery() { return keeper_->offerRecovery(); }
 
-void MainWindow::setAutosaveFolder(const QString& folder) {
-    if (autosave_) autosave_->remove();
-    autosave_ = std::make_unique<AutosaveStore>(folder);
-}
-
-void MainWindow::autosaveNow() {
-    // A saved, unedited worksheet is safe in its file.
-    if (!doc_.isModified() && !doc_.filePath().isEmpty()) {
-        autosave_->remove();
-        return;
-    }
-    // A blank new worksheet holds nothing to lose.
-    if (!doc_.isModified() && doc_.project().steps.empty()) return;
-    if (auto st = autosave_->write(doc_.project(), doc_.filePath()); !st)
-        statusBar()->showMessage(tr("Autosave failed: %1").arg(qs(st.error().text())), 8000);
-}
-
-bool MainWindow::offerRecovery() {
-    QList<AutosaveEntry> left = autosave_->orphans();
-    // An autosave that says exactly what its file says holds nothing to
-    // recover: drop it without a question.
-    for (auto it = left.begin(); it != left.end();) {
-        QFile sheet(it->worksheetFile);
-        auto original = it->originalPath.isEmpty() ? Result<Project>(makeError("never saved"))
-                                                   : loadProject(std::filesystem::path(it->originalPath.toStdString()));
-        if (original && sheet.open(QIODevice::ReadOnly) &&
-            sheet.readAll() == QByteArray::fromStdString(writeProject(original.value()))) {
-            AutosaveStore::discard(*it);
-            it = left.erase(it);
-        } else {
-            ++it;
-        }
-    }
-    if (left.isEmpty()) return false;
-    const AutosaveEntry& e = left.front();
-    const QLocale loc;
-    const qint64 minutes = e.saved.secsTo(QDateTime::currentDateTime()) / 60;
-    const QString ago = minutes < 1 ? tr("less than a minute ago")
-                        : minutes < 120 ? tr("%1 min ago").arg(minutes)
-                        : minutes < 48 * 60 ? tr("%1 h ago").arg(minutes / 60)
-                                            : tr("%1 days ago").arg(minutes / (24 * 60));
-    QString text = tr("Heatchain did not close normally. A worksheet it autosaved can be recovered.\n\n");
-    text += tr("“%1”\n").arg(e.title.isEmpty() ? tr("Untitled worksheet") : e.title);
-    text += e.originalPath.isEmpty() ? tr("never saved to a file\n") : tr("from %1\n").arg(e.originalPath);
-    text += tr("autosaved %1 (%2)\n").arg(loc.toString(e.saved, QLocale::ShortFormat), ago);
-    const QFileInfo originalInfo(e.originalPath);
-    if (!e.originalPath.isEmpty() && originalInfo.exists() && originalInfo.lastModified() > e.saved)
-        text += tr("Note: the file was changed after this autosave (%1); saving the recovered worksheet would replace "
-                   "that version.\n").arg(loc.toString(originalInfo.lastModified(), QLocale::ShortFormat));
-    else if (!e.originalPath.isEmpty() && !originalInfo.exists())
-        text += tr("Note: that file no longer exists.\n");
-    text += QLatin1Char('\n');
-    text += tr("Recover opens it with its changes not yet saved; Save writes to the original file only when you choose. "
-               "Discard deletes the autosave. Later keeps it for the next start.");
-    if (left.size() > 1) text += tr("\n\n%n more autosave(s) will be offered afterwards.", nullptr, int(left.size()) - 1);
-    switch (ask(Question::Recover, text)) {
-    case Answer::Recover: {
-        if (!confirmDiscard()) return false;
-        auto p = AutosaveStore::load(e);
-        if (!p) {
-            reportError(tr("Cannot recover worksheet"),
-                        tr("The autosave could not be read; it is kept in %1.\n\n%2").arg(autosave_->folder(), qs(p.error().text())));
-            return false;
-        }
-        doc_.reset(std::move(p.value()), e.originalPath);
-        doc_.markModified();
-        // Keep it safe under this session before the old copy goes.
-        autosaveNow();
-        AutosaveStore::discard(e);
-        statusBar()->showMessage(tr("Recovered the worksheet autosaved %1 — not saved yet").arg(loc.toString(e.saved, QLocale::ShortFormat)), 8000);
-        if (left.size() > 1) QTimer::singleShot(0, this, &MainWindow::offerRecovery);
-        return true;
-    }
-    case Answer::Discard:
-        AutosaveStore::discard(e);
-        if (left.size() > 1) QTimer::singleShot(0, this, &MainWindow::offerRecovery);
-        return false;
-    default: return false;
-    }
-}
-
-// ---- exports ------------------------------------------------------------------
-
-QString MainWindow::exportStartPath(const QString& suffix) const {
-    const QString path = doc_.filePath();
-    if (path.isEmpty()) return QDir::home().filePath(QStringLiteral("worksheet") + suffix);
-    const QFileInfo info(path);
-    return info.dir().filePath(info.completeBaseName() + suffix);
-}
-
-bool MainWindow::refuseWorksheetPath(const QString& path) {
-    const QFileInfo out(path);
-    const bool own = !doc_.filePath().isEmpty() && out.absoluteFilePath() == QFileInfo(doc_.filePath()).absoluteFilePath();
-    if (own || out.suffix().compare(QStringLiteral("hchain"), Qt::CaseInsensitive) == 0) {
-        reportError(tr("Cannot export"), tr("%1 is a worksheet file; an export never writes over a worksheet.").arg(path));
-        return true;
-    }
-    return false;
-}
-
-bool MainWindow::finishExport(const Status& st, const QString& what, const QString& path) {
-    if (!st) {
-        reportError(tr("Cannot export %1").arg(what),
-                    tr("Nothing was written to %1; the worksheet is unchanged.\n\n%2").arg(path, qs(st.error().text())));
-        return false;
-    }
-    lastError_.clear();
-    statusBar()->showMessage(tr("Exported %1 to %2").arg(what, path), 6000);
-    return true;
-}
-
-bool MainWindow::exportReport(const QString& path, PageSize pageSize) {
-    if (refuseWorksheetPath(path)) return false;
-    // The report checksums the worksheet file. With unsaved edits (or a file
-    // someone else changed) that file is not what the report shows, so the
-    // report checksums the worksheet as it would be saved instead.
-    const bool fileMatches = !doc_.filePath().isEmpty() && !doc_.isModified() && !doc_.fileChangedOnDisk();
-    const std::string file = fileMatches ? doc_.filePath().toStdString() : std::string();
-    const bool ok = finishExport(writeReportPdf(doc_.project(), doc_.result(), file, path.toStdString(), ReportOptions{pageSize}),
-                                 tr("the step report"), path);
-    if (ok && !fileMatches && !doc_.filePath().isEmpty())
-        statusBar()->showMessage(tr("Exported the step report to %1. The worksheet differs from its file, so the report "
-                                    "carries the checksum of what you see, not of the file.").arg(path), 10000);
+bool MainWindow::exported(bool ok) {
+    if (ok) lastError_.clear();
     return ok;
 }
-
-bool MainWindow::exportChartImage(const QString& path, ChartKind kind) {
-    if (refuseWorksheetPath(path)) return false;
-    return finishExport(exportChart(doc_.project(), doc_.result(), kind, path.toStdString()),
-                        kind == ChartKind::TemperatureEntropy ? tr("the T–s chart") : tr("the T–Q chart"), path);
-}
-
-bool MainWindow::exportLedger(const QString& path) {
-    if (refuseWorksheetPath(path)) return false;
-    return finishExport(exportLedgerCsv(doc_.project(), doc_.result(), path.toStdString()), tr("the ledger"), path);
-}
-
-bool MainWindow::exportResults(const QString& path) {
-    if (refuseWorksheetPath(path)) return false;
-    return finishExport(exportResultsJson(doc_.project(), doc_.result(), path.toStdString()), tr("the results"), path);
-}
-
-void MainWindow::exportReportDialog() {
-    const QString a4 = tr("PDF report, A4 (*.pdf)"), letter = tr("PDF report, US Letter (*.pdf)");
-    QString filter = doc_.project().displayUnits == UnitSystem::USCustomary ? letter : a4;
-    QString path = QFileDialog::getSaveFileName(this, tr("Export step report"), exportStartPath(QStringLiteral("-report.pdf")),
-                                                a4 + QStringLiteral(";;") + letter, &filter);
-    if (path.isEmpty()) return;
-    if (QFileInfo(path).suffix().isEmpty()) path += QStringLiteral(".pdf");
-    exportReport(path, filter == letter ? PageSize::Letter : PageSize::A4);
-}
-
-void MainWindow::exportChartDialog(ChartKind kind) {
-    const QString png = tr("PNG image (*.png)"), svg = tr("SVG drawing (*.svg)");
-    QString filter = png;
-    const QString suffix = kind == ChartKind::TemperatureEntropy ? QStringLiteral("-Ts.png") : QStringLiteral("-TQ.png");
-    QString path = QFileDialog::getSaveFileName(this, kind == ChartKind::TemperatureEntropy ? tr("Export T–s chart") : tr("Export T–Q chart"),
-                                                exportStartPath(suffix), png + QStringLiteral(";;") + svg, &filter);
-    if (path.isEmpty()) return;
-    const QString ext = QFileInfo(path).suffix().toLower();
-    if (ext != QStringLiteral("png") && ext != QStringLiteral("svg"))
-        path += filter == svg ? QStringLiteral(".svg") : QStringLiteral(".png");
-    exportChartImage(path, kind);
-}
-
-void MainWindow::exportDataDialog(bool csv) {
-    const QString suffix = csv ? QStringLiteral("-ledger.csv") : QStringLiteral("-results.json");
-    QString path = QFileDialog::getSaveFileName(this, csv ? tr("Export ledger") : tr("Export results"), exportStartPath(suffix),
-                                                csv ? tr("CSV table (*.csv)") : tr("JSON (*.json)"));
-    if (path.isEmpty()) return;
-    if (QFileInfo(path).suffix().isEmpty()) path += csv ? QStringLiteral(".csv") : QStringLiteral(".json");
-    if (csv) exportLedger(path);
-    else exportResults(path);
-}
-
-// ---- compare ------------------------------------------------------------------
+bool MainWindow::exportReport(const QString& path, PageSize pageSize) { return exported(exporter_->exportReport(path, pageSize)); }
+bool MainWindow::exportChartImage(const QString& path, ChartKind kind) { return exported(exporter_->exportChartImage(path, kind)); }
+bool MainWindow::exportLedger(const QString& path) { return exported(exporter_->exportLedger(path)); }
+bool MainWindow::exportResults(const QString& path) { return exported(exporter_->exportResults(path)); }
 
 CompareDialog* MainWindow::compareWith(const QString& path) {
-    auto other = loadProject(std::filesystem::path(path.toStdString()));
-    if (!other) {
-        reportError(tr("Cannot compare"), tr("%1 could not be read.\n\n%2").arg(QFileInfo(path).fileName(), qs(other.error().text())));
-        return nullptr;
-    }
-    lastError_.clear();
-    SequenceResult otherResult = solve(other.value());
-    QString mine = doc_.filePath().isEmpty() ? tr("this worksheet (not saved)")
-                                             : tr("this worksheet, %1").arg(QFileInfo(doc_.filePath()).fileName());
-    if (doc_.isModified() && !doc_.filePath().isEmpty()) mine += tr(" with unsaved changes");
-    return new CompareDialog(Revision{std::move(other.value()), std::move(otherResult), QFileInfo(path).fileName()},
-                             Revision{doc_.project(), doc_.result(), mine}, this);
+    QString error;
+    CompareDialog* d = CompareDialog::againstFile(doc_, path, &error, this);
+    if (!d) reportError(tr("Cannot compare"), error);
+    else lastError_.clear();
+    return d;
 }
 
 void MainWindow::compareDialog() {

@@ -1,7 +1,9 @@
 #pragma once
 // The main window only wires actions to commands and lays out the views:
-// chain canvas and ledger in the middle, step editor on the left, charts on
-// the right, messages below.
+// chain canvas and ledger in the middle, step panel on the left, charts on
+// the right, messages below. Watching the file on disk (DiskWatch), autosave
+// and recovery (AutosaveKeeper), exports (Exporter) and the revision
+// comparison (CompareDialog::againstFile) are classes of their own.
 #include <QFileSystemWatcher>
 #include <QFrame>
 #include <QLabel>
@@ -15,7 +17,11 @@
 #include <memory>
 
 #include "autosave.hpp"
+#include "disk_watch.hpp"
+#include "exporter.hpp"
 #include "heatchain/report.hpp"
+#include "questions.hpp"
+#include "recovery.hpp"
 
 #include "chain_view.hpp"
 #include "chart_widget.hpp"
@@ -24,22 +30,20 @@
 #include "second_law_panel.hpp"
 #include "ledger_model.hpp"
 #include "messages_panel.hpp"
+#include "start_editor.hpp"
 #include "step_editor.hpp"
 
 namespace heatchain::gui {
 
 class CompareDialog;
 
-// The questions the window asks the user, and their possible answers. Tests
-// inject the answers (setAsker) instead of pressing buttons.
-enum class Question { UnsavedChanges, ChangedOnDisk, Recover };
-enum class Answer { Save, Discard, Cancel, Overwrite, SaveAs, Recover, Later };
-using Asker = std::function<Answer(Question, const QString& text)>;
 
 class MainWindow : public QMainWindow {
     Q_OBJECT
 public:
     explicit MainWindow(QWidget* parent = nullptr);
+    // The views read the document until they go: they go first.
+    ~MainWindow() override;
 
     ProjectDocument* document() { return &doc_; }
     ChainView* chain() const { return chain_; }
@@ -86,10 +90,10 @@ public:
 
     // Autosave: every `ms` (default one minute) into `folder` (default
     // <AppDataLocation>/autosave).
-    void setAutosaveInterval(int ms) { autosaveTimer_.setInterval(ms); }
-    int autosaveInterval() const { return autosaveTimer_.interval(); }
+    void setAutosaveInterval(int ms);
+    int autosaveInterval() const;
     void setAutosaveFolder(const QString& folder);
-    AutosaveStore* autosaveStore() const { return autosave_.get(); }
+    AutosaveStore* autosaveStore() const;
     void autosaveNow();
     // Offers the newest autosave of a session that did not close cleanly.
     // True when a worksheet was recovered.
@@ -98,11 +102,19 @@ public:
     // The file changed on disk: checks now (the watcher calls this too) and
     // shows or hides the notice offering Reload.
     void checkDiskNow();
-    bool diskNoticeShown() const { return !notice_->isHidden(); }
+    bool diskNoticeShown() const;
     void reloadFromDisk();
     // Adds the step the quick-add text describes after the selected step.
     bool quickAddStep(const QString& text);
     void setDisplayUnits(UnitSystem u);
+    // View ▸ Units ▸ Pressures as gauge: one undoable settings edit.
+    void setGaugeDisplay(bool gauge);
+    StartEditor* startEditor() const { return startEditor_; }
+    // The folder File ▸ Open starts in: the last one a worksheet was opened
+    // from or saved to.
+    QString openDialogFolder() const;
+    // Help ▸ Getting started, as text (the dialog shows it).
+    static QString gettingStartedHtml();
     void copyLedger();
 
     // Restores the window layout and opens what the first start should show.
@@ -115,24 +127,18 @@ private:
     void buildActions();
     void buildDocks();
     void openDialog();
+    void showGettingStarted();
     bool saveAsDialog();
     Answer ask(Question q, const QString& text);
-    QString describeDiskChange() const;
-    void watchFile();
-    void buildNotice();
-    void exportReportDialog();
-    void exportChartDialog(ChartKind kind);
-    void exportDataDialog(bool csv);
     void compareDialog();
-    bool finishExport(const Status& st, const QString& what, const QString& path);
-    bool refuseWorksheetPath(const QString& path);
-    QString exportStartPath(const QString& suffix) const;
+    bool exported(bool ok);
     void editSettings();
     void editUtilities();
     void openSweep();
     void showAbout();
     void addStep(int index, StepKind kind);
     void removeSelected();
+    void renameSelected();
     void duplicateSelected();
     void moveSelected(int delta);
     void updateTitle();
@@ -144,6 +150,9 @@ private:
     ProjectDocument doc_;
     ChainView* chain_;
     StepEditor* editor_;
+    StartEditor* startEditor_ = nullptr;
+    QAction* gaugeAction_ = nullptr;
+    bool bakMentioned_ = false;
     LedgerModel* ledger_;
     QTableView* ledgerView_;
     ChartWidget* ts_;
@@ -162,14 +171,9 @@ private:
     Asker asker_;
     QString lastError_;
     QString lastQuestion_;
-    QTimer autosaveTimer_;
-    std::unique_ptr<AutosaveStore> autosave_;
-    QFileSystemWatcher watcher_;
-    QTimer diskCheck_;
-    QFrame* notice_ = nullptr;
-    QLabel* noticeText_ = nullptr;
-    QPushButton* noticeReload_ = nullptr;
-    QPushButton* noticeDismiss_ = nullptr;
+    DiskWatch* notice_ = nullptr;
+    AutosaveKeeper* keeper_ = nullptr;
+    Exporter* exporter_ = nullptr;
 
 };
 

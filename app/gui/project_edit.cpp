@@ -1,6 +1,7 @@
 #include "project_edit.hpp"
 
 #include <algorithm>
+#include <chrono>
 #include <cctype>
 #include <cmath>
 #include <cstdio>
@@ -26,7 +27,16 @@ Result<Project> newProject() {
   "start": { "T": "20 degC", "P": "1 atm" },
   "steps": []
 })";
-    return parseProject(text, "new worksheet");
+    auto p = parseProject(text, "new worksheet");
+    if (p) {
+        // The day the worksheet was made (UTC, ISO 8601).
+        const auto today = std::chrono::floor<std::chrono::days>(std::chrono::system_clock::now());
+        const std::chrono::year_month_day ymd{today};
+        char buf[16];
+        std::snprintf(buf, sizeof buf, "%04d-%02u-%02u", int(ymd.year()), unsigned(ymd.month()), unsigned(ymd.day()));
+        p.value().meta.created = buf;
+    }
+    return p;
 }
 
 std::string uniqueStepId(const Project& project, std::string_view base) {
@@ -53,10 +63,10 @@ std::string plain(double v) {
     return buf;
 }
 
-Quantity displayQuantity(double si, Dimension d, const Project& project) {
+Quantity displayQuantity(double si, Dimension d, const Project& project, double step = 1.0) {
     const std::string_view unit = displayUnit(d, project.displayUnits);
     double shown = toDisplay(si, d, project.displayUnits, project.unitContext());
-    shown = std::round(shown);
+    shown = std::round(shown / step) * step;
     Quantity q;
     q.text = plain(shown) + " " + std::string(unit);
     auto parsed = parseQuantity(q.text, d, project.unitContext());
@@ -73,12 +83,7 @@ Number number(double v) {
 
 }  // namespace
 
-Step defaultStep(const Project& project, const SequenceResult& result, StepKind kind, int index) {
-    Step step;
-    step.kind = kind;
-    step.id = uniqueStepId(project, stepKindId(kind));
-
-    // State just before the insertion point.
+std::pair<double, double> stateBefore(const Project& project, const SequenceResult& result, int index) {
     double T = project.start.T ? project.start.T->si : 293.15;
     double P = project.start.P ? project.start.P->si : 101325.0;
     if (!result.startError) {
@@ -92,6 +97,14 @@ Step defaultStep(const Project& project, const SequenceResult& result, StepKind 
             break;
         }
     }
+    return {T, P};
+}
+
+Step defaultStep(const Project& project, const SequenceResult& result, StepKind kind, int index) {
+    Step step;
+    step.kind = kind;
+    step.id = uniqueStepId(project, stepKindId(kind));
+    const auto [T, P] = stateBefore(project, result, index);
 
     switch (kind) {
     case StepKind::Heat:
@@ -133,16 +146,30 @@ Result<Quantity> parseTypedQuantity(std::string_view text, Dimension d, const Pr
 }
 
 Result<Number> parseTypedNumber(std::string_view text, double min, double max,
-                                std::string_view what) {
+                                std::string_view what, bool aboveMin) {
     std::string t(text);
     while (!t.empty() && std::isspace(static_cast<unsigned char>(t.back()))) t.pop_back();
     while (!t.empty() && std::isspace(static_cast<unsigned char>(t.front()))) t.erase(t.begin());
+    // A fraction may be typed as a percentage ("50 %"); it is kept as the
+    // fraction it means (0.5), the way the file holds it.
+    bool percent = false;
+    if (max <= 1.0 && !t.empty() && t.back() == '%') {
+        percent = true;
+        t.pop_back();
+        while (!t.empty() && std::isspace(static_cast<unsigned char>(t.back()))) t.pop_back();
+    }
     Json raw = Json::parse(t, nullptr, /*allow_exceptions=*/false);
     if (raw.is_discarded() || !raw.is_number())
-        return makeError("\"" + t + "\" is not a number; " + std::string(what) + " is a plain number");
+        return makeError("\"" + std::string(text) + "\" is not a number; " + std::string(what) +
+                         (max <= 1.0 ? " is a plain number or a percentage" : " is a plain number"));
+    if (percent) {
+        raw = Json::parse(plain(raw.get<double>() / 100.0));
+        t += " %";
+    }
     const double v = raw.get<double>();
-    if (!std::isfinite(v) || v < min || v > max)
-        return makeError(std::string(what) + " must lie between " + plain(min) + " and " +
+    if (!std::isfinite(v) || v < min || v > max || (aboveMin && v == min))
+        return makeError(std::string(what) + (aboveMin ? " must be above " + plain(min) + " and at most "
+                                                       : " must lie between " + plain(min) + " and ") +
                          plain(max) + ", not " + t);
     return Number{raw, v};
 }
@@ -175,7 +202,7 @@ bool isKeyword(const std::string& w) {
 
 }  // namespace
 
-Result<Step> parseQuickAdd(std::string_view line, const Project& project) {
+Result<Step> parseQuickAdd(std::string_view line, const Project& project, std::optional<double> beforeT) {
     const std::vector<std::string> w = words(line);
     if (w.empty()) return makeError("type a step, e.g. \"heat to 180 degC\"");
     auto kind = parseStepKind(lower(w[0]));
@@ -199,7 +226,7 @@ Result<Step> parseQuickAdd(std::string_view line, const Project& project) {
     while (i < w.size()) {
         std::string key = lower(w[i++]);
         // "to x 0.4": a quality target.
-        if ((key == "to" || key == "by") && i < w.size() && lower(w[i]) == "x") {
+        if (key == "to" && i < w.size() && lower(w[i]) == "x") {
             ++i;
             key = "x";
         }
@@ -213,7 +240,23 @@ Result<Step> parseQuickAdd(std::string_view line, const Project& project) {
         }
         const std::string v = value();
         if (v.empty()) return makeError("\"" + key + "\" needs a value after it");
-        if (key == "to" || key == "by") {
+        if (key == "by") {
+            // "by" is a change, never an end value: "heat by 10 K" ends 10 K
+            // above where the step starts.
+            if (step.kind != StepKind::Heat && step.kind != StepKind::Cool)
+                return makeError("\"by\" names a change of temperature on a heat or cool step (\"heat by 10 K\"); "
+                                 "for an end value write \"to\"");
+            auto d = parseTypedQuantity(v, Dimension::TemperatureDifference, project);
+            if (!d) return makeError("\"by " + v + "\": " + d.error().message + " (a change of temperature, e.g. \"by 10 K\")");
+            if (!(d->si > 0)) return makeError("\"by " + v + "\": the change must be above zero; the step kind gives its direction");
+            if (!beforeT) return makeError("\"by\" needs the temperature where the step starts, which is not computed yet");
+            const double end = step.kind == StepKind::Heat ? *beforeT + d->si : *beforeT - d->si;
+            if (!(end > 0)) return makeError("cooling by " + v + " would end below absolute zero");
+            step.hasTo = true;
+            step.to.T = displayQuantity(end, Dimension::Temperature, project, 0.01);
+            continue;
+        }
+        if (key == "to") {
             // A target is a temperature, a pressure or a duty: try each.
             if (auto t = parseTypedQuantity(v, Dimension::Temperature, project)) {
                 step.hasTo = true; step.to.T = *t; continue;
@@ -230,7 +273,7 @@ Result<Step> parseQuickAdd(std::string_view line, const Project& project) {
             if (!d) return d.error();
             step.hasTo = true; step.to.duty = *d;
         } else if (key == "ratio") {
-            auto r = parseTypedNumber(v, 1, 1e6, "pressure ratio");
+            auto r = parseTypedNumber(v, 1, 1e6, "pressure ratio", true);
             if (!r) return r.error();
             step.hasTo = true; step.to.ratio = *r;
         } else if (key == "x" || key == "quality") {
@@ -246,7 +289,7 @@ Result<Step> parseQuickAdd(std::string_view line, const Project& project) {
             if (!t) return t.error();
             step.sink = Reservoir{*t, std::nullopt, Json::object()};
         } else if (key == "eff" || key == "efficiency") {
-            auto e = parseTypedNumber(v, 1e-6, 1, "isentropic efficiency");
+            auto e = parseTypedNumber(v, 0, 1, "isentropic efficiency", true);
             if (!e) return e.error();
             step.efficiency = *e;
             if (!step.path) step.path = PathKind::Adiabatic;
@@ -256,7 +299,7 @@ Result<Step> parseQuickAdd(std::string_view line, const Project& project) {
             step.n = *n;
             step.path = PathKind::Polytropic;
         } else if (key == "fraction") {
-            auto f = parseTypedNumber(v, 0, 1, "fraction");
+            auto f = parseTypedNumber(v, 0, 1, "fraction", true);
             if (!f) return f.error();
             step.fraction = *f;
         } else if (key == "id") {

@@ -3,7 +3,9 @@
 // default steps, unique ids, typed fields parsed by core, and the quick-add
 // line ("heat to 180 degC"). Parsing and validation are core's; these only
 // assemble the user's words into the Project structure.
+#include <optional>
 #include <string>
+#include <utility>
 #include <string_view>
 
 #include "heatchain/project.hpp"
@@ -23,6 +25,9 @@ std::string uniqueStepId(const Project& project, std::string_view base);
 // before that position in `result` (or the start state): heat by 20 K,
 // compress to twice the pressure, and so on. Units follow the display system.
 Step defaultStep(const Project& project, const SequenceResult& result, StepKind kind, int index);
+// Temperature and pressure (SI) of the material just before `index`: the end
+// of the last computed step before it, else the start state.
+std::pair<double, double> stateBefore(const Project& project, const SequenceResult& result, int index);
 
 // Dimension of a step's duty as typed: energy for a closed batch, power in flow.
 Dimension dutyDimension(const Project& project);
@@ -30,12 +35,17 @@ Dimension dutyDimension(const Project& project);
 // A typed quantity ("6 barg") checked by core's parser.
 Result<Quantity> parseTypedQuantity(std::string_view text, Dimension d, const Project& project);
 // A typed dimensionless number ("0.72"), kept as the JSON number it was.
+// With `aboveMin` the lower bound is excluded (a fraction above 0, a pressure
+// ratio above 1), as the file's reader has it.
 Result<Number> parseTypedNumber(std::string_view text, double min, double max,
-                                std::string_view what);
+                                std::string_view what, bool aboveMin = false);
 
 // "heat to 180 degC", "cool to 40 degC sink 15 degC", "compress to 6 barg eff 0.72",
 // "expand ratio 3 isentropic", "boil", "heat to x 0.4", "heat duty 250 kW".
-Result<Step> parseQuickAdd(std::string_view line, const Project& project);
+// "to" names an end value; "by" a change ("heat by 10 K"), which needs the
+// temperature where the step starts (`beforeT`, K).
+Result<Step> parseQuickAdd(std::string_view line, const Project& project,
+                           std::optional<double> beforeT = std::nullopt);
 
 // Re-reads the project through core's writer and parser so every derived
 // value (SI numbers after an atmosphere change, the resolved substance) is

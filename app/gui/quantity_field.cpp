@@ -11,14 +11,20 @@ QuantityField::QuantityField(QWidget* parent) : QWidget(parent) {
     edit_ = new QLineEdit(this);
     error_ = new QLabel(this);
     error_->setWordWrap(true);
+    error_->setTextFormat(Qt::PlainText);
+    // A wrapped reason takes the lines it needs; never clipped to one.
+    error_->setSizePolicy(QSizePolicy::Preferred, QSizePolicy::MinimumExpanding);
     error_->setStyleSheet(QStringLiteral("color: #b42318; font-size: 8.5pt;"));
     error_->hide();
     lay->addWidget(edit_);
     lay->addWidget(error_);
     connect(edit_, &QLineEdit::editingFinished, this, &QuantityField::commit);
-    connect(edit_, &QLineEdit::textEdited, this, [this] {
-        // Typing again clears the mark; the check runs on Enter.
-        if (hasError()) edit_->setStyleSheet(QStringLiteral("QLineEdit { background: #fff7e6; }"));
+    connect(edit_, &QLineEdit::textEdited, this, [this](const QString& t) {
+        // Typing again: once the text passes its check the reason goes; the
+        // value is applied on Enter or on leaving the field.
+        if (!hasError()) return;
+        if (!check_ || check_(t.trimmed()).isEmpty()) setError({});
+        else edit_->setStyleSheet(QStringLiteral("QLineEdit { background: #fff7e6; }"));
     });
 }
 
@@ -35,6 +41,7 @@ void QuantityField::commit() {
     const QString reason = check_ ? check_(text) : QString();
     if (!reason.isEmpty()) {
         setError(reason);
+        emit rejected(text, reason);
         return;
     }
     setError({});

@@ -31,6 +31,9 @@ public:
 
 signals:
     void committed(const QString& text);
+    // Text that failed its check on Enter or on leaving the field: the
+    // entry is not applied, and the window says so (not only the field).
+    void rejected(const QString& text, const QString& reason);
 
 private:
     void setError(const QString& reason);

@@ -4,9 +4,9 @@
 #include <QStyle>
 #include <algorithm>
 
-#include "heatchain_qt/format.hpp"
-#include "heatchain_qt/palette.hpp"
-#include "heatchain_qt/utility_text.hpp"
+#include "heatchain_view/format.hpp"
+#include "heatchain_view/palette.hpp"
+#include "heatchain_view/utility_text.hpp"
 
 namespace heatchain::gui {
 
@@ -53,13 +53,13 @@ void SecondLawPanel::refresh() {
     const Project& p = doc_->project();
     const SequenceResult& r = doc_->result();
     const UnitSystem u = p.displayUnits;
-    const UnitContext ctx = p.unitContext();
+    const UnitContext ctx = displayContext(p);
     const Dimension eD = energyDimension(r.system);
     const QString eU = unitSymbol(eD, u), dTU = unitSymbol(Dimension::TemperatureDifference, u);
     QSignalBlocker block(this);
     clearContents();
-    setHorizontalHeaderLabels({tr("Step"), tr("Utility"), tr("Uses"), tr("Approach min [%1]").arg(dTU),
-                               tr("Where"), tr("Ex supplied [%1]").arg(eU), tr("Ex destroyed [%1]").arg(eU),
+    setHorizontalHeaderLabels({tr("Step"), tr("Utility"), tr("Uses"), tr("Closest approach [%1]").arg(dTU),
+                               tr("Where"), tr("Exergy supplied [%1]").arg(eU), tr("Exergy destroyed [%1]").arg(eU),
                                tr("share"), tr("η_II")});
     stepOfRow_.clear();
     utilityOfRow_.clear();
@@ -74,7 +74,7 @@ void SecondLawPanel::refresh() {
         const StepResult& s = r.steps[i];
         std::vector<QTableWidgetItem*> row(ColumnCount, nullptr);
         row[ColStep] = cell(qs(s.id), true);
-        row[ColStep]->setForeground(stepColour(int(i)));
+        row[ColStep]->setForeground(doc_->stepColour(int(i)));
         if (!s.computed) {
             row[ColUtility] = cell(tr("not computed"), true);
             row[ColUtility]->setForeground(ink::error());
@@ -87,7 +87,7 @@ void SecondLawPanel::refresh() {
                 row[ColApproach] = cell(formatDisplay(su.minApproach, Dimension::TemperatureDifference, u, ctx, 4));
                 if (approachBelowMinimum(su, minAp)) {
                     row[ColApproach]->setForeground(ink::error());
-                    row[ColApproach]->setToolTip(tr("closer than the worksheet's minimum approach of %1")
+                    row[ColApproach]->setToolTip(tr("below the required minimum approach of %1")
                                                      .arg(formatWithUnit(minAp, Dimension::TemperatureDifference, u, ctx, 3)));
                 }
                 row[ColWhere] = cell(approachWhereText(s), true);
@@ -96,9 +96,13 @@ void SecondLawPanel::refresh() {
             }
             if (r.exergyAvailable) {
                 row[ColSupplied] = cell(formatDisplay(s.exergySupplied, eD, u, ctx));
-                row[ColDestroyed] = cell(formatDisplay(s.exergyDestroyed, eD, u, ctx));
-                row[ColShare] = cell(QStringLiteral("%1 %").arg(formatNumber(100 * s.exergyDestroyedShare, 3, 1)));
-                row[ColEta] = cell(efficiencyText(s.secondLawEfficiency));
+                if (noSourceGiven(s)) {
+                    row[ColDestroyed] = cell(noSourceText(), true);
+                } else {
+                    row[ColDestroyed] = cell(formatDisplay(s.exergyDestroyed, eD, u, ctx));
+                    row[ColShare] = cell(QStringLiteral("%1 %").arg(formatNumber(100 * s.exergyDestroyedShare, 3, 1)));
+                    row[ColEta] = cell(efficiencyText(s.secondLawEfficiency));
+                }
             }
         }
         rows.push_back(row);

@@ -7,6 +7,7 @@
 #include <QVBoxLayout>
 
 #include "heatchain/substance.hpp"
+#include "heatchain_view/format.hpp"
 #include "project_edit.hpp"
 
 namespace heatchain::gui {
@@ -59,11 +60,7 @@ ProjectSettingsDialog::ProjectSettingsDialog(const Project& project, QWidget* pa
     model_ = new QComboBox(material);
     for (ModelKind m : {ModelKind::ConstantCp, ModelKind::TemperatureDependentCp, ModelKind::RealFluid,
                         ModelKind::Reference})
-        model_->addItem(m == ModelKind::ConstantCp ? tr("constant cp")
-                        : m == ModelKind::TemperatureDependentCp ? tr("cp(T) polynomial")
-                        : m == ModelKind::RealFluid ? tr("real fluid (Peng–Robinson)")
-                                                    : tr("reference (best available)"),
-                        int(m));
+        model_->addItem(view::modelTitle(m), int(m));
     model_->setCurrentIndex(model_->findData(int(project.model)));
     system_ = new QComboBox(material);
     system_->addItem(tr("steady flow"), int(SystemKind::SteadyFlow));
@@ -110,13 +107,13 @@ ProjectSettingsDialog::ProjectSettingsDialog(const Project& project, QWidget* pa
     startT_ = quantity(material, project.start.T, Dimension::Temperature, true);
     startP_ = quantity(material, project.start.P, Dimension::Pressure, true);
     startX_ = number(material, project.start.quality, "the quality");
-    startMelt_ = number(material, project.start.meltFraction, "the melt fraction");
+    startMelt_ = number(material, project.start.meltFraction, "the liquid fraction");
     startX_->setPlaceholder(tr("only on the saturation line"));
     startMelt_->setPlaceholder(tr("only on the melting line"));
     mf->addRow(tr("Start T"), startT_);
     mf->addRow(tr("Start P"), startP_);
     mf->addRow(tr("Start quality x"), startX_);
-    mf->addRow(tr("Start melt fraction"), startMelt_);
+    mf->addRow(tr("Start liquid fraction"), startMelt_);
     surrT_ = quantity(material, std::optional<Quantity>(project.surroundingsT), Dimension::Temperature, false);
     surrP_ = quantity(material, std::optional<Quantity>(project.surroundingsP), Dimension::Pressure, false);
     atm_ = quantity(material, std::optional<Quantity>(project.atmosphere), Dimension::Pressure, false);

@@ -6,9 +6,9 @@
 #include <QVBoxLayout>
 
 #include "commands.hpp"
-#include "heatchain_qt/format.hpp"
-#include "heatchain_qt/step_icons.hpp"
-#include "heatchain_qt/utility_text.hpp"
+#include "heatchain_view/format.hpp"
+#include "heatchain_view/step_icons.hpp"
+#include "heatchain_view/utility_text.hpp"
 #include "project_edit.hpp"
 
 namespace heatchain::gui {
@@ -95,15 +95,26 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
     formLayout_->addRow(tr("Name"), id_);
     formLayout_->addRow(tr("Kind"), kind_);
     formLayout_->addRow(tr("Target"), targetRow);
-    formLayout_->addRow(tr("Heated at"), at_);
+    formLayout_->addRow(tr("Held at"), at_);
     formLayout_->addRow(tr("Fraction"), fraction_);
     formLayout_->addRow(tr("Path"), path_);
     formLayout_->addRow(tr("Exponent n"), n_);
     formLayout_->addRow(tr("Efficiency"), efficiency_);
     formLayout_->addRow(tr("Source"), sourceRow);
     formLayout_->addRow(tr("Sink"), sinkRow);
-    formLayout_->addRow(tr("Note"), note_);
+    formLayout_->addRow(tr("Comment"), note_);
     outer->addWidget(form_);
+    // An invalid entry left by clicking elsewhere stays marked in its field
+    // and is announced: nothing is dropped silently.
+    const std::pair<QuantityField*, QString> named[] = {
+        {id_, tr("Name")},        {target_, tr("Target")}, {fraction_, tr("Fraction")},
+        {n_, tr("Exponent n")},   {efficiency_, tr("Isentropic efficiency")},
+        {source_, tr("Source")},  {sink_, tr("Sink")},     {note_, tr("Comment")}};
+    for (const auto& [f, label] : named) {
+        connect(f, &QuantityField::rejected, this, [this, label](const QString& text, const QString& reason) {
+            emit rejected(tr("%1 “%2” not applied: %3").arg(label, text, reason));
+        });
+    }
 
     resultBox_ = new QGroupBox(tr("Result"), this);
     auto* rl = new QVBoxLayout(resultBox_);
@@ -132,16 +143,17 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
     };
     source_->setCheck(tempCheck);
     sink_->setCheck(tempCheck);
-    auto numberCheck = [](double lo, double hi, const char* what) {
-        return [lo, hi, what](const QString& t) -> QString {
+    auto numberCheck = [](double lo, double hi, const char* what, bool above = false) {
+        return [lo, hi, what, above](const QString& t) -> QString {
             if (t.isEmpty()) return {};
-            auto n = parseTypedNumber(t.toStdString(), lo, hi, what);
+            auto n = parseTypedNumber(t.toStdString(), lo, hi, what, above);
             return n ? QString() : qs(n.error().message);
         };
     };
-    fraction_->setCheck(numberCheck(0, 1, "the fraction"));
+    // The bounds the file's reader has: a fraction and an efficiency above 0.
+    fraction_->setCheck(numberCheck(0, 1, "the fraction", true));
     n_->setCheck(numberCheck(1e-6, 100, "the polytropic exponent n"));
-    efficiency_->setCheck(numberCheck(1e-6, 1, "the isentropic efficiency"));
+    efficiency_->setCheck(numberCheck(0, 1, "the isentropic efficiency", true));
 
     // --- commits: one undoable command each -----------------------------
     connect(id_, &QuantityField::committed, this, [this](const QString& t) {
@@ -186,22 +198,24 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
             else if (!s.efficiency) s.efficiency = Number{Json(0.75), 0.75};
         });
     });
+    // The field's check has passed; the bounds here only let a fraction be
+    // read from a percentage the way the check read it.
     auto numberCommit = [this](QuantityField* f, std::optional<Number> Step::*member,
-                               const QString& name) {
-        connect(f, &QuantityField::committed, this, [this, member, name](const QString& t) {
+                               const QString& name, double lo, double hi) {
+        connect(f, &QuantityField::committed, this, [this, member, name, lo, hi](const QString& t) {
             apply(name, [&](Step& s) {
                 if (t.isEmpty()) {
                     (s.*member).reset();
                     return;
                 }
-                auto n = parseTypedNumber(t.toStdString(), -1e300, 1e300, "value");
+                auto n = parseTypedNumber(t.toStdString(), lo, hi, "value");
                 if (n) s.*member = *n;
             });
         });
     };
-    numberCommit(fraction_, &Step::fraction, tr("fraction"));
-    numberCommit(n_, &Step::n, tr("exponent n"));
-    numberCommit(efficiency_, &Step::efficiency, tr("efficiency"));
+    numberCommit(fraction_, &Step::fraction, tr("fraction"), 0, 1);
+    numberCommit(n_, &Step::n, tr("exponent n"), 1e-6, 100);
+    numberCommit(efficiency_, &Step::efficiency, tr("efficiency"), 0, 1);
     auto reservoirCommit = [this](QuantityField* f, std::optional<Reservoir> Step::*member,
                                   const QString& name) {
         connect(f, &QuantityField::committed, this, [this, member, name](const QString& t) {
@@ -249,7 +263,7 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
     utilityCommit(sourceUtility_, source_, &Step::source, tr("source utility"));
     utilityCommit(sinkUtility_, sink_, &Step::sink, tr("sink utility"));
     connect(note_, &QuantityField::committed, this, [this](const QString& t) {
-        apply(tr("note"), [&](Step& s) {
+        apply(tr("comment"), [&](Step& s) {
             if (t.isEmpty()) s.note.reset();
             else s.note = t.toStdString();
         });
@@ -304,7 +318,7 @@ QString StepEditor::checkTarget(const QString& text, Target t) const {
         return n ? QString() : qs(n.error().message);
     }
     case Target::Ratio: {
-        auto n = parseTypedNumber(s, 1, 1e6, "the pressure ratio");
+        auto n = parseTypedNumber(s, 1, 1e6, "the pressure ratio", true);
         return n ? QString() : qs(n.error().message);
     }
     case Target::None:
@@ -324,7 +338,7 @@ void StepEditor::applyTarget(const QString& text) {
     case Target::Pressure: if (auto q = parseTypedQuantity(s, Dimension::Pressure, p)) to.P = *q; else return; break;
     case Target::Duty: if (auto q = parseTypedQuantity(s, dutyDimension(p), p)) to.duty = *q; else return; break;
     case Target::Quality: if (auto n = parseTypedNumber(s, 0, 1, "quality")) to.quality = *n; else return; break;
-    case Target::Ratio: if (auto n = parseTypedNumber(s, 1, 1e6, "ratio")) to.ratio = *n; else return; break;
+    case Target::Ratio: if (auto n = parseTypedNumber(s, 1, 1e6, "ratio", true)) to.ratio = *n; else return; break;
     case Target::None: return;
     }
     apply(tr("target"), [&](Step& st) {
@@ -348,13 +362,13 @@ void StepEditor::fillTargetChoices(StepKind k, Target current) {
     case StepKind::Heat:
     case StepKind::Cool:
         targetKind_->addItem(tr("to temperature"), int(Target::Temperature));
-        targetKind_->addItem(tr("by duty"), int(Target::Duty));
+        targetKind_->addItem(tr("duty"), int(Target::Duty));
         targetKind_->addItem(tr("to quality x"), int(Target::Quality));
         break;
     case StepKind::Compress:
     case StepKind::Expand:
         targetKind_->addItem(tr("to pressure"), int(Target::Pressure));
-        targetKind_->addItem(tr("by pressure ratio"), int(Target::Ratio));
+        targetKind_->addItem(tr("pressure ratio"), int(Target::Ratio));
         break;
     case StepKind::Throttle:
         targetKind_->addItem(tr("to pressure"), int(Target::Pressure));
@@ -412,6 +426,7 @@ void StepEditor::refresh() {
                 key += QString::number(int(sr.computed)) + phaseText(sr.start) + phaseText(sr.end);
                 if (sr.error) key += QString::fromStdString(sr.error->message);
                 for (const std::string& w : sr.warnings) key += QString::fromStdString(w);
+                for (const std::string& n : notesOf(sr)) key += QString::fromStdString(n);
             }
         }
         if (key == shownKey_) return;
@@ -465,7 +480,7 @@ void StepEditor::refresh() {
     // ---- result at a glance -------------------------------------------
     const SequenceResult& r = doc_->result();
     const UnitSystem u = doc_->project().displayUnits;
-    const UnitContext ctx = doc_->project().unitContext();
+    const UnitContext ctx = displayContext(doc_->project());
     QVector<ResultTable::Row> rows;
     QString msgs;
     if (index < int(r.steps.size())) {
@@ -494,10 +509,14 @@ void StepEditor::refresh() {
             rows.push_back({tr("ΔU"), formatWithUnit(sr.dU, eD, u, ctx)});
             rows.push_back({tr("ΔS"), formatWithUnit(sr.dS, sD, u, ctx)});
             rows.push_back({tr("S_gen"), formatWithUnit(sr.Sgen, sD, u, ctx)});
-            rows.push_back({tr("Exergy destroyed"), formatWithUnit(sr.exergyDestroyed, eD, u, ctx)});
-            if (r.exergyAvailable) {
+            if (noSourceGiven(sr)) {
+                rows.push_back({tr("Exergy destroyed"), noSourceText()});
+            } else {
+                rows.push_back({tr("Exergy destroyed"), formatWithUnit(sr.exergyDestroyed, eD, u, ctx)});
+            }
+            if (r.exergyAvailable && !noSourceGiven(sr)) {
                 rows.push_back({tr("Exergy supplied"), formatWithUnit(sr.exergySupplied, eD, u, ctx)});
-                rows.push_back({tr("η II"), efficiencyText(sr.secondLawEfficiency)});
+                rows.push_back({tr("η_II"), efficiencyText(sr.secondLawEfficiency)});
             }
             if (sr.utility) {
                 const StepUtility& su = *sr.utility;
@@ -506,9 +525,9 @@ void StepEditor::refresh() {
                 rows.push_back({su.asSource ? tr("Source") : tr("Sink"), qs(su.id), utilityKindText(su.kind)});
                 rows.push_back({tr("Uses"), utilityUseText(su.kind, su.mass, su.volume, r.system, u, ctx),
                                 su.volume ? utilityMassText(su.kind, su.mass, r.system, u, ctx) : QString()});
-                rows.push_back({tr("Approach min"),
+                rows.push_back({tr("Closest approach"),
                                 formatWithUnit(su.minApproach, Dimension::TemperatureDifference, u, ctx) +
-                                    (tight ? tr(" (below minimum)") : QString()),
+                                    (tight ? tr(" (below the required minimum)") : QString()),
                                 approachWhereText(sr)});
             }
         } else {
@@ -520,6 +539,8 @@ void StepEditor::refresh() {
         for (const std::string& w : sr.warnings)
             msgs += QStringLiteral("<p style='color:#8a5a00'><b>Warning:</b> %1</p>")
                         .arg(qs(w).toHtmlEscaped());
+        for (const std::string& n : notesOf(sr))
+            msgs += QStringLiteral("<p style='color:#6b727a'>Note: %1</p>").arg(qs(n).toHtmlEscaped());
     }
     resultText_->setRows(std::move(rows));
     if (messages_->text() != msgs) messages_->setText(msgs);

@@ -37,6 +37,10 @@ public:
 public slots:
     void refresh();
 
+signals:
+    // An entry that failed its check and was not applied, for the status bar.
+    void rejected(const QString& what);
+
 private:
     enum class Target { None, Temperature, Duty, Quality, Pressure, Ratio };
     QString checkTarget(const QString& text, Target t) const;

@@ -9,8 +9,8 @@
 #include <QVBoxLayout>
 #include <cmath>
 
-#include "heatchain_qt/format.hpp"
-#include "heatchain_qt/palette.hpp"
+#include "heatchain_view/format.hpp"
+#include "heatchain_view/palette.hpp"
 #include "project_edit.hpp"
 
 namespace heatchain::gui {
@@ -208,7 +208,7 @@ void SweepDialog::prefillRange() {
         to_->showValue(num(in == "n" ? v + 0.2 : v * 1.5));
     } else if (q) {
         const UnitSystem us = project_.displayUnits;
-        const UnitContext ctx = project_.unitContext();
+        const UnitContext ctx = displayContext(project_);
         const std::string unit(displayUnit(d, us));
         const double v = toDisplay(q->si, d, us, ctx);
         double lo = v, hi = v;
@@ -264,7 +264,7 @@ QString SweepDialog::run() {
 void SweepDialog::showResult() {
     const SweepResult& r = *result_;
     const UnitSystem us = project_.displayUnits;
-    const UnitContext ctx = project_.unitContext();
+    const UnitContext ctx = displayContext(project_);
     std::vector<int> all;
     for (std::size_t i = 0; i < r.outputs.size(); ++i) all.push_back(int(i));
     plot_->plot().setData(r, all, us, ctx);

@@ -14,7 +14,7 @@
 
 #include "heatchain/project.hpp"
 #include "heatchain/sweep.hpp"
-#include "heatchain_qt/sweep_plot.hpp"
+#include "heatchain_view/sweep_plot.hpp"
 #include "quantity_field.hpp"
 
 namespace heatchain::gui {

@@ -9,9 +9,9 @@
 #include <QVBoxLayout>
 
 #include "heatchain/solver.hpp"
-#include "heatchain_qt/format.hpp"
-#include "heatchain_qt/palette.hpp"
-#include "heatchain_qt/utility_text.hpp"
+#include "heatchain_view/format.hpp"
+#include "heatchain_view/palette.hpp"
+#include "heatchain_view/utility_text.hpp"
 #include "project_edit.hpp"
 
 namespace heatchain::gui {
@@ -47,7 +47,7 @@ UtilitiesDialog::UtilitiesDialog(const Project& project, QWidget* parent)
     outer->addWidget(intro);
 
     table_ = new QTableWidget(0, ColumnCount, this);
-    table_->setHorizontalHeaderLabels({tr("Id"), tr("Kind"), tr("Name"), tr("Steam P"), tr("In T"),
+    table_->setHorizontalHeaderLabels({tr("Name"), tr("Kind"), tr("Description"), tr("Steam P"), tr("In T"),
                                        tr("Out T"), tr("cp"), tr("Density"), tr("Fixed T"), tr("Gives")});
     table_->verticalHeader()->hide();
     table_->horizontalHeader()->setSectionResizeMode(QHeaderView::Interactive);
@@ -95,9 +95,9 @@ UtilitiesDialog::UtilitiesDialog(const Project& project, QWidget* parent)
         if (t.isEmpty()) return {};
         auto q = parseTypedQuantity(t.toStdString(), Dimension::TemperatureDifference, base_);
         if (!q) return qs(q.error().message);
-        return q->si > 0 ? QString() : tr("the minimum approach must be above zero");
+        return q->si > 0 ? QString() : tr("the required minimum approach must be above zero");
     });
-    form->addRow(tr("Minimum approach ΔT"), minApproach_);
+    form->addRow(tr("Required minimum approach ΔT_min"), minApproach_);
     outer->addLayout(form);
 
     problem_ = new QLabel(this);
@@ -243,7 +243,7 @@ void UtilitiesDialog::removeRow(int row) {
 
 QString UtilitiesDialog::tryBuild() {
     minApproach_->commit();
-    if (minApproach_->hasError()) return tr("Minimum approach: %1").arg(minApproach_->errorText());
+    if (minApproach_->hasError()) return tr("Required minimum approach: %1").arg(minApproach_->errorText());
     Project p = base_;
     p.utilities.clear();
     p.hasUtilities = true;

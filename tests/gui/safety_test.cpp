@@ -13,8 +13,8 @@
 #include "compare_dialog.hpp"
 #include "heatchain/project_file.hpp"
 #include "heatchain/solver.hpp"
-#include "heatchain_qt/format.hpp"
-#include "heatchain_qt/process_chart.hpp"
+#include "heatchain_view/format.hpp"
+#include "heatchain_view/process_chart.hpp"
 #include <cmath>
 #include "main_window.hpp"
 

@@ -9,7 +9,7 @@
 #include "heatchain/project_file.hpp"
 #include "heatchain/solver.hpp"
 #include "heatchain/units.hpp"
-#include "heatchain_qt/format.hpp"
+#include "heatchain_view/format.hpp"
 #include "ledger_model.hpp"
 #include "main_window.hpp"
 

@@ -12,7 +12,7 @@
 #include "heatchain/project_file.hpp"
 #include "heatchain/report.hpp"
 #include "heatchain/results_json.hpp"
-#include "heatchain_qt/process_chart.hpp"
+#include "heatchain_view/process_chart.hpp"
 #include "report_layout.hpp"
 
 namespace heatchain {

@@ -5,7 +5,7 @@
 #include <algorithm>
 #include <cmath>
 
-#include "heatchain_qt/palette.hpp"
+#include "heatchain_view/palette.hpp"
 
 namespace heatchain::report_detail {
 
@@ -232,32 +232,49 @@ void Layout::table(const std::vector<TableColumn>& cols, const std::vector<Table
     const bool markers = std::any_of(rows.begin(), rows.end(), [](const TableRow& r) { return r.marker.isValid(); });
     const double markerW = markers ? mm(3) : 0;
 
-    // Numbers never wrap: a right-aligned column gets at least the width of
-    // its widest cell, taken from the wrapping (left-aligned) columns.
+    // No word is broken: every column gets at least the width of its widest
+    // unbreakable piece (a whole number in a right-aligned column; a word, or
+    // the part of a hyphenated word up to its hyphen, elsewhere), taken from
+    // the columns that have room to spare.
+    auto pieces = [](const QString& text, bool whole) {
+        if (whole) return QStringList{text};
+        QStringList out;
+        for (const QString& word : text.split(QLatin1Char(' '), Qt::SkipEmptyParts)) {
+            qsizetype from = 0;
+            for (qsizetype i = 0; i < word.size(); ++i)
+                if (word[i] == QLatin1Char('-') || word[i] == QLatin1Char('/')) {
+                    out << word.mid(from, i - from + 1);
+                    from = i + 1;
+                }
+            if (from < word.size()) out << word.mid(from);
+        }
+        return out;
+    };
     {
         const QFontMetricsF fm(f, &writer_), bfm(bf, &writer_), hfm(hf, &writer_);
-        double extra = 0, shrinkable = 0;
+        std::vector<double> minW(cols.size(), 0.0);
         for (std::size_t c = 0; c < cols.size(); ++c) {
-            if (!(cols[c].align & Qt::AlignRight)) {
-                shrinkable += ws[c];
-                continue;
-            }
+            const bool number = (cols[c].align & Qt::AlignRight) != 0;
             double needW = 0;
             for (const TableRow& r : rows)
                 if (c < std::size_t(r.cells.size()))
-                    needW = std::max(needW, (r.style == TableRow::Style::Total ? bfm : fm).horizontalAdvance(r.cells[int(c)]));
-            for (const QString& word : cols[c].title.split(QLatin1Char(' ')))
-                needW = std::max(needW, hfm.horizontalAdvance(word));
-            needW += 2 * pad + (c == 0 ? markerW : 0) + mm(0.3);
-            if (needW > ws[c]) {
-                extra += needW - ws[c];
-                ws[c] = needW;
-            }
+                    for (const QString& piece : pieces(r.cells[int(c)], number))
+                        needW = std::max(needW, (r.style == TableRow::Style::Total ? bfm : fm).horizontalAdvance(piece));
+            for (const QString& piece : pieces(cols[c].title, false))
+                needW = std::max(needW, hfm.horizontalAdvance(piece));
+            minW[c] = needW + 2 * pad + (c == 0 ? markerW : 0) + mm(0.3);
         }
-        if (extra > 0 && shrinkable > extra) {
-            const double k = (shrinkable - extra) / shrinkable;
-            for (std::size_t c = 0; c < cols.size(); ++c)
-                if (!(cols[c].align & Qt::AlignRight)) ws[c] *= k;
+        double extra = 0, spare = 0;
+        for (std::size_t c = 0; c < cols.size(); ++c) {
+            if (minW[c] > ws[c]) extra += minW[c] - ws[c];
+            else spare += ws[c] - minW[c];
+        }
+        if (extra > 0 && spare > 0) {
+            const double k = std::min(1.0, extra / spare);
+            for (std::size_t c = 0; c < cols.size(); ++c) {
+                if (minW[c] > ws[c]) ws[c] = minW[c];
+                else ws[c] -= (ws[c] - minW[c]) * k;
+            }
         }
         double xx = body_.left();
         for (std::size_t c = 0; c < cols.size(); ++c) {
@@ -280,8 +297,9 @@ void Layout::table(const std::vector<TableColumn>& cols, const std::vector<Table
     auto cellFlags = [&](const QString& text, const QFont& cf, double w, Qt::Alignment al) {
         const QFontMetricsF fm(cf, &writer_);
         int fl = int(al & Qt::AlignHorizontal_Mask) | Qt::AlignTop | Qt::TextWordWrap;
-        for (const QString& word : text.split(QLatin1Char(' ')))
-            if (fm.horizontalAdvance(word) > w) fl = int(al & Qt::AlignHorizontal_Mask) | Qt::AlignTop | Qt::TextWrapAnywhere;
+        // Only a piece wider than the whole page's share may still be cut.
+        for (const QString& piece : pieces(text, false))
+            if (fm.horizontalAdvance(piece) > w + 0.5) fl = int(al & Qt::AlignHorizontal_Mask) | Qt::AlignTop | Qt::TextWrapAnywhere;
         return fl;
     };
     auto rowFont = [&](const TableRow& r) -> const QFont& {

@@ -18,8 +18,8 @@
 
 #include "heatchain/project.hpp"
 #include "heatchain/solver.hpp"
-#include "heatchain_qt/exergy_chart.hpp"
-#include "heatchain_qt/process_chart.hpp"
+#include "heatchain_view/exergy_chart.hpp"
+#include "heatchain_view/process_chart.hpp"
 
 namespace heatchain::report_detail {
 

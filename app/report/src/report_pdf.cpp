@@ -17,11 +17,11 @@
 #include "gui_app.hpp"
 #include "heatchain/project_file.hpp"
 #include "heatchain/report.hpp"
-#include "heatchain_qt/format.hpp"
-#include "heatchain_qt/palette.hpp"
-#include "heatchain_qt/process_chart.hpp"
-#include "heatchain_qt/exergy_chart.hpp"
-#include "heatchain_qt/utility_text.hpp"
+#include "heatchain_view/format.hpp"
+#include "heatchain_view/palette.hpp"
+#include "heatchain_view/process_chart.hpp"
+#include "heatchain_view/exergy_chart.hpp"
+#include "heatchain_view/utility_text.hpp"
 #include "report_layout.hpp"
 
 namespace heatchain {
@@ -90,7 +90,7 @@ constexpr double kPressureAboveGauge_Pa = 0.5e5;
 
 QStringList cautionLines(const Project& project, const SequenceResult& r) {
     const UnitSystem us = project.displayUnits;
-    const UnitContext ctx = project.unitContext();
+    const UnitContext ctx = view::displayContext(project);
     auto T = [&](double v) { return view::formatWithUnit(v, Dimension::Temperature, us, ctx); };
     QStringList lines;
     lines << QStringLiteral(
@@ -188,7 +188,7 @@ void writeContent(Layout& L, const Content& c) {
     const Project& p = c.project;
     const SequenceResult& r = c.result;
     const UnitSystem us = p.displayUnits;
-    const UnitContext ctx = p.unitContext();
+    const UnitContext ctx = view::displayContext(p);
     const Dimension E = view::energyDimension(r.system), S = view::entropyDimension(r.system);
     // Round-off noise (a throttle's ΔH of 1e-13 kW) prints as zero: below a
     // billionth of the largest energy or entropy figure of the sequence.
@@ -214,7 +214,7 @@ void writeContent(Layout& L, const Content& c) {
     {
         const QFont label = L.font(7.5, true);
         L.paragraph(QStringLiteral("HEATCHAIN  ·  PROCESS STEP REPORT"), label, rink::accent(), 0, L.mm(1));
-        L.paragraph(p.meta.title.empty() ? QStringLiteral("(untitled project)") : qs(p.meta.title), L.font(17, true),
+        L.paragraph(p.meta.title.empty() ? QStringLiteral("(untitled worksheet)") : qs(p.meta.title), L.font(17, true),
                     view::ink::text(), 0, L.mm(3));
         const QFont mono = L.mono(7.5);
         std::vector<std::pair<QString, QString>> rows = {
@@ -222,7 +222,7 @@ void writeContent(Layout& L, const Content& c) {
             {QStringLiteral("Revision"), qs(p.meta.revision)},
             {QStringLiteral("Created"), qs(p.meta.created)},
             {QStringLiteral("Modified"), qs(p.meta.modified)},
-            {QStringLiteral("Project file"), c.fileName},
+            {QStringLiteral("Worksheet file"), c.fileName},
             {QStringLiteral("SHA-256"), c.checksum},
         };
         if (!c.checksumNote.isEmpty()) rows.emplace_back(QString(), c.checksumNote);
@@ -263,17 +263,17 @@ void writeContent(Layout& L, const Content& c) {
         std::vector<std::pair<QString, QString>> rows;
         QString name = qs(sub.name);
         if (!sub.formula.empty()) name += QStringLiteral(" (%1)").arg(qs(sub.formula));
-        rows.emplace_back(QStringLiteral("Substance"), name + (sub.custom ? QStringLiteral(", defined in the project file") : QString()));
+        rows.emplace_back(QStringLiteral("Substance"), name + (sub.custom ? QStringLiteral(", defined in the worksheet file") : QString()));
         if (!sub.casNumber.empty()) rows.emplace_back(QStringLiteral("CAS number"), qs(sub.casNumber));
         rows.emplace_back(QStringLiteral("Molar mass"),
                           QStringLiteral("%1 g/mol").arg(view::formatNumber(sub.molarMass * 1000, 6)));
         if (r.model) {
-            rows.emplace_back(QStringLiteral("Model"),
-                              QStringLiteral("%1 (%2)").arg(qs(r.model->name()), qs(modelId(p.model))));
+            rows.emplace_back(QStringLiteral("Property model"),
+                              QStringLiteral("%1 — %2").arg(view::modelTitle(p.model), qs(r.model->name())));
             rows.emplace_back(QStringLiteral("Valid range"), qs(r.model->rangeText()));
             rows.emplace_back(QStringLiteral("Model equations from"), qs(r.model->sourceText()));
         } else {
-            rows.emplace_back(QStringLiteral("Model"), QStringLiteral("%1 — could not be built").arg(qs(modelId(p.model))));
+            rows.emplace_back(QStringLiteral("Property model"), QStringLiteral("%1 — could not be built").arg(view::modelTitle(p.model)));
         }
         L.keyValues(rows, L.mm(45), body);
         if (!sub.sources.empty()) {
@@ -344,7 +344,7 @@ void writeContent(Layout& L, const Content& c) {
             {QStringLiteral("Step"), {}, 2.6},
             {QStringLiteral("Kind"), {}, 1.95},
             {QStringLiteral("T end"), unitSymbol(Dimension::Temperature, us), 1.15, Qt::AlignRight},
-            {QStringLiteral("P end"), unitSymbol(Dimension::Pressure, us), 1.15, Qt::AlignRight},
+            {QStringLiteral("P end"), unitSymbol(Dimension::Pressure, us, ctx), 1.15, Qt::AlignRight},
             {QStringLiteral("Phase at end"), {}, 1.8},
             {QStringLiteral("Q"), eu, 1.4, Qt::AlignRight},
             {QStringLiteral("W"), eu, 1.1, Qt::AlignRight},
@@ -362,7 +362,7 @@ void writeContent(Layout& L, const Content& c) {
                 row.cells = {QString::number(i + 1), qs(s.id), view::stepKindTitle(s.kind),
                              fmt(s.end.T, Dimension::Temperature), fmt(s.end.P, Dimension::Pressure),
                              view::phaseShort(s.end), fmt(s.Q, E), fmt(s.W, E), fmt(s.dH, E), fmt(s.dS, S),
-                             fmt(s.Sgen, S), fmt(s.exergyDestroyed, E)};
+                             fmt(s.Sgen, S), view::noSourceGiven(s) ? view::noSourceText() : fmt(s.exergyDestroyed, E)};
                 if (!s.warnings.empty()) row.cells[1] += QStringLiteral(" ⚠");
             } else {
                 const QString dash = QStringLiteral("–");
@@ -410,7 +410,7 @@ void writeContent(Layout& L, const Content& c) {
             paintChartFigure(painter, rect, tq, r, logicalW, true);
         });
         if (auto a = tq.smallestApproach(); a && a->step >= 0 && std::size_t(a->step) < r.steps.size())
-            L.paragraph(QStringLiteral("Smallest approach between material and source or sink: %1 %2 at step %3 (%4).")
+            L.paragraph(QStringLiteral("Closest approach between the material and a source or sink: %1 %2 at step %3 (%4).")
                             .arg(view::formatNumber(a->dT, 4, 1), unitSymbol(Dimension::TemperatureDifference, us))
                             .arg(a->step + 1)
                             .arg(qs(r.steps[std::size_t(a->step)].id)),
@@ -423,7 +423,7 @@ void writeContent(Layout& L, const Content& c) {
     int section = 6;
     if (anyUtility) {
         L.heading(QString::number(section), QStringLiteral("Utilities and approach temperatures"), L.mm(30));
-        L.paragraph(QStringLiteral("Minimum approach asked for: %1. Steam condenses (or is raised) at its saturation "
+        L.paragraph(QStringLiteral("Required minimum approach: %1. Steam condenses (or is raised) at its saturation "
                                    "temperature; a sensible stream runs counter-current between its in and out "
                                    "temperatures.")
                         .arg(withUnit(p.minApproachK(), Dimension::TemperatureDifference)),
@@ -459,7 +459,7 @@ void writeContent(Layout& L, const Content& c) {
             {QStringLiteral("Utility"), {}, 1.6},
             {QStringLiteral("Duty"), eu, 1.1, Qt::AlignRight},
             {QStringLiteral("Uses"), {}, 1.3, Qt::AlignRight},
-            {QStringLiteral("Approach min"), dTu, 1.1, Qt::AlignRight},
+            {QStringLiteral("Closest approach"), dTu, 1.1, Qt::AlignRight},
             {QStringLiteral("Where"), {}, 2.6},
         };
         std::vector<TableRow> arows;
@@ -484,7 +484,7 @@ void writeContent(Layout& L, const Content& c) {
             L.table(acol, arows, 7.5, QStringLiteral("Steps served by a utility, continued"));
         }
         if (!tight.isEmpty())
-            L.paragraph(QStringLiteral("⚠ closer than the minimum approach: %1.").arg(tight.join(QStringLiteral(", "))),
+            L.paragraph(QStringLiteral("⚠ closest approach below the required minimum approach: %1.").arg(tight.join(QStringLiteral(", "))),
                         L.font(8, true), view::ink::error());
         ++section;
     }
@@ -519,6 +519,9 @@ void writeContent(Layout& L, const Content& c) {
             if (!s.computed) {
                 const QString dash = QStringLiteral("–");
                 row.cells = {QString::number(i + 1), qs(s.id), dash, dash, dash, dash, dash};
+            } else if (view::noSourceGiven(s)) {
+                const QString dash = QStringLiteral("–");
+                row.cells = {QString::number(i + 1), qs(s.id), fmt(s.dEx, E), dash, view::noSourceText(), dash, dash};
             } else {
                 row.cells = {QString::number(i + 1), qs(s.id), fmt(s.dEx, E), fmt(s.exergySupplied, E),
                              fmt(s.exergyDestroyed, E), pct(s.exergyDestroyedShare), pct(s.secondLawEfficiency)};
@@ -559,7 +562,7 @@ void writeContent(Layout& L, const Content& c) {
             std::vector<TableColumn> scol = {
                 {QStringLiteral("State"), {}, 1.1},
                 {QStringLiteral("T"), unitSymbol(Dimension::Temperature, us), 1, Qt::AlignRight},
-                {QStringLiteral("P"), unitSymbol(Dimension::Pressure, us), 1, Qt::AlignRight},
+                {QStringLiteral("P"), unitSymbol(Dimension::Pressure, us, ctx), 1, Qt::AlignRight},
                 {QStringLiteral("Phase"), {}, 1.8},
                 {QStringLiteral("h"), unitSymbol(Dimension::SpecificEnergy, us), 1, Qt::AlignRight},
                 {QStringLiteral("s"), unitSymbol(Dimension::SpecificEntropy, us), 1, Qt::AlignRight},
@@ -586,7 +589,7 @@ void writeContent(Layout& L, const Content& c) {
                     7.5);
             if (s.utility) {
                 const StepUtility& su = *s.utility;
-                L.paragraph(QStringLiteral("%1 %2: uses %3; smallest approach %4 at the %5.")
+                L.paragraph(QStringLiteral("%1 %2: uses %3; closest approach %4 at the %5.")
                                 .arg(su.asSource ? QStringLiteral("Source") : QStringLiteral("Sink"), qs(su.id),
                                      view::utilityUseText(su.kind, su.mass, su.volume, r.system, us, ctx),
                                      withUnit(su.minApproach, Dimension::TemperatureDifference),
@@ -598,7 +601,7 @@ void writeContent(Layout& L, const Content& c) {
                     {QStringLiteral("Segment"), {}, 2.2},
                     {QStringLiteral("T start"), unitSymbol(Dimension::Temperature, us), 1, Qt::AlignRight},
                     {QStringLiteral("T end"), unitSymbol(Dimension::Temperature, us), 1, Qt::AlignRight},
-                    {QStringLiteral("P end"), unitSymbol(Dimension::Pressure, us), 1, Qt::AlignRight},
+                    {QStringLiteral("P end"), unitSymbol(Dimension::Pressure, us, ctx), 1, Qt::AlignRight},
                     {QStringLiteral("Phase at end"), {}, 1.8},
                     {QStringLiteral("Q"), eu, 1.1, Qt::AlignRight},
                 };
@@ -610,9 +613,12 @@ void writeContent(Layout& L, const Content& c) {
                 L.table(gcol, grows, 7.5, QStringLiteral("Segments of %1, continued").arg(qs(s.id)));
             }
         }
+        // Warnings (probably not what was meant) apart from notes (ordinary facts).
         for (const auto& w : s.warnings)
             L.paragraph(QStringLiteral("Warning: %1").arg(qs(w)), L.font(8, true), view::ink::warning().darker(130));
-        if (in.note) L.paragraph(QStringLiteral("Note: %1").arg(qs(*in.note)), L.font(8.5, false, true), view::ink::text());
+        for (const auto& n : view::notesOf(s))
+            L.paragraph(QStringLiteral("Note: %1").arg(qs(n)), L.font(8), view::ink::muted());
+        if (in.note) L.paragraph(QStringLiteral("Comment: %1").arg(qs(*in.note)), L.font(8.5, false, true), view::ink::text());
         L.space(L.mm(2));
     }
 }
@@ -638,7 +644,7 @@ Status writeReportPdf(const Project& project, const SequenceResult& result, std:
     } else {
         const std::string text = writeProject(project);
         bytes = QByteArray(text.data(), qsizetype(text.size()));
-        note = QStringLiteral("Checksum of the project as it would be saved; the file could not be read.");
+        note = QStringLiteral("Checksum of the worksheet as it would be saved; the file could not be read.");
     }
     Content content{project, result,
                     file.isEmpty() ? QStringLiteral("(not saved)") : QFileInfo(file).fileName(),

@@ -1,12 +1,12 @@
-#include "heatchain_qt/exergy_chart.hpp"
+#include "heatchain_view/exergy_chart.hpp"
 
 #include <QFontMetricsF>
 #include <algorithm>
 #include <cmath>
 
-#include "heatchain_qt/format.hpp"
-#include "heatchain_qt/palette.hpp"
-#include "heatchain_qt/process_chart.hpp"
+#include "heatchain_view/format.hpp"
+#include "heatchain_view/palette.hpp"
+#include "heatchain_view/process_chart.hpp"
 
 namespace heatchain::view {
 
@@ -27,7 +27,8 @@ void ExergyBarChart::setData(const Project& project, const SequenceResult& resul
         b.value = s.exergyDestroyed;
         b.display = toDisplay(s.exergyDestroyed, d, units_, project.unitContext());
         b.share = s.exergyDestroyedShare;
-        b.colour = stepColour(int(i));
+        b.colour = i < colours_.size() ? colours_[i] : stepColour(int(i));
+        b.noSource = noSourceGiven(s);
         bars_.push_back(b);
     }
 }
@@ -86,25 +87,34 @@ void ExergyBarChart::paint(QPainter& p, const QRectF& rect) const {
 
     double y = L.plot.top();
     const double thick = std::max(1.0, L.rowHeight * 0.68);
-    // On a long sheet the rows get thinner than a line of text: then only
-    // the bars that matter (≥ 5 % of the total) and the selected one carry words.
+    // On a long sheet the rows get thinner than a line of text: every bar
+    // keeps its step's name, in a smaller type if need be (a small bar is
+    // still a step someone looks for); only the bars that matter (≥ 5 % of
+    // the total) and the selected one carry their value.
     const bool crowded = L.rowHeight < fm.height() * 0.95;
+    const QFont normal = p.font();
+    QFont nameFont = normal;
+    if (crowded) nameFont.setPointSizeF(std::max(5.5, normal.pointSizeF() * L.rowHeight / (fm.height() * 0.95)));
+    const QFontMetricsF nfm(nameFont);
     for (const Bar& b : bars_) {
         const QRectF row(rect.left(), y, rect.width(), L.rowHeight);
         if (b.step == selected_) p.fillRect(row, QColor(255, 244, 200));
         const bool words = !crowded || b.share >= 0.05 || b.step == selected_;
         const QRectF textRow(rect.left(), y + L.rowHeight / 2 - fm.height() / 2, rect.width(), fm.height());
         p.setPen(ink::text());
-        if (words) p.drawText(QRectF(rect.left() + 2, y, L.labelWidth, L.rowHeight), Qt::AlignRight | Qt::AlignVCenter,
-                   fm.elidedText(b.id, Qt::ElideMiddle, L.labelWidth - 2));
+        p.setFont(nameFont);
+        p.drawText(QRectF(rect.left() + 2, y, L.labelWidth, L.rowHeight), Qt::AlignRight | Qt::AlignVCenter,
+                   nfm.elidedText(b.id, Qt::ElideMiddle, L.labelWidth - 2));
+        p.setFont(normal);
         const double len = std::max(0.0, b.display) / L.max * L.plot.width();
         const QRectF bar(L.plot.left(), y + (L.rowHeight - thick) / 2, len, thick);
         p.setPen(Qt::NoPen);
         p.setBrush(b.colour);
         p.drawRect(bar);
         p.setPen(ink::text());
-        const QString value = QStringLiteral("%1 %2 · %3 %")
-                                  .arg(formatNumber(b.display, 4, 2), unit_, formatNumber(100.0 * b.share, 3, 1));
+        const QString value = b.noSource ? noSourceText()
+                                         : QStringLiteral("%1 %2 · %3 %")
+                                               .arg(formatNumber(b.display, 4, 2), unit_, formatNumber(100.0 * b.share, 3, 1));
         if (words)
             p.drawText(QRectF(bar.right() + 5, textRow.top(), rect.right() - bar.right() - 5, fm.height()),
                        Qt::AlignLeft | Qt::AlignVCenter, value);

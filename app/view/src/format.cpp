@@ -1,4 +1,4 @@
-#include "heatchain_qt/format.hpp"
+#include "heatchain_view/format.hpp"
 
 #include <cmath>
 
@@ -16,8 +16,69 @@ QString prettyUnit(std::string_view coreSymbol) {
     return u;
 }
 
-QString unitSymbol(Dimension d, UnitSystem system) {
-    return prettyUnit(displayUnit(d, system));
+QString unitSymbol(Dimension d, UnitSystem system, const UnitContext& ctx) {
+    const std::string_view core = displayUnit(d, system, ctx);
+    if (d == Dimension::Pressure) {
+        // Every pressure says whether it is absolute or gauge.
+        if (core == "bar") return QStringLiteral("bar(a)");
+        if (core == "barg") return QStringLiteral("bar(g)");
+        if (core == "kPa") return QStringLiteral("kPa(a)");
+        if (core == "kPag") return QStringLiteral("kPa(g)");
+    }
+    return prettyUnit(core);
+}
+
+QString escapedText(std::string_view bytes) {
+    // Valid UTF-8 passes; a stray byte (a UTF-16 byte-order mark FF FE, a
+    // Latin-1 letter) or a control character other than line feed and tab
+    // reads as \xHH, so a message never echoes raw bytes from a file.
+    QString out;
+    out.reserve(qsizetype(bytes.size()));
+    auto hex = [&out](unsigned char c) {
+        out += QStringLiteral("\\x") + QString::number(c, 16).toUpper().rightJustified(2, QLatin1Char('0'));
+    };
+    std::size_t i = 0;
+    while (i < bytes.size()) {
+        const auto c = static_cast<unsigned char>(bytes[i]);
+        if (c < 0x80) {
+            if ((c < 0x20 && c != '\n' && c != '\t') || c == 0x7F) hex(c);
+            else out += QLatin1Char(char(c));
+            ++i;
+            continue;
+        }
+        const int len = c >= 0xF0 && c <= 0xF4 ? 4 : c >= 0xE0 ? 3 : c >= 0xC2 && c <= 0xDF ? 2 : 0;
+        bool ok = len > 0 && i + std::size_t(len) <= bytes.size() && !(c >= 0xF5);
+        for (int k = 1; ok && k < len; ++k) ok = (static_cast<unsigned char>(bytes[i + std::size_t(k)]) & 0xC0) == 0x80;
+        if (!ok) {
+            hex(c);
+            ++i;
+            continue;
+        }
+        const QString ch = QString::fromUtf8(bytes.data() + i, qsizetype(len));
+        if (ch.size() == 1 && !ch.front().isPrint() && ch.front() != QChar(0x202F)) {
+            for (int k = 0; k < len; ++k) hex(static_cast<unsigned char>(bytes[i + std::size_t(k)]));
+        } else {
+            out += ch;
+        }
+        i += std::size_t(len);
+    }
+    return out;
+}
+
+bool gaugeDisplay(const Project& project) {
+    const auto it = project.displayExtra.find("pressure");
+    return it != project.displayExtra.end() && it->is_string() && it->get<std::string>() == "gauge";
+}
+
+void setGaugeDisplay(Project& project, bool gauge) {
+    if (gauge) project.displayExtra["pressure"] = "gauge";
+    else project.displayExtra.erase("pressure");
+}
+
+UnitContext displayContext(const Project& project) {
+    UnitContext ctx = project.unitContext();
+    ctx.gaugeDisplay = gaugeDisplay(project);
+    return ctx;
 }
 
 QString formatNumber(double value, int significant, int maxDecimals) {
@@ -38,6 +99,16 @@ QString formatNumber(double value, int significant, int maxDecimals) {
     return s.replace(QLatin1Char('-'), QChar(0x2212));
 }
 
+QString formatFixed(double value, int decimals) {
+    if (!std::isfinite(value)) return QStringLiteral("–");
+    QString s = QString::number(value, 'f', std::max(0, decimals));
+    bool allZero = true;
+    for (QChar c : s)
+        if (c.isDigit() && c != QLatin1Char('0')) allZero = false;
+    if (allZero) s.remove(QLatin1Char('-'));
+    return s.replace(QLatin1Char('-'), QChar(0x2212));
+}
+
 QString formatDisplay(double si, Dimension d, UnitSystem system, const UnitContext& ctx,
                       int significant) {
     const double v = toDisplay(si, d, system, ctx);
@@ -49,7 +120,7 @@ QString formatDisplay(double si, Dimension d, UnitSystem system, const UnitConte
 
 QString formatWithUnit(double si, Dimension d, UnitSystem system, const UnitContext& ctx,
                        int significant) {
-    const QString unit = unitSymbol(d, system);
+    const QString unit = unitSymbol(d, system, ctx);
     const QString num = formatDisplay(si, d, system, ctx, significant);
     if (unit.startsWith(QChar(0x00B0))) return num + QChar(0x202F) + unit;  // narrow space
     return num + QLatin1Char(' ') + unit;
@@ -62,11 +133,33 @@ Dimension entropyDimension(SystemKind system) {
     return system == SystemKind::Closed ? Dimension::Entropy : Dimension::EntropyRate;
 }
 
+QString phaseName(Phase p) {
+    switch (p) {
+    case Phase::Solid: return QStringLiteral("solid");
+    case Phase::Liquid: return QStringLiteral("liquid");
+    case Phase::Vapor: return QStringLiteral("vapour");
+    case Phase::Supercritical: return QStringLiteral("supercritical");
+    // The same words while melting and while freezing.
+    case Phase::SolidLiquid: return QStringLiteral("solid + liquid");
+    case Phase::LiquidVapor: return QStringLiteral("liquid + vapour");
+    case Phase::SolidVapor: return QStringLiteral("solid + vapour");
+    }
+    return QStringLiteral("unknown");
+}
+
+namespace {
+// A state on the saturation line at an end of the dome reads as the trade
+// says it: "saturated vapour", not "liquid + vapour, x = 1.000".
+constexpr double kSaturatedEnd = 1e-6;
+}  // namespace
+
 QString phaseText(const State& s) {
-    const QString label = QString::fromUtf8(phaseLabel(s.phase).data(),
-                                            qsizetype(phaseLabel(s.phase).size()));
+    const QString label = phaseName(s.phase);
     switch (s.phase) {
     case Phase::LiquidVapor:
+        if (s.quality && *s.quality >= 1.0 - kSaturatedEnd) return QStringLiteral("saturated vapour");
+        if (s.quality && *s.quality <= kSaturatedEnd) return QStringLiteral("saturated liquid");
+        [[fallthrough]];
     case Phase::SolidVapor:
         if (s.quality)
             return QStringLiteral("%1, x = %2").arg(label, QString::number(*s.quality, 'f', 3));
@@ -84,6 +177,9 @@ QString phaseText(const State& s) {
 QString phaseShort(const State& s) {
     switch (s.phase) {
     case Phase::LiquidVapor:
+        if (s.quality && *s.quality >= 1.0 - kSaturatedEnd) return QStringLiteral("saturated vapour");
+        if (s.quality && *s.quality <= kSaturatedEnd) return QStringLiteral("saturated liquid");
+        [[fallthrough]];
     case Phase::SolidVapor:
         if (s.quality) return QStringLiteral("x = %1").arg(QString::number(*s.quality, 'f', 3));
         break;
@@ -94,7 +190,7 @@ QString phaseShort(const State& s) {
     default:
         break;
     }
-    return QString::fromUtf8(phaseLabel(s.phase).data(), qsizetype(phaseLabel(s.phase).size()));
+    return phaseName(s.phase);
 }
 
 const std::vector<StepKind>& allStepKinds() {
@@ -119,6 +215,39 @@ QString stepKindTitle(StepKind k) {
     case StepKind::Compress: return QStringLiteral("Compress");
     case StepKind::Expand: return QStringLiteral("Expand");
     case StepKind::Throttle: return QStringLiteral("Throttle");
+    }
+    return {};
+}
+
+QString stepKindMeaning(StepKind k) {
+    switch (k) {
+    case StepKind::Heat: return QStringLiteral("raise the temperature or add a duty");
+    case StepKind::Cool: return QStringLiteral("lower the temperature or remove a duty");
+    case StepKind::Melt: return QStringLiteral("solid → liquid");
+    case StepKind::Freeze: return QStringLiteral("liquid → solid");
+    case StepKind::Boil: return QStringLiteral("liquid → vapour");
+    case StepKind::Condense: return QStringLiteral("vapour → liquid");
+    case StepKind::Sublimate: return QStringLiteral("solid → vapour");
+    case StepKind::Deposit: return QStringLiteral("vapour → solid, the reverse of sublimation");
+    case StepKind::Compress: return QStringLiteral("raise the pressure with work");
+    case StepKind::Expand: return QStringLiteral("lower the pressure, taking work out");
+    case StepKind::Throttle: return QStringLiteral("lower the pressure across a valve, no work");
+    }
+    return {};
+}
+
+bool noSourceGiven(const StepResult& s) {
+    return s.computed && !s.reservoirT && !s.utility && s.Q != 0.0;
+}
+
+QString noSourceText() { return QStringLiteral("no source given"); }
+
+QString modelTitle(ModelKind m) {
+    switch (m) {
+    case ModelKind::ConstantCp: return QStringLiteral("Constant cp");
+    case ModelKind::TemperatureDependentCp: return QStringLiteral("Temperature-dependent cp");
+    case ModelKind::RealFluid: return QStringLiteral("Real fluid (Peng–Robinson)");
+    case ModelKind::Reference: return QStringLiteral("Reference");
     }
     return {};
 }

@@ -1,4 +1,4 @@
-#include "heatchain_qt/palette.hpp"
+#include "heatchain_view/palette.hpp"
 
 #include <array>
 

@@ -1,4 +1,4 @@
-#include "heatchain_qt/process_chart.hpp"
+#include "heatchain_view/process_chart.hpp"
 
 #include <QFontMetricsF>
 #include <QPaintEngine>
@@ -7,9 +7,9 @@
 #include <cmath>
 #include <limits>
 
-#include "heatchain_qt/format.hpp"
-#include "heatchain_qt/palette.hpp"
-#include "heatchain_qt/utility_text.hpp"
+#include "heatchain_view/format.hpp"
+#include "heatchain_view/palette.hpp"
+#include "heatchain_view/utility_text.hpp"
 
 namespace heatchain::view {
 
@@ -106,7 +106,7 @@ QPointF ProcessChart::Frame::map(QPointF v) const {
 void ProcessChart::setData(const Project& project, const SequenceResult& result,
                            const DomeCurve* dome) {
     units_ = project.displayUnits;
-    ctx_ = project.unitContext();
+    ctx_ = displayContext(project);
     system_ = result.system;
     series_.clear();
     reservoirs_.clear();
@@ -142,7 +142,7 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
             s.step = int(i);
             s.stepId = QString::fromStdString(st.id);
             s.label = QString::fromStdString(seg.label);
-            s.colour = stepColour(int(i));
+            s.colour = (i < colours_.size() ? colours_[i] : stepColour(int(i)));
             s.raw = seg.curve;
             if (s.raw.empty()) {
                 // No sampled curve: the straight chord between the segment's ends.
@@ -157,7 +157,7 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
             Series s;
             s.step = int(i);
             s.stepId = QString::fromStdString(st.id);
-            s.colour = stepColour(int(i));
+            s.colour = (i < colours_.size() ? colours_[i] : stepColour(int(i)));
             s.raw = {{st.start.T, st.start.s, qStart, st.start.P, st.start.h},
                      {st.end.T, st.end.s, qRunning, st.end.P, st.end.h}};
             for (const CurvePoint& c : s.raw) s.pts.emplace_back(X(c), Y(c.T));
@@ -172,7 +172,7 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
             r.source = u.asSource;
             r.label = QString::fromStdString(u.id);
             r.utility = true;
-            r.colour = stepColour(int(i));
+            r.colour = (i < colours_.size() ? colours_[i] : stepColour(int(i)));
             for (const UtilityLinePoint& lp : u.line)
                 r.pts.emplace_back(toDisplay(lp.Q, xDim, units_, ctx_), Y(lp.T));
             reservoirs_.push_back(std::move(r));
@@ -194,7 +194,7 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
             r.label = r.source ? QStringLiteral("source") : QStringLiteral("sink");
             const double T = Y(*st.reservoirT);
             r.pts = {{X(stepPts.front()), T}, {X(stepPts.back()), T}};
-            r.colour = stepColour(int(i));
+            r.colour = (i < colours_.size() ? colours_[i] : stepColour(int(i)));
             reservoirs_.push_back(r);
             // Approach: how far the reservoir stays hotter (source) or colder
             // (sink) than the material along the step, in kelvin.
@@ -355,6 +355,24 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
     // and dozens of overlapping paths read better thin. Print keeps widths.
     const bool dense = series_.size() > 40 && p.paintEngine() && p.paintEngine()->type() == QPaintEngine::Raster;
     QStringList labelled;  // a utility's id once, on its first line
+    // Labels never cover each other: each takes the first free place near
+    // its line (nudged up or down), or is left out when there is none.
+    std::vector<QRectF> taken;
+    auto place = [&](QRectF box, double stepY) -> std::optional<QRectF> {
+        for (int k = 0; k < 9; ++k) {
+            const double dy = (k % 2 == 1 ? 1 : -1) * double((k + 1) / 2) * stepY;
+            QRectF b = box.translated(0, dy);
+            if (b.top() < f.plot.top() || b.bottom() > f.plot.bottom()) continue;
+            bool clear = true;
+            for (const QRectF& t : taken) clear = clear && !t.intersects(b);
+            if (clear) {
+                taken.push_back(b);
+                return b;
+            }
+        }
+        return std::nullopt;
+    };
+    const QFontMetricsF lfm(p.font());
     for (const ReservoirLine& r : reservoirs_) {
         if (r.pts.size() < 2) continue;
         QPolygonF line;
@@ -372,7 +390,10 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
             const QPointF left = a.x() <= b.x() ? a : b;
             // On the side away from the material (below a source, above a
             // sink), where the line's left end leaves room.
-            p.drawText(left + QPointF(3, r.source ? QFontMetricsF(p.font()).ascent() + 2 : -3), r.label);
+            const QPointF at = left + QPointF(3, r.source ? 2 : -3 - lfm.height());
+            if (auto box = place(QRectF(at, QSizeF(lfm.horizontalAdvance(r.label) + 2, lfm.height())),
+                                 (r.source ? 1 : -1) * lfm.height()))
+                p.drawText(*box, Qt::AlignLeft | Qt::AlignVCenter, r.label);
         }
     }
 
@@ -425,9 +446,11 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
     const QString dTUnit = unitSymbol(Dimension::TemperatureDifference, units_);
     auto label = [&](const Approach& a, QPointF m, QPointF r, const QColor& ink) {
         const QString text = QStringLiteral("ΔT %1 %2").arg(formatNumber(a.dT, 4, 1), dTUnit);
-        QRectF box(QPointF(0, 0), QSizeF(fm.horizontalAdvance(text) + 8, fm.height() + 4));
-        box.moveCenter((m + r) / 2 + QPointF(box.width() / 2 + 6, 0));
-        if (box.right() > f.plot.right()) box.moveRight((m.x() + r.x()) / 2 - 6);
+        QRectF want(QPointF(0, 0), QSizeF(fm.horizontalAdvance(text) + 8, fm.height() + 4));
+        want.moveCenter((m + r) / 2 + QPointF(want.width() / 2 + 6, 0));
+        if (want.right() > f.plot.right()) want.moveRight((m.x() + r.x()) / 2 - 6);
+        const auto placed = place(want, want.height());
+        const QRectF box = placed ? *placed : want;
         p.setPen(Qt::NoPen);
         p.setBrush(QColor(255, 255, 255, 225));
         p.drawRect(box);

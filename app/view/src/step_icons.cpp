@@ -1,9 +1,9 @@
-#include "heatchain_qt/step_icons.hpp"
+#include "heatchain_view/step_icons.hpp"
 
 #include <QPainterPath>
 #include <QPixmap>
 
-#include "heatchain_qt/palette.hpp"
+#include "heatchain_view/palette.hpp"
 
 namespace heatchain::view {
 namespace {

@@ -1,13 +1,13 @@
-#include "heatchain_qt/sweep_plot.hpp"
+#include "heatchain_view/sweep_plot.hpp"
 
 #include <QFontMetricsF>
 #include <algorithm>
 #include <cmath>
 #include <limits>
 
-#include "heatchain_qt/format.hpp"
-#include "heatchain_qt/palette.hpp"
-#include "heatchain_qt/process_chart.hpp"
+#include "heatchain_view/format.hpp"
+#include "heatchain_view/palette.hpp"
+#include "heatchain_view/process_chart.hpp"
 
 namespace heatchain::view {
 

@@ -1,6 +1,6 @@
-#include "heatchain_qt/utility_text.hpp"
+#include "heatchain_view/utility_text.hpp"
 
-#include "heatchain_qt/format.hpp"
+#include "heatchain_view/format.hpp"
 
 namespace heatchain::view {
 

@@ -22,9 +22,12 @@ public:
         double display = 0;   // the same in display units
         double share = 0;     // of the sequence total, 0–1 (core's)
         QColor colour;
+        bool noSource = false;  // heat with no source or sink named: nothing to charge
     };
 
     void setData(const Project& project, const SequenceResult& result);
+    // Colours of the steps by index, used by setData (else by index).
+    void setStepColours(std::vector<QColor> colours) { colours_ = std::move(colours); }
     void setSelectedStep(int index) { selected_ = index; }
     const std::vector<Bar>& bars() const { return bars_; }
     QString unit() const { return unit_; }
@@ -42,6 +45,7 @@ private:
     Layout layout(const QRectF& rect, const QFontMetricsF& fm) const;
 
     std::vector<Bar> bars_;
+    std::vector<QColor> colours_;
     UnitSystem units_ = UnitSystem::SI;
     SystemKind system_ = SystemKind::SteadyFlow;
     QString unit_;

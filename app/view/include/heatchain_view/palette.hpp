@@ -9,7 +9,10 @@
 namespace heatchain::view {
 
 // Colour of the step at `index` in the sequence (cycles through 10 hues).
+// The application gives each step a slot of its own instead (kept when
+// steps are inserted or moved), and passes the slots' colours to the charts.
 QColor stepColour(int index);
+constexpr int kStepColourCount = 10;
 
 enum class KindFamily { Heating, Cooling, Pressure };
 KindFamily kindFamily(StepKind k);

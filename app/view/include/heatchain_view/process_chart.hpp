@@ -29,6 +29,8 @@ public:
     // Takes the curves of `result` (display units of `project`); `dome` may be
     // null (a model without a liquid–vapour line, or not wanted).
     void setData(const Project& project, const SequenceResult& result, const DomeCurve* dome);
+    // Colours of the steps by index, used by setData (else by index).
+    void setStepColours(std::vector<QColor> colours) { colours_ = std::move(colours); }
     void setSelectedStep(int index) { selected_ = index; }
     int selectedStep() const { return selected_; }
     Kind kind() const { return kind_; }
@@ -71,6 +73,7 @@ public:
     QString yTitle() const { return yTitle_; }
 
 private:
+    std::vector<QColor> colours_;
     struct Series {
         int step = -1;
         QString stepId, label;

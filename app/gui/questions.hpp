@@ -1,0 +1,23 @@
+#pragma once
+// The questions the window asks the user, and their possible answers. Tests
+// inject the answers (MainWindow::setAsker) instead of pressing buttons.
+#include <QString>
+#include <functional>
+
+namespace heatchain::gui {
+
+enum class Question { UnsavedChanges, ChangedOnDisk, Recover };
+enum class Answer { Save, Discard, Cancel, Overwrite, SaveAs, Recover, Later };
+using Asker = std::function<Answer(Question, const QString& text)>;
+
+// What the helpers of the window need from it: ask a question, report an
+// error (a dialog, or recorded when no one is there to press OK), and a
+// line for the status bar.
+struct WindowHooks {
+    std::function<Answer(Question, const QString&)> ask;
+    std::function<bool()> confirmDiscard;
+    std::function<void(const QString& title, const QString& text)> reportError;
+    std::function<void(const QString& text, int ms)> status;
+};
+
+}  // namespace heatchain::gui
