@@ -50,7 +50,7 @@ void ChartWidget::paintEvent(QPaintEvent*) {
             const QString id = a->step >= 0 && a->step < int(steps.size())
                                    ? QString::fromStdString(steps[std::size_t(a->step)].id) : QString();
             p.drawText(QRectF(8, 2, width() - 16, 20), Qt::AlignVCenter | Qt::AlignRight,
-                       tr("smallest approach %1 %2 at %3")
+                       tr("closest approach %1 %2 at %3")
                            .arg(view::formatNumber(a->dT, 4, 1),
                                 view::unitSymbol(Dimension::TemperatureDifference, doc_->project().displayUnits), id));
         }

@@ -96,7 +96,7 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     ledgerView_->setColumnWidth(LedgerModel::ColWhat, 160);
     for (int c = LedgerModel::ColTin; c < LedgerModel::ColumnCount; ++c) ledgerView_->setColumnWidth(c, 82);
     ledgerView_->setColumnWidth(LedgerModel::ColPhase, 170);
-    ledgerView_->setColumnWidth(LedgerModel::ColExd, 100);
+    ledgerView_->setColumnWidth(LedgerModel::ColExd, 124);
     // A click on "▸ n parts" opens a step's segments, another folds them.
     connect(ledgerView_, &QTableView::clicked, this, [this](const QModelIndex& index) {
         if (index.column() != LedgerModel::ColWhat) return;
@@ -149,6 +149,11 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     statusBar()->addWidget(statusSolve_);
     statusBar()->addWidget(statusTime_);
     statusBar()->addPermanentWidget(caution);
+    // A passing message (saved, not added, …) takes the place of the
+    // standing ones instead of being written over them.
+    connect(statusBar(), &QStatusBar::messageChanged, this, [this](const QString& m) {
+        for (QLabel* l : {statusMessages_, statusSolve_, statusTime_}) l->setVisible(m.isEmpty());
+    });
 
     connect(&doc_, &ProjectDocument::changed, this, [this] {
         updateTitle();
@@ -233,6 +238,9 @@ void MainWindow::buildDocks() {
     editorScroll->setWidget(panel);
     editorScroll->setWidgetResizable(true);
     editorScroll->setFrameShape(QFrame::NoFrame);
+    // The panel follows the dock's width (its texts wrap); it scrolls only
+    // up and down.
+    editorScroll->setHorizontalScrollBarPolicy(Qt::ScrollBarAlwaysOff);
     auto* editorDock = new QDockWidget(tr("Step panel"), this);
     editorDock->setObjectName(QStringLiteral("stepDock"));
     editorDock->setWidget(editorScroll);
@@ -874,9 +882,6 @@ void MainWindow::startUp(const QStringList& arguments) {
     // Nothing to reopen: a blank worksheet, with the Start card selected so
     // the step panel asks for the material and where it starts.
     doc_.setSelectedStep(-1);
-    if (first)
-        statusBar()->showMessage(tr("New worksheet: choose the material and where it starts, then add steps. "
-                                    "Help ▸ Getting started; the samples are under File ▸ Open."), 15000);
 }
 
 void MainWindow::closeEvent(QCloseEvent* e) {

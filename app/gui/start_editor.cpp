@@ -44,6 +44,9 @@ StartEditor::StartEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent
     substance_->setObjectName(QStringLiteral("substance"));
     for (const Substance& s : SubstanceLibrary::builtin().all())
         substance_->addItem(QStringLiteral("%1  (%2)").arg(qs(s.name), qs(s.formula)), qs(s.id));
+    // Long substance names must not widen the panel beyond its dock.
+    substance_->setSizeAdjustPolicy(QComboBox::AdjustToMinimumContentsLengthWithIcon);
+    substance_->setMinimumContentsLength(14);
     model_ = new QComboBox(this);
     model_->setObjectName(QStringLiteral("model"));
     for (ModelKind m : {ModelKind::ConstantCp, ModelKind::TemperatureDependentCp, ModelKind::RealFluid,

@@ -120,11 +120,16 @@ QStringList cautionLines(const Project& project, const SequenceResult& r) {
     }
     const double gauge = e.Pmax - project.atmosphere.si;
     if (gauge > kPressureAboveGauge_Pa)
-        lines << QStringLiteral("High pressure: up to %1 (%2 gauge). Above about 0.5 bar gauge pressure-equipment "
+    {
+        UnitContext absolute = ctx, gaugeCtx = ctx;
+        absolute.gaugeDisplay = false;
+        gaugeCtx.gaugeDisplay = true;
+        lines << QStringLiteral("High pressure: up to %1 (%2). Above about 0.5 bar gauge pressure-equipment "
                                 "rules commonly apply to vessels and piping; stored energy is released violently "
                                 "on failure. Relief, design pressure and inspection follow the applicable code.")
-                     .arg(view::formatWithUnit(e.Pmax, Dimension::Pressure, us, ctx),
-                          view::formatWithUnit(gauge, Dimension::Pressure, us, ctx));
+                     .arg(view::formatWithUnit(e.Pmax, Dimension::Pressure, us, absolute),
+                          view::formatWithUnit(e.Pmax, Dimension::Pressure, us, gaugeCtx));
+    }
     return lines;
 }
 
@@ -213,7 +218,7 @@ void writeContent(Layout& L, const Content& c) {
     // ---- Title block ----------------------------------------------------
     {
         const QFont label = L.font(7.5, true);
-        L.paragraph(QStringLiteral("HEATCHAIN  ·  PROCESS STEP REPORT"), label, rink::accent(), 0, L.mm(1));
+        L.paragraph(QStringLiteral("HEATCHAIN  ·  PROCESS REPORT"), label, rink::accent(), 0, L.mm(1));
         L.paragraph(p.meta.title.empty() ? QStringLiteral("(untitled worksheet)") : qs(p.meta.title), L.font(17, true),
                     view::ink::text(), 0, L.mm(3));
         const QFont mono = L.mono(7.5);
@@ -644,7 +649,8 @@ Status writeReportPdf(const Project& project, const SequenceResult& result, std:
     } else {
         const std::string text = writeProject(project);
         bytes = QByteArray(text.data(), qsizetype(text.size()));
-        note = QStringLiteral("Checksum of the worksheet as it would be saved; the file could not be read.");
+        note = file.isEmpty() ? QStringLiteral("Checksum of the worksheet as it would be saved; it has no file yet.")
+                              : QStringLiteral("Checksum of the worksheet as it would be saved; the file could not be read.");
     }
     Content content{project, result,
                     file.isEmpty() ? QStringLiteral("(not saved)") : QFileInfo(file).fileName(),
@@ -663,7 +669,7 @@ Status writeReportPdf(const Project& project, const SequenceResult& result, std:
         QPainter painter;
         if (!painter.begin(&writer)) return makeError("cannot start drawing the PDF", out.string());
         Layout::Furniture furn{qs(project.meta.title), qs(project.meta.revision),
-                               QStringLiteral("Heatchain step report  ·  %1  ·  SHA-256 %2…")
+                               QStringLiteral("Heatchain report  ·  %1  ·  SHA-256 %2…")
                                    .arg(content.fileName, content.checksum.left(12))};
         // Dry pass: count the pages so every footer can say "of N".
         Layout dry(writer, painter, /*dry=*/true, 0, furn);
