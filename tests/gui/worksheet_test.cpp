@@ -237,7 +237,8 @@ private slots:
         eff->lineEdit()->setText(QStringLiteral("1.4"));
         eff->commit();
         QVERIFY(eff->hasError());
-        QVERIFY(eff->errorText().contains(QStringLiteral("between")));
+        // The reason gives the bounds the file has: above 0, at most 1.
+        QVERIFY2(eff->errorText().contains(QStringLiteral("above 0 and at most 1")), qPrintable(eff->errorText()));
         QCOMPARE(writeProject(w.document()->project()), before);
         // A valid entry after the refusal is applied.
         target = w.editor()->field(QStringLiteral("target"));
