@@ -237,7 +237,8 @@ QString stepKindMeaning(StepKind k) {
 }
 
 bool noSourceGiven(const StepResult& s) {
-    return s.computed && !s.reservoirT && !s.utility && s.Q != 0.0;
+    // Core decides (StepResult::exergyNotCharged); views only say it.
+    return s.computed && s.exergyNotCharged.has_value();
 }
 
 QString noSourceText() { return QStringLiteral("no source given"); }
