@@ -11,6 +11,8 @@ heatchain_packages=(
   xvfb xauth imagemagick poppler-utils fonts-dejavu-core python3-iapws python3-pint
   python3-uncertainties
   clang libclang-rt-14-dev clang-tidy
+  pybind11-dev python3-dev python3-numpy python3-pytest python3-matplotlib
+  lintian desktop-file-utils appstream shared-mime-info xdg-utils libglib2.0-bin man-db bash-completion
 )
 
 heatchain_install_packages() {
