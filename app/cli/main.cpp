@@ -20,6 +20,8 @@
 #include "heatchain/sweep.hpp"
 #include "heatchain/uncertainty.hpp"
 #include "heatchain/units.hpp"
+#include "heatchain/version.hpp"
+#include "cli_json.hpp"
 #include "ledger_text.hpp"
 #include "uncertainty_text.hpp"
 
@@ -33,31 +35,63 @@ using namespace heatchain;
 
 constexpr int kDone = 0, kUsage = 2, kInvalid = 3, kCannotCompute = 4;
 
-const char* kUsageText =
-    "usage:\n"
-    "  heatchain-cli compute PROJECT [--json | --csv] [-o FILE]\n"
-    "                        [--uncertainty [linear|montecarlo] [--samples N] [--seed S] [--contributions OUTPUT]]\n"
-    "  heatchain-cli report  PROJECT -o REPORT.pdf [--page A4|letter]\n"
-    "  heatchain-cli chart   PROJECT --ts|--tq -o FILE.svg|FILE.png\n"
-    "  heatchain-cli diff    BEFORE AFTER [--json]\n"
-    "  heatchain-cli check   PROJECT\n"
-    "  heatchain-cli state   SUBSTANCE T=<q> P=<q> | P=<q> h=<q> | P=<q> s=<q> | T=<q> quality=<x> | P=<q> quality=<x>"
-    "  [--model M] [--json]\n"
-    "  heatchain-cli substances [--json]\n"
-    "  heatchain-cli sweep   PROJECT --step ID|start --input PATH --from Q --to Q --points N\n"
-    "                        [--outputs KEY,KEY,...] [--json | --csv] [-o FILE]\n"
-    "      PATH of a step: to.T, to.P, to.duty, to.quality, to.ratio, efficiency, fraction, n,\n"
-    "      source.T, sink.T; of the start: T, P, quality, meltFraction.\n"
-    "      --outputs list: heatchain-cli sweep PROJECT --list-outputs\n";
+// One entry per verb: its synopsis (the general usage lists them all) and
+// what `heatchain-cli VERB --help` adds.
+struct VerbHelp {
+    const char* verb;
+    const char* synopsis;
+    const char* details;
+};
+
+const VerbHelp kVerbs[] = {
+    {"compute",
+     "  heatchain-cli compute PROJECT|- [--json | --csv] [-o FILE|-]\n"
+     "                        [--uncertainty [linear|montecarlo] [--samples N] [--seed S] [--contributions OUTPUT]]\n",
+     "Solves the worksheet PROJECT and prints the ledger as a table, or SI numbers with fixed keys (--json), or one\n"
+     "row per step and segment (--csv). PROJECT \"-\" is read from standard input; -o writes FILE\n"
+     "atomically (\"-\": standard output). --uncertainty propagates the tolerances typed on\n"
+     "quantities (\"80 degC ± 2 K\"): first order (linear, the default) or Monte Carlo.\n"},
+    {"report", "  heatchain-cli report  PROJECT|- -o REPORT.pdf [--page A4|letter]\n",
+     "Writes the PDF report (A4 unless --page letter).\n"},
+    {"chart", "  heatchain-cli chart   PROJECT|- --ts|--tq -o FILE.svg|FILE.png\n",
+     "Writes the T-s chart (--ts) or the T-Q chart (--tq) as SVG or PNG.\n"},
+    {"diff", "  heatchain-cli diff    BEFORE AFTER [--json]\n",
+     "Says what changed between two revisions and how the results moved; exits 0 whether or not\n"
+     "they differ.\n"},
+    {"check", "  heatchain-cli check   PROJECT|-\n",
+     "Validates and solves the worksheet PROJECT and says whether it is valid (exit 0, 3 or 4).\n"},
+    {"state",
+     "  heatchain-cli state   SUBSTANCE T=<q> P=<q> | P=<q> h=<q> | P=<q> s=<q> | T=<q> quality=<x> | P=<q> quality=<x>"
+     "  [--model M] [--json]\n",
+     "Prints one state of a built-in substance. M: constant-cp, temperature-dependent-cp,\n"
+     "real-fluid, reference (the default).\n"},
+    {"substances", "  heatchain-cli substances [--json]\n", "Lists the built-in substance library.\n"},
+    {"sweep",
+     "  heatchain-cli sweep   PROJECT|- --step ID|start --input PATH --from Q --to Q --points N\n"
+     "                        [--outputs KEY,KEY,...] [--json | --csv] [-o FILE|-]\n"
+     "      PATH of a step: to.T, to.P, to.duty, to.quality, to.ratio, efficiency, fraction, n,\n"
+     "      source.T, sink.T; of the start: T, P, quality, meltFraction.\n"
+     "      --outputs list: heatchain-cli sweep PROJECT --list-outputs\n",
+     "Varies one input linearly from --from to --to over N points and solves the worksheet at each;\n"
+     "a point that cannot be computed is listed with its reason. Exit 4 only when no point could be\n"
+     "computed.\n"},
+};
+
+const std::string kUsageText = [] {
+    std::string t = "usage:\n";
+    for (const auto& v : kVerbs) t += v.synopsis;
+    return t + "  heatchain-cli VERB --help\n  heatchain-cli --version\n"
+               "exit status: 0 done, 2 usage error, 3 invalid input, 4 cannot compute\n";
+}();
 
 int usage(const std::string& why) {
     std::cerr << "heatchain-cli: " << why << "\n" << kUsageText;
     return kUsage;
 }
 
-// Writes to -o FILE atomically, or to stdout.
+// Writes to -o FILE atomically, or to stdout (no -o, or -o -).
 int emit(const std::string& text, const std::optional<std::string>& out) {
-    if (!out) {
+    if (!out || *out == "-") {
         std::cout << text;
         return kDone;
     }
@@ -96,6 +130,17 @@ Result<Args> parseArgs(int argc, char** argv, int from) {
     return a;
 }
 
+// How messages name a PROJECT argument ("-" is standard input).
+std::string inputName(const std::string& file) { return file == "-" ? "<stdin>" : file; }
+
+// Reads PROJECT from its file, or from standard input when it is "-".
+Result<Project> loadInput(const std::string& file) {
+    if (file != "-") return loadProject(file);
+    std::ostringstream text;
+    text << std::cin.rdbuf();
+    return parseProject(text.str(), "<stdin>");
+}
+
 int compute(const Args& a, bool checkOnly) {
     if (a.positional.size() != 1) return usage("expected one PROJECT file");
     const bool json = a.options.count("--json"), csv = a.options.count("--csv");
@@ -107,7 +152,7 @@ int compute(const Args& a, bool checkOnly) {
     auto uncertainty = cli::uncertaintyOptions(a.options);
     if (!uncertainty) return usage(uncertainty.error().message);
     if (*uncertainty && (csv || checkOnly)) return usage("--uncertainty goes with --json or the text ledger");
-    auto project = loadProject(a.positional[0]);
+    auto project = loadInput(a.positional[0]);
     if (!project) {
         std::cerr << "heatchain-cli: " << project.error().text() << "\n";
         return kInvalid;
@@ -116,12 +161,12 @@ int compute(const Args& a, bool checkOnly) {
     const Error* err = result.firstError();
     if (checkOnly) {
         if (err) {
-            std::cerr << "heatchain-cli: " << a.positional[0] << ": " << err->text() << "\n";
+            std::cerr << "heatchain-cli: " << inputName(a.positional[0]) << ": " << err->text() << "\n";
             return kCannotCompute;
         }
         std::size_t warnings = 0;
         for (const auto& s : result.steps) warnings += s.warnings.size();
-        std::cout << a.positional[0] << ": valid; " << result.steps.size() << " steps computed, " << warnings
+        std::cout << inputName(a.positional[0]) << ": valid; " << result.steps.size() << " steps computed, " << warnings
                   << " warning" << (warnings == 1 ? "" : "s") << "\n";
         return kDone;
     }
@@ -131,7 +176,7 @@ int compute(const Args& a, bool checkOnly) {
     if (*uncertainty && !err) {
         auto u = propagateUncertainty(*project, **uncertainty);
         if (!u) {
-            std::cerr << "heatchain-cli: " << a.positional[0] << ": uncertainty: " << u.error().text() << "\n";
+            std::cerr << "heatchain-cli: " << inputName(a.positional[0]) << ": uncertainty: " << u.error().text() << "\n";
             return kCannotCompute;
         }
         unc = std::move(*u);
@@ -148,7 +193,7 @@ int compute(const Args& a, bool checkOnly) {
     }
     int rc = emit(text, out);
     if (err) {
-        std::cerr << "heatchain-cli: " << a.positional[0] << ": " << err->text() << "\n";
+        std::cerr << "heatchain-cli: " << inputName(a.positional[0]) << ": " << err->text() << "\n";
         return kCannotCompute;
     }
     return rc;
@@ -158,7 +203,7 @@ int compute(const Args& a, bool checkOnly) {
 // (Unused in a build without the report library, where those verbs say so.)
 [[maybe_unused]] std::optional<int> loadForDrawing(const std::string& file, std::optional<Project>& project,
                                   std::optional<SequenceResult>& result) {
-    auto loaded = loadProject(file);
+    auto loaded = loadInput(file);
     if (!loaded) {
         std::cerr << "heatchain-cli: " << loaded.error().text() << "\n";
         return kInvalid;
@@ -172,6 +217,7 @@ int report(const Args& a) {
     if (a.positional.size() != 1 || !a.options.count("-o")) return usage("report needs PROJECT and -o REPORT.pdf");
     for (const auto& [k, v] : a.options)
         if (k != "-o" && k != "--page") return usage("unknown option " + k);
+    if (a.options.at("-o") == "-") return usage("report writes a PDF file; -o - (standard output) is for text results");
 #ifdef HEATCHAIN_HAVE_REPORT
     ReportOptions options;
     if (auto it = a.options.find("--page"); it != a.options.end()) {
@@ -182,7 +228,7 @@ int report(const Args& a) {
     std::optional<Project> project;
     std::optional<SequenceResult> result;
     if (auto rc = loadForDrawing(a.positional[0], project, result)) return *rc;
-    auto st = writeReportPdf(*project, *result, a.positional[0], a.options.at("-o"), options);
+    auto st = writeReportPdf(*project, *result, inputName(a.positional[0]), a.options.at("-o"), options);
     if (!st) {
         std::cerr << "heatchain-cli: " << st.error().text() << "\n";
         return kCannotCompute;
@@ -202,6 +248,7 @@ int chart(const Args& a) {
     for (const auto& [k, v] : a.options)
         if (k != "-o" && k != "--ts" && k != "--tq") return usage("unknown option " + k);
     const bool ts = a.options.count("--ts"), tq = a.options.count("--tq");
+    if (a.options.at("-o") == "-") return usage("chart writes an image file; -o - (standard output) is for text results");
     if (ts == tq) return usage("chart needs exactly one of --ts (temperature-entropy) and --tq (temperature-duty)");
 #ifdef HEATCHAIN_HAVE_REPORT
     const std::string out = a.options.at("-o");
@@ -257,13 +304,6 @@ int state(const Args& a) {
     if (a.positional.size() != 3) return usage("state needs a SUBSTANCE and two properties, e.g. water T=180degC P=10bar");
     for (const auto& [k, v] : a.options)
         if (k != "--json" && k != "--model") return usage("unknown option " + k);
-    const Substance* sub = SubstanceLibrary::builtin().find(a.positional[0]);
-    if (!sub) {
-        std::string known;
-        for (const auto& s : SubstanceLibrary::builtin().all()) known += (known.empty() ? "" : ", ") + s.id;
-        std::cerr << "heatchain-cli: unknown substance \"" << a.positional[0] << "\"; known: " << known << "\n";
-        return kInvalid;
-    }
     ModelKind kind = ModelKind::Reference;
     if (auto it = a.options.find("--model"); it != a.options.end()) {
         auto k = parseModelKind(it->second);
@@ -277,55 +317,21 @@ int state(const Args& a) {
         if (eq == std::string::npos) return usage("expected NAME=VALUE, got \"" + p + "\"");
         props[p.substr(0, eq)] = p.substr(eq + 1);
     }
-    auto model = makeModel(kind, *sub);
-    if (!model) {
-        std::cerr << "heatchain-cli: " << model.error().text() << "\n";
-        return kCannotCompute;
+    cli::StateFailure why = cli::StateFailure::Usage;
+    auto answer = cli::queryState(a.positional[0], props, kind, why);
+    if (!answer) {
+        if (why == cli::StateFailure::Usage) return usage(answer.error().message);
+        std::cerr << "heatchain-cli: " << answer.error().text() << "\n";
+        return why == cli::StateFailure::InvalidInput ? kInvalid : kCannotCompute;
     }
-    const PropertyModel& m = **model;
-    auto q = [&](const std::string& name, Dimension d) -> Result<double> {
-        auto v = parseQuantity(props.at(name), d);
-        if (!v) return makeError(v.error().message, name);
-        return v;
-    };
-    auto has = [&](const char* a1, const char* a2) { return props.size() == 2 && props.count(a1) && props.count(a2); };
-    Result<State> st = makeError("");
-    Result<double> x1 = makeError(""), x2 = makeError("");
-    if (has("T", "P")) {
-        x1 = q("T", Dimension::Temperature); x2 = q("P", Dimension::Pressure);
-        if (x1 && x2) st = m.stateTP(*x1, *x2);
-    } else if (has("P", "h")) {
-        x1 = q("P", Dimension::Pressure); x2 = q("h", Dimension::SpecificEnergy);
-        if (x1 && x2) st = m.statePH(*x1, *x2);
-    } else if (has("P", "s")) {
-        x1 = q("P", Dimension::Pressure); x2 = q("s", Dimension::SpecificEntropy);
-        if (x1 && x2) st = m.statePS(*x1, *x2);
-    } else if (has("T", "quality")) {
-        x1 = q("T", Dimension::Temperature); x2 = q("quality", Dimension::Dimensionless);
-        if (x1 && x2) st = m.stateOnLineT(Transition::Boiling, *x1, *x2);
-    } else if (has("P", "quality")) {
-        x1 = q("P", Dimension::Pressure); x2 = q("quality", Dimension::Dimensionless);
-        if (x1 && x2) st = m.stateOnLineP(Transition::Boiling, *x1, *x2);
-    } else {
-        return usage("give T and P, P and h, P and s, T and quality, or P and quality");
-    }
-    if (!x1 || !x2) {
-        std::cerr << "heatchain-cli: " << (!x1 ? x1.error() : x2.error()).text() << "\n";
-        return kInvalid;
-    }
-    if (!st) {
-        std::cerr << "heatchain-cli: " << st.error().text() << "\n";
-        return kCannotCompute;
-    }
-    const std::string warnings = describeWarnings(st->warnings);
+    const State* st = &answer->state;
+    const Substance* sub = answer->substance;
+    const PropertyModel& m = *answer->model;
     if (a.options.count("--json")) {
-        Json j = stateToJson(*st);
-        j["model"] = std::string(m.name());
-        j["source"] = std::string(st->source);
-        j["warnings"] = warnings.empty() ? Json::array() : Json::array({warnings});
-        std::cout << j.dump(2) << "\n";
+        std::cout << cli::stateAnswerToJson(*answer).dump(2) << "\n";
         return kDone;
     }
+    const std::string warnings = describeWarnings(st->warnings);
     auto line = [](const char* name, double v, const char* unit) {
         std::printf("  %-14s %.10g %s\n", name, v, unit);
     };
@@ -351,19 +357,7 @@ int substances(const Args& a) {
     if (!a.positional.empty()) return usage("substances takes no arguments");
     const auto& lib = SubstanceLibrary::builtin();
     if (a.options.count("--json")) {
-        Json arr = Json::array();
-        for (const auto& s : lib.all()) {
-            Json j = {{"id", s.id}, {"name", s.name}, {"formula", s.formula}, {"molarMass_kg_per_mol", s.molarMass}};
-            if (s.critical) j["critical"] = {{"T_K", s.critical->T}, {"P_Pa", s.critical->P}, {"acentricFactor", s.critical->acentricFactor}};
-            if (s.boiling) j["boiling"] = {{"T_K", s.boiling->T}, {"P_Pa", s.boiling->P}, {"enthalpy_J_per_kg", s.boiling->enthalpy}};
-            if (s.melting) j["melting"] = {{"T_K", s.melting->T}, {"P_Pa", s.melting->P}, {"enthalpy_J_per_kg", s.melting->enthalpy}};
-            Json src = Json::array();
-            for (const auto& n : s.sources)
-                src.push_back({{"field", n.field}, {"source", n.text}, {"confirmed", n.confirmed}});
-            j["sources"] = src;
-            arr.push_back(j);
-        }
-        std::cout << arr.dump(2) << "\n";
+        std::cout << cli::substancesToJson(lib).dump(2) << "\n";
         return kDone;
     }
     std::printf("%-18s %-34s %-8s %10s %10s %10s\n", "id", "name", "formula", "M [g/mol]", "Tb [K]", "Tc [K]");
@@ -375,22 +369,6 @@ int substances(const Args& a) {
     return kDone;
 }
 
-// SI unit of a sweep column (the JSON and CSV carry SI numbers).
-std::string siLabel(Dimension d) {
-    switch (d) {
-        case Dimension::Temperature:
-        case Dimension::TemperatureDifference: return "K";
-        case Dimension::Pressure: return "Pa";
-        case Dimension::Energy: return "J";
-        case Dimension::Power: return "W";
-        case Dimension::Entropy: return "J/K";
-        case Dimension::EntropyRate: return "W/K";
-        case Dimension::Mass: return "kg";
-        case Dimension::MassFlow: return "kg/s";
-        default: return "1";
-    }
-}
-
 int sweepCommand(const Args& a) {
     if (a.positional.size() != 1) return usage("sweep needs one PROJECT file");
     const bool json = a.options.count("--json"), csv = a.options.count("--csv");
@@ -400,14 +378,14 @@ int sweepCommand(const Args& a) {
             k != "--to" && k != "--points" && k != "--outputs" && k != "--list-outputs")
             return usage("unknown option " + k);
     if (json && csv) return usage("--json and --csv exclude each other");
-    auto project = loadProject(a.positional[0]);
+    auto project = loadInput(a.positional[0]);
     if (!project) {
         std::cerr << "heatchain-cli: " << project.error().text() << "\n";
         return kInvalid;
     }
     if (list) {
         for (const auto& o : sweepOutputKeys(*project))
-            std::cout << o.key << "  (" << o.label << ", " << siLabel(o.dimension) << ")\n";
+            std::cout << o.key << "  (" << o.label << ", " << cli::siLabel(o.dimension) << ")\n";
         return kDone;
     }
     for (const char* need : {"--step", "--input", "--from", "--to", "--points"})
@@ -437,30 +415,13 @@ int sweepCommand(const Args& a) {
     }
     auto res = sweep(*project, spec);
     if (!res) {
-        std::cerr << "heatchain-cli: " << a.positional[0] << ": " << res.error().text() << "\n";
+        std::cerr << "heatchain-cli: " << inputName(a.positional[0]) << ": " << res.error().text() << "\n";
         return kInvalid;
     }
     const SweepResult& r = *res;
     std::string text;
     if (json) {
-        Json j = Json::object();
-        j["step"] = spec.step;
-        j["input"] = spec.input;
-        j["inputUnit"] = siLabel(r.inputDimension);
-        Json outs = Json::array();
-        for (const auto& o : r.outputs) outs.push_back({{"key", o.key}, {"label", o.label}, {"unit", siLabel(o.dimension)}});
-        j["outputs"] = outs;
-        Json pts = Json::array();
-        for (const auto& p : r.points) {
-            Json v = Json::object();
-            for (std::size_t i = 0; i < r.outputs.size(); ++i)
-                v[r.outputs[i].key] = p.values[i] && std::isfinite(*p.values[i]) ? Json(*p.values[i]) : Json(nullptr);
-            pts.push_back({{"x", p.x}, {"text", p.text}, {"values", v},
-                           {"error", p.error ? Json(p.error->text()) : Json(nullptr)}, {"warnings", p.warnings}});
-        }
-        j["points"] = pts;
-        j["computed"] = r.computed();
-        text = j.dump(2) + "\n";
+        text = cli::sweepToJson(spec, r).dump(2) + "\n";
     } else if (csv) {
         auto q = [](const std::string& s) {
             if (s.find_first_of(",\"\n") == std::string::npos) return s;
@@ -472,8 +433,8 @@ int sweepCommand(const Args& a) {
             return o + "\"";
         };
         std::ostringstream o;
-        o << q(spec.input + " [" + siLabel(r.inputDimension) + "]");
-        for (const auto& out : r.outputs) o << "," << q(out.key + " [" + siLabel(out.dimension) + "]");
+        o << q(spec.input + " [" + cli::siLabel(r.inputDimension) + "]");
+        for (const auto& out : r.outputs) o << "," << q(out.key + " [" + cli::siLabel(out.dimension) + "]");
         o << ",error\n";
         char buf[64];
         for (const auto& p : r.points) {
@@ -496,7 +457,7 @@ int sweepCommand(const Args& a) {
     if (auto it = a.options.find("-o"); it != a.options.end()) out = it->second;
     const int rc = emit(text, out);
     if (r.computed() == 0) {
-        std::cerr << "heatchain-cli: " << a.positional[0] << ": no point of the sweep could be computed\n";
+        std::cerr << "heatchain-cli: " << inputName(a.positional[0]) << ": no point of the sweep could be computed\n";
         return kCannotCompute;
     }
     return rc;
@@ -510,6 +471,19 @@ int main(int argc, char** argv) {
     if (verb == "--help" || verb == "-h" || verb == "help") {
         std::cout << kUsageText;
         return kDone;
+    }
+    if (verb == "--version") {
+        std::cout << "heatchain-cli " << HEATCHAIN_VERSION_STRING << "\n";
+        return kDone;
+    }
+    for (const auto& v : kVerbs) {
+        if (verb != v.verb) continue;
+        for (int i = 2; i < argc; ++i) {
+            if (std::string(argv[i]) == "--help" || std::string(argv[i]) == "-h") {
+                std::cout << "usage:\n" << v.synopsis << "\n" << v.details;
+                return kDone;
+            }
+        }
     }
     auto args = parseArgs(argc, argv, 2);
     if (!args) return usage(args.error().message);
