@@ -2,6 +2,8 @@
 
 #include <QVBoxLayout>
 
+#include "locale_decimal.hpp"
+
 namespace heatchain::gui {
 
 QuantityField::QuantityField(QWidget* parent) : QWidget(parent) {
@@ -31,12 +33,12 @@ QuantityField::QuantityField(QWidget* parent) : QWidget(parent) {
 void QuantityField::showValue(const QString& text) {
     if (hasError() && edit_->hasFocus()) return;
     shown_ = text;
-    if (edit_->text() != text) edit_->setText(text);
+    if (edit_->text() != toLocaleDecimal(text)) edit_->setText(toLocaleDecimal(text));
     setError({});
 }
 
 void QuantityField::commit() {
-    const QString text = edit_->text().trimmed();
+    const QString text = fromLocaleDecimal(edit_->text().trimmed());
     if (text == shown_ && !hasError()) return;
     const QString reason = check_ ? check_(text) : QString();
     if (!reason.isEmpty()) {

@@ -8,6 +8,8 @@
 #include <QWidget>
 #include <functional>
 
+#include "locale_decimal.hpp"
+
 namespace heatchain::gui {
 
 class QuantityField : public QWidget {
@@ -22,7 +24,7 @@ public:
     // Shows the document's value (clears any error) unless the user is in
     // the middle of correcting an invalid entry in this field.
     void showValue(const QString& text);
-    QString text() const { return edit_->text(); }
+    QString text() const { return fromLocaleDecimal(edit_->text()); }  // with the file's decimal point
     bool hasError() const { return !error_->isHidden(); }
     QString errorText() const { return error_->text(); }
     QLineEdit* lineEdit() const { return edit_; }
