@@ -37,7 +37,7 @@ done
 
 step "lintian"
 # --fail-on error: any E: tag fails; warnings are printed for the reader.
-lintian --fail-on error --no-tag-display-limit "$deb" | tee "$work/lintian.log"
+lintian --fail-on error --tag-display-limit 0 "$deb" | tee "$work/lintian.log"
 if grep -q '^E:' "$work/lintian.log"; then fail "lintian reports errors"; fi
 
 step "desktop-file-validate and appstreamcli validate (files as packaged)"
