@@ -19,6 +19,11 @@ public:
     using Check = std::function<QString(const QString& text)>;
 
     explicit QuantityField(QWidget* parent = nullptr);
+    // The wrapped error label would make the field height-for-width; Qt 6.4's
+    // QFormLayout then writes past its row arrays when such a field's error
+    // shows while other rows are hidden (seen under valgrind in the step
+    // panel). The field's own layout still wraps the label to its width.
+    bool hasHeightForWidth() const override { return false; }
     void setCheck(Check check) { check_ = std::move(check); }
     void setPlaceholder(const QString& text) { edit_->setPlaceholderText(text); }
     // Shows the document's value (clears any error) unless the user is in
