@@ -650,14 +650,33 @@ Error positioned(std::string message, std::string_view file, std::string_view te
 
 // "[json.exception.parse_error.101] parse error at line 2, column 10: syntax
 // error ..." → "syntax error ..." (the position is given separately).
+// The parser quotes the bytes it last read, which may be anything (a UTF-16
+// byte-order mark, binary data): every byte outside printable ASCII is shown
+// as \xHH so a message never carries raw bytes to a terminal or a dialog.
 std::string parserReason(std::string_view what) {
+    std::string_view reason = what;
     const std::size_t at = what.find("column ");
-    if (at != std::string_view::npos) {
-        const std::size_t colon = what.find(": ", at);
-        if (colon != std::string_view::npos) return std::string(what.substr(colon + 2));
+    const std::size_t colon = at == std::string_view::npos ? std::string_view::npos : what.find(": ", at);
+    if (colon != std::string_view::npos) {
+        reason = what.substr(colon + 2);
+    } else {
+        const std::size_t bracket = what.find("] ");
+        if (bracket != std::string_view::npos) reason = what.substr(bracket + 2);
     }
-    const std::size_t bracket = what.find("] ");
-    return std::string(bracket == std::string_view::npos ? what : what.substr(bracket + 2));
+    static constexpr char kHex[] = "0123456789ABCDEF";
+    std::string out;
+    out.reserve(reason.size());
+    for (const char c : reason) {
+        const auto byte = static_cast<unsigned char>(c);
+        if (byte >= 0x20 && byte < 0x7F) {
+            out += c;
+        } else {
+            out += "\\x";
+            out += kHex[byte >> 4];
+            out += kHex[byte & 0xF];
+        }
+    }
+    return out;
 }
 
 Result<Project> parseChecked(std::string_view text, std::string_view file) {

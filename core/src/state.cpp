@@ -23,7 +23,7 @@ std::string_view phaseLabel(Phase p) {
         case Phase::Liquid: return "liquid";
         case Phase::Vapor: return "vapour";
         case Phase::Supercritical: return "supercritical";
-        case Phase::SolidLiquid: return "melting";
+        case Phase::SolidLiquid: return "solid + liquid";
         case Phase::LiquidVapor: return "liquid + vapour";
         case Phase::SolidVapor: return "solid + vapour";
     }

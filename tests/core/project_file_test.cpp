@@ -823,3 +823,17 @@ TEST(ProjectFileNumbers, DimensionlessNumbersKeepTheirTypedCharacters) {
     ASSERT_TRUE(again.ok()) << again.error().text();
     EXPECT_EQ(writeProject(*again), out) << "same project, same bytes";
 }
+
+// A file that starts with the UTF-16 byte-order mark FF FE: the parser's
+// message quotes the byte it read, which must reach people escaped, not raw.
+TEST(ProjectFile, ParserMessageShowsStrayBytesEscaped) {
+    const std::string text = std::string("\xFF\xFE{\x00\"", 5);
+    auto r = heatchain::parseProject(text, "utf16.hchain");
+    ASSERT_FALSE(r.ok());
+    const std::string message = r.error().text();
+    EXPECT_NE(message.find("\\xFF"), std::string::npos) << message;
+    for (const char c : message) {
+        const auto byte = static_cast<unsigned char>(c);
+        EXPECT_FALSE(byte == 0xFF || byte == 0xFE || byte < 0x09) << "raw byte in: " << message;
+    }
+}
