@@ -17,6 +17,7 @@
 #include "heatchain/results_json.hpp"
 #include "heatchain/solver.hpp"
 #include "heatchain/sweep.hpp"
+#include "heatchain/uncertainty.hpp"
 #include "heatchain/version.hpp"
 
 namespace py = pybind11;
@@ -124,6 +125,22 @@ PYBIND11_MODULE(_core, m) {
         return cli::sweepToJson(spec, take(std::move(r))).dump();
     }, py::arg("project"), py::arg("step"), py::arg("input"), py::arg("from_"), py::arg("to"), py::arg("points"),
        py::arg("outputs"));
+
+    // The "uncertainty" object of compute --json --uncertainty, as JSON text.
+    m.def("uncertainty", [](const Project& p, const std::string& method, int samples, std::uint64_t seed,
+                            const std::string& contributionsOf) {
+        UncertaintyOptions options;
+        options.method = take(parseUncertaintyMethod(method));
+        options.samples = samples;
+        options.seed = seed;
+        options.contributionsOf = contributionsOf;
+        Result<UncertaintyResult> r = makeError("");
+        {
+            py::gil_scoped_release unlocked;
+            r = propagateUncertainty(p, options);
+        }
+        return uncertaintyJson(take(std::move(r))).dump();
+    }, py::arg("project"), py::arg("method"), py::arg("samples"), py::arg("seed"), py::arg("contributions_of"));
 
     m.def("state", [](const std::string& substance, const std::map<std::string, std::string>& properties,
                       const std::string& model) {

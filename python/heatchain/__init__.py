@@ -182,6 +182,15 @@ class Project:
             raise err
         return results
 
+    def uncertainty(self, method="linear", samples=10000, seed=1, contributions=None):
+        """Propagates the tolerances typed on the worksheet's quantities (and
+        the property model's, when the worksheet switches that on), as
+        `heatchain-cli compute --json --uncertainty METHOD [--samples N]
+        [--seed S] [--contributions OUTPUT]`: returns that JSON's
+        "uncertainty" object (method "linear" or "montecarlo")."""
+        text = _core.uncertainty(self._core, str(method), int(samples), int(seed), contributions or "")
+        return _json.loads(text)
+
     def sweep(self, step, input, from_, to, points=11, outputs=None):
         """Varies one input of one step (or of the start, step="start") linearly
         from `from_` to `to` over `points` points and solves at each, as

@@ -207,3 +207,31 @@ def test_sweep_errors_raise():
         p.sweep("no-such-step", "to.T", "115 degC", "135 degC", points=5)
     with pytest.raises(heatchain.Error):
         p.sweep("superheat", "to.T", "115 degC", "135 degC", points=1)
+
+
+def test_uncertainty_is_the_clis(tmp_path, boiler):
+    # Tolerances on the feed temperature and the pump's efficiency: the
+    # module's first-order and Monte Carlo answers are the CLI's, key for key.
+    boiler.set("start", "T", "48 degC ± 2 K")
+    boiler.set("feed-pump", "efficiency", "0.65 ± 0.03")
+    path = tmp_path / "toleranced.hchain"
+    boiler.save(path)
+    for args, kwargs in ((["linear"], {"method": "linear"}),
+                         (["montecarlo", "--samples", "400", "--seed", "7"],
+                          {"method": "montecarlo", "samples": 400, "seed": 7})):
+        expected = cli_json("compute", str(path), "--json", "--uncertainty", *args)["uncertainty"]
+        got = boiler.uncertainty(**kwargs)
+        assert got == expected
+
+
+def test_uncertainty_contributions_add_up_to_the_variance(boiler):
+    # First order (JCGM 100:2008, eq. 10): with independent inputs the squared
+    # contributions make up the whole variance, so the shares sum to one.
+    boiler.set("start", "T", "48 degC ± 2 K")
+    boiler.set("feed-pump", "efficiency", "0.65 ± 0.03")
+    u = boiler.uncertainty(contributions="steps.feed-pump.W")
+    assert u["contributions"]["output"] == "steps.feed-pump.W"
+    shares = [item["share"] for item in u["contributions"]["items"]]
+    assert abs(sum(shares) - 1.0) < 1e-9
+    # The pump's work hangs on its efficiency far more than on the feed temperature.
+    assert u["contributions"]["items"][0]["input"] == "steps.feed-pump.efficiency"
