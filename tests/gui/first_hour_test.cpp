@@ -31,6 +31,7 @@
 #include "heatchain_view/format.hpp"
 #include "ledger_model.hpp"
 #include "main_window.hpp"
+#include "messages_panel.hpp"
 #include "project_edit.hpp"
 
 using namespace heatchain;
@@ -323,6 +324,55 @@ private slots:
 
     // A step keeps its colour when another is inserted before it, moved or
     // removed; a new step never takes a neighbour's colour.
+    // Levels decided in core, shown as such: a cool step that condenses the
+    // stream without being asked warns; a boil step's sensible part and a
+    // throttle's temperature change are notes. The messages panel counts each
+    // at core's level, puts the warning on its step, and hides a level on request.
+    void messageLevels() {
+        constexpr const char* kLevelsSheet = R"({
+  "format": "heatchain-project", "version": 1, "meta": { "title": "levels" },
+  "system": "steady-flow", "model": "reference", "substance": "water",
+  "basis": { "massFlow": "1 kg/s" }, "start": { "T": "20 degC", "P": "5 barg" },
+  "steps": [
+    { "id": "warm", "kind": "heat", "to": { "T": "120 degC" }, "source": { "T": "200 degC" } },
+    { "id": "boil", "kind": "boil", "source": { "T": "200 degC" } },
+    { "id": "let-down", "kind": "throttle", "to": { "P": "1 barg" } },
+    { "id": "trim", "kind": "cool", "to": { "T": "30 degC" }, "sink": { "T": "20 degC" } }
+  ]
+})";
+        const SequenceResult r = solve(parse(kLevelsSheet));
+        QVERIFY(!r.firstError());
+        int warnings = int(r.warnings.size()), notes = int(r.notes.size());
+        for (const auto& s : r.steps) {
+            warnings += int(s.warnings.size());
+            notes += int(s.notes.size());
+        }
+        QVERIFY2(!r.steps[3].warnings.empty(), "cooling through the condensation line unasked must warn");
+        QVERIFY2(!r.steps[1].notes.empty(), "a boil step's sensible part is a note");
+        QVERIFY2(!r.steps[2].notes.empty(), "a throttle's temperature change is a note");
+        QVERIFY2(r.steps[1].warnings.empty(), "an ordinary boil step carries no warning");
+
+        MainWindow w;
+        w.setInteractive(false);
+        w.document()->reset(parse(kLevelsSheet));
+        auto* panel = w.messages();
+        panel->refresh();
+        QCOMPARE(panel->warningCount(), warnings);
+        QCOMPARE(panel->noteCount(), notes);
+        bool onTrim = false;
+        for (const QString& line : panel->visibleLines())
+            if (line.startsWith(QStringLiteral("warning|")) && line.contains(QStringLiteral("trim"))) onTrim = true;
+        QVERIFY(onTrim);
+        panel->setLevelShown(gui::MessagesPanel::Level::Note, false);
+        for (const QString& line : panel->visibleLines()) QVERIFY2(!line.startsWith(QStringLiteral("note|")), qPrintable(line));
+        QVERIFY(!panel->visibleLines().isEmpty());  // the warning stays
+        panel->setLevelShown(gui::MessagesPanel::Level::Note, true);
+        int shownNotes = 0;
+        for (const QString& line : panel->visibleLines())
+            if (line.startsWith(QStringLiteral("note|"))) ++shownNotes;
+        QCOMPARE(shownNotes, notes);
+    }
+
     void colourKeptOnInsert() {
         MainWindow w;
         w.setInteractive(false);
