@@ -130,10 +130,9 @@ public:
     void paint(QPainter* p, const QStyleOptionGraphicsItem*, QWidget*) override {
         p->setRenderHint(QPainter::Antialiasing, true);
         const QRectF r(0, 0, kCardW, kCardH);
-        QColor border(0xc4, 0xc9, 0xd0);
-        double bw = 1.0;
-        if (!error_.isEmpty()) { border = ink::error(); bw = 1.6; }
-        else if (!warnings_.isEmpty()) { border = ink::warning(); bw = 1.6; }
+        const CardEmphasis em = emphasis();
+        QColor border = em.border;
+        double bw = em.borderWidth;
         if (selected_) { border = ink::selection(); bw = 2.6; }
         p->setPen(Qt::NoPen);
         p->setBrush(QColor(0, 0, 0, 18));
@@ -163,7 +162,7 @@ public:
             p->setBrush(colour_);
             p->drawRoundedRect(QRectF(kCardW - 30, 12, 20, 8), 3, 3);
         }
-        if (!warnings_.isEmpty() && error_.isEmpty()) {
+        if (em.level == CardEmphasis::Level::Warning) {
             QPolygonF tri;
             tri << QPointF(kCardW - 44, 22) << QPointF(kCardW - 37, 9) << QPointF(kCardW - 30 - 0, 22);
             tri.translate(-6, 0);
@@ -196,25 +195,42 @@ public:
         p->setPen(ink::text());
         p->drawText(QRectF(x, 108, w, 18), Qt::AlignVCenter, fm.elidedText(line3_, Qt::ElideRight, w));
 
-        p->setFont(small);
-        if (!error_.isEmpty()) {
-            p->setPen(ink::error());
+        if (!em.line.isEmpty()) {
+            QFont lineFont = small;
+            lineFont.setBold(em.bold);
+            p->setFont(lineFont);
+            p->setPen(em.lineColour);
             p->drawText(QRectF(x, 126, w, 16), Qt::AlignVCenter,
-                        fmS.elidedText(QStringLiteral("✖ ") + error_, Qt::ElideRight, w));
-        } else if (!warnings_.isEmpty()) {
-            QFont boldSmall = small;
-            boldSmall.setBold(true);
-            p->setFont(boldSmall);
-            p->setPen(ink::warning().darker(140));
-            const QString more = warnings_.size() > 1 ? QStringLiteral(" (+%1)").arg(warnings_.size() - 1) : QString();
-            p->drawText(QRectF(x, 126, w, 16), Qt::AlignVCenter,
-                        QFontMetricsF(boldSmall).elidedText(QStringLiteral("⚠ ") + warnings_.front() + more, Qt::ElideRight, w));
-        } else if (!notes_.isEmpty()) {
-            // Notes are ordinary facts: quiet, one line, the rest in the tooltip.
-            p->setPen(ink::muted());
-            p->drawText(QRectF(x, 126, w, 16), Qt::AlignVCenter,
-                        fmS.elidedText(QStringLiteral("ⓘ ") + notes_.front(), Qt::ElideRight, w));
+                        QFontMetricsF(lineFont).elidedText(em.line, Qt::ElideRight, w));
         }
+    }
+
+    // How the card shows its messages, decided once for painting and tests:
+    // an error or a warning marks the border and takes the last line in
+    // bold; notes are ordinary facts, one quiet line, the rest in the tooltip.
+    CardEmphasis emphasis() const {
+        CardEmphasis e;
+        e.border = QColor(0xc4, 0xc9, 0xd0);
+        if (!error_.isEmpty()) {
+            e.level = CardEmphasis::Level::Error;
+            e.border = ink::error();
+            e.borderWidth = 1.6;
+            e.line = QStringLiteral("✖ ") + error_;
+            e.lineColour = ink::error();
+        } else if (!warnings_.isEmpty()) {
+            e.level = CardEmphasis::Level::Warning;
+            e.border = ink::warning();
+            e.borderWidth = 1.6;
+            e.line = QStringLiteral("⚠ ") + warnings_.front() +
+                     (warnings_.size() > 1 ? QStringLiteral(" (+%1)").arg(warnings_.size() - 1) : QString());
+            e.lineColour = ink::warning().darker(140);
+            e.bold = true;
+        } else if (!notes_.isEmpty()) {
+            e.level = CardEmphasis::Level::Note;
+            e.line = QStringLiteral("ⓘ ") + notes_.front();
+            e.lineColour = ink::muted();
+        }
+        return e;
     }
 
 protected:
@@ -453,6 +469,12 @@ void ChainView::updateSelection() {
     // No step selected: the Start card is what the step panel edits.
     startCard_->setSelectedCard(sel < 0);
     if (sel >= 0 && sel < int(cards_.size())) ensureVisible(cards_[std::size_t(sel)], 20, 20);
+}
+
+CardEmphasis ChainView::cardEmphasis(int index) const {
+    if (index == -1 && startCard_) return startCard_->emphasis();
+    if (index < 0 || index >= int(cards_.size())) return {};
+    return cards_[std::size_t(index)]->emphasis();
 }
 
 QColor ChainView::cardColour(int index) const {

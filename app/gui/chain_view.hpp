@@ -13,6 +13,17 @@
 namespace heatchain::gui {
 
 class StepCard;
+
+// What a card shows of its step's messages: warnings and errors mark the
+// border and take the card's last line in bold; a note takes it quietly.
+struct CardEmphasis {
+    enum class Level { None, Note, Warning, Error } level = Level::None;
+    QColor border;
+    double borderWidth = 1.0;
+    QString line;        // the card's last line, empty when there is nothing to say
+    QColor lineColour;
+    bool bold = false;
+};
 class ConnectorLayer;
 class InsertHandle;
 
@@ -31,6 +42,8 @@ public:
     // The colour a step keeps for its life (the document's).
     QColor stepColourOf(int index) const { return doc_->stepColour(index); }
     QColor cardColour(int index) const;
+    // How a card (−1: the Start card) shows its messages.
+    CardEmphasis cardEmphasis(int index) const;
     // Where a card dropped with its centre at `scenePos` goes (final index).
     int dropIndex(int from, QPointF scenePos) const;
 

@@ -29,6 +29,8 @@
 #include "heatchain/solver.hpp"
 #include "heatchain/units.hpp"
 #include "heatchain_view/format.hpp"
+#include "chain_view.hpp"
+#include "heatchain_view/palette.hpp"
 #include "ledger_model.hpp"
 #include "main_window.hpp"
 #include "messages_panel.hpp"
@@ -371,6 +373,30 @@ private slots:
         for (const QString& line : panel->visibleLines())
             if (line.startsWith(QStringLiteral("note|"))) ++shownNotes;
         QCOMPARE(shownNotes, notes);
+
+        // The cards: a warning marks the border in the warning colour and
+        // takes the last line in bold; a note takes it quietly and leaves the
+        // border as an ordinary card's.
+        using Emph = gui::CardEmphasis;
+        const Emph trim = w.chain()->cardEmphasis(3);
+        QCOMPARE(trim.level, Emph::Level::Warning);
+        QCOMPARE(trim.border, view::ink::warning());
+        QVERIFY(trim.bold);
+        QVERIFY2(trim.line.contains(QString::fromStdString(r.steps[3].warnings.front())), qPrintable(trim.line));
+        const Emph boil = w.chain()->cardEmphasis(1);
+        QCOMPARE(boil.level, Emph::Level::Note);
+        QVERIFY(!boil.bold);
+        QVERIFY(boil.border != view::ink::warning() && boil.border != view::ink::error());
+        QVERIFY(boil.borderWidth < trim.borderWidth);
+        QCOMPARE(boil.lineColour, view::ink::muted());
+        QVERIFY2(boil.line.contains(QString::fromStdString(r.steps[1].notes.front())), qPrintable(boil.line));
+        // A step that cannot compute: the error outranks everything else.
+        QVERIFY(w.quickAddStep(QStringLiteral("compress to 0.5 bar")));
+        const int bad = w.document()->selectedStep();
+        QVERIFY(bad >= 0);
+        const Emph failed = w.chain()->cardEmphasis(bad);
+        QCOMPARE(failed.level, Emph::Level::Error);
+        QCOMPARE(failed.border, view::ink::error());
     }
 
     void colourKeptOnInsert() {
