@@ -227,7 +227,8 @@ public:
             e.bold = true;
         } else if (!notes_.isEmpty()) {
             e.level = CardEmphasis::Level::Note;
-            e.line = QStringLiteral("ⓘ ") + notes_.front();
+            // U+2139, not a circled i: DejaVu Sans, the usual fallback, has it.
+            e.line = QStringLiteral("ℹ ") + notes_.front();
             e.lineColour = ink::muted();
         }
         return e;

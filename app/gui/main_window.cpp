@@ -10,6 +10,7 @@
 #include <QFileDialog>
 #include <QFileInfo>
 #include <QHeaderView>
+#include <QKeyEvent>
 #include <QMenuBar>
 #include <QMessageBox>
 #include <QScreen>
@@ -37,6 +38,24 @@
 #include "utilities_dialog.hpp"
 
 namespace heatchain::gui {
+
+namespace {
+// Text fields bind Ctrl+E to "end of line" on X11, so with the cursor in the
+// quick-add line (where it stays after adding a step) or in a step-panel
+// field, File ▸ Export ▸ Report never fired. The window's own shortcuts that
+// a text field would otherwise swallow are left to the window.
+class WindowShortcutsOverTextFields : public QObject {
+public:
+    using QObject::QObject;
+    bool eventFilter(QObject* watched, QEvent* e) override {
+        if (e->type() == QEvent::ShortcutOverride && watched->inherits("QLineEdit")) {
+            const auto* k = static_cast<QKeyEvent*>(e);
+            if (k->modifiers() == Qt::ControlModifier && k->key() == Qt::Key_E) return true;  // not accepted: the shortcut fires
+        }
+        return QObject::eventFilter(watched, e);
+    }
+};
+}  // namespace
 
 using namespace heatchain::view;
 
@@ -473,6 +492,7 @@ void MainWindow::buildActions() {
         quickAdd_->selectAll();
     });
     addAction(focusQuickAdd);
+    qApp->installEventFilter(new WindowShortcutsOverTextFields(this));
     connect(quickAdd_, &QLineEdit::returnPressed, this, [this] {
         if (quickAddStep(quickAdd_->text())) quickAdd_->clear();
     });
