@@ -1,5 +1,7 @@
 #include "project_edit.hpp"
 
+#include "heatchain/tolerance.hpp"
+
 #include <algorithm>
 #include <chrono>
 #include <cctype>
@@ -140,6 +142,13 @@ Result<Quantity> parseTypedQuantity(std::string_view text, Dimension d, const Pr
     std::string t(text);
     while (!t.empty() && std::isspace(static_cast<unsigned char>(t.back()))) t.pop_back();
     while (!t.empty() && std::isspace(static_cast<unsigned char>(t.front()))) t.erase(t.begin());
+    // A tolerance ("80 degC ± 2 K") stays in the text, as the file keeps it;
+    // core's reader of tolerances is the file reader's.
+    if (hasTolerance(t)) {
+        auto tv = parseToleranced(t, d, project.unitContext());
+        if (!tv) return tv.error();
+        return Quantity{t, tv->si};
+    }
     auto si = parseQuantity(t, d, project.unitContext());
     if (!si) return si.error();
     return Quantity{t, *si};
@@ -150,28 +159,39 @@ Result<Number> parseTypedNumber(std::string_view text, double min, double max,
     std::string t(text);
     while (!t.empty() && std::isspace(static_cast<unsigned char>(t.back()))) t.pop_back();
     while (!t.empty() && std::isspace(static_cast<unsigned char>(t.front()))) t.erase(t.begin());
-    // A fraction may be typed as a percentage ("50 %"); it is kept as the
-    // fraction it means (0.5), the way the file holds it.
-    bool percent = false;
-    if (max <= 1.0 && !t.empty() && t.back() == '%') {
-        percent = true;
-        t.pop_back();
-        while (!t.empty() && std::isspace(static_cast<unsigned char>(t.back()))) t.pop_back();
+    Number n;
+    if (hasTolerance(t)) {
+        // With a tolerance ("0.72 ± 0.03") the number is kept as typed, a
+        // string in the file, as the file reader keeps it.
+        auto tv = parseToleranced(t, Dimension::Dimensionless, {});
+        if (!tv) return makeError(std::string(what) + ": " + tv.error().message);
+        n = Number{Json(t), tv->si, {}};
+    } else {
+        // A fraction may be typed as a percentage ("50 %"); it is kept as the
+        // fraction it means (0.5), the way the file holds it.
+        bool percent = false;
+        if (max <= 1.0 && !t.empty() && t.back() == '%') {
+            percent = true;
+            t.pop_back();
+            while (!t.empty() && std::isspace(static_cast<unsigned char>(t.back()))) t.pop_back();
+        }
+        Json raw = Json::parse(t, nullptr, /*allow_exceptions=*/false);
+        if (raw.is_discarded() || !raw.is_number())
+            return makeError("\"" + std::string(text) + "\" is not a number; " + std::string(what) +
+                             (max <= 1.0 ? " is a plain number, a percentage or a number ± its tolerance"
+                                         : " is a plain number or a number ± its tolerance"));
+        if (percent) {
+            raw = Json::parse(plain(raw.get<double>() / 100.0));
+            t += " %";
+        }
+        n = Number{raw, raw.get<double>(), {}};
     }
-    Json raw = Json::parse(t, nullptr, /*allow_exceptions=*/false);
-    if (raw.is_discarded() || !raw.is_number())
-        return makeError("\"" + std::string(text) + "\" is not a number; " + std::string(what) +
-                         (max <= 1.0 ? " is a plain number or a percentage" : " is a plain number"));
-    if (percent) {
-        raw = Json::parse(plain(raw.get<double>() / 100.0));
-        t += " %";
-    }
-    const double v = raw.get<double>();
+    const double v = n.value;
     if (!std::isfinite(v) || v < min || v > max || (aboveMin && v == min))
         return makeError(std::string(what) + (aboveMin ? " must be above " + plain(min) + " and at most "
                                                        : " must lie between " + plain(min) + " and ") +
                          plain(max) + ", not " + t);
-    return Number{raw, v};
+    return n;
 }
 
 namespace {

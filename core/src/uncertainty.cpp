@@ -211,6 +211,11 @@ std::vector<OutputDef> outputDefs(const Project& p, const SequenceResult& nomina
     const Dimension dS = closed ? Dimension::Entropy : Dimension::EntropyRate;
     const Dimension dM = closed ? Dimension::Mass : Dimension::MassFlow;
     std::vector<OutputDef> d;
+    d.push_back({"start.s_J_per_kgK", Dimension::SpecificEntropy, false,
+                 [](const SequenceResult& r) -> std::optional<double> {
+                     if (r.startError) return std::nullopt;
+                     return r.start.s;
+                 }});
     for (std::size_t i = 0; i < nominal.steps.size(); ++i) {
         const std::string at = "steps." + nominal.steps[i].id + ".";
         auto step = [&](const char* key, Dimension dim, bool scales, double StepResult::*f) {
@@ -228,6 +233,18 @@ std::vector<OutputDef> outputDefs(const Project& p, const SequenceResult& nomina
                      }});
         step("Sgen", dS, true, &StepResult::Sgen);
         step("exergyDestroyed", dE, true, &StepResult::exergyDestroyed);
+        // Where the step ends on the T–s and T–Q charts, for their bands.
+        d.push_back({at + "end.s_J_per_kgK", Dimension::SpecificEntropy, false,
+                     [i](const SequenceResult& r) -> std::optional<double> {
+                         if (i >= r.steps.size() || !r.steps[i].computed) return std::nullopt;
+                         return r.steps[i].end.s;
+                     }});
+        d.push_back({at + "Qcumulative", dE, true, [i](const SequenceResult& r) -> std::optional<double> {
+                         if (i >= r.steps.size() || !r.steps[i].computed) return std::nullopt;
+                         double q = 0;
+                         for (std::size_t k = 0; k <= i; ++k) q += r.steps[k].Q;
+                         return q;
+                     }});
     }
     auto total = [&](const char* key, Dimension dim, double Totals::*f) {
         d.push_back({std::string("totals.") + key, dim, true,

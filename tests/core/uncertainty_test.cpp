@@ -268,3 +268,32 @@ TEST(Uncertainty, ModelUncertaintiesHaveSources) {
         EXPECT_FALSE(m->source.empty()) << model;
     }
 }
+
+// The charts' bands: the cumulative duty at a step's end carries the
+// correlation of the steps before it (a start-temperature error that raises
+// the first step's duty lowers nothing after a fixed target: u(Q1 + Q2) =
+// m·cp·u(T0), not the root-sum-square of the steps' own u), and the specific
+// entropy at the start and at each end follows s = s_ref + cp·ln(T/T_ref)
+// (constant cp, constant pressure): u(s) = cp·u(T)/T (JCGM 100:2008, eq. 10).
+TEST(Uncertainty, BandOutputsCarryTheCorrelationBetweenSteps) {
+    const Project p = load(project(kLiquid, "2 kg/s", R"({ "T": "20 degC ± 0.5 K", "P": "3 bar" })",
+                                   R"({ "id": "warm", "kind": "heat", "to": { "T": "50 degC" } },
+                                      { "id": "hot", "kind": "heat", "to": { "T": "80 degC ± 0.8 K" } })",
+                                   false));
+    const auto r = run(p, {});
+    const double m = 2, cp = 4000;
+    EXPECT_NEAR(out(r, "steps.warm.Qcumulative").u, m * cp * 0.5, 1e-9 * m * cp);
+    // Q1 + Q2 = m·cp·(T2 − T0): both tolerances, and the intermediate
+    // target's none.
+    const double uCum = m * cp * std::hypot(0.5, 0.8);
+    EXPECT_NEAR(out(r, "steps.hot.Qcumulative").u, uCum, 1e-9 * uCum);
+    EXPECT_NEAR(out(r, "steps.hot.Qcumulative").value, m * cp * 60, 1e-9 * m * cp * 60);
+    // The sensitivity is the central difference at ± u (uncertainty.hpp), so
+    // the expected u is cp·(ln(T + u) − ln(T − u))/2, which is cp·u/T to
+    // within u²/(3T²) ≈ 2e-6.
+    auto centred = [cp](double T, double u) { return cp * (std::log(T + u) - std::log(T - u)) / 2; };
+    EXPECT_NEAR(out(r, "start.s_J_per_kgK").u, centred(293.15, 0.5), 1e-9);
+    EXPECT_NEAR(out(r, "start.s_J_per_kgK").u, cp * 0.5 / 293.15, 2e-6 * cp * 0.5 / 293.15);
+    EXPECT_NEAR(out(r, "steps.warm.end.s_J_per_kgK").u, 0.0, 1e-9);
+    EXPECT_NEAR(out(r, "steps.hot.end.s_J_per_kgK").u, centred(353.15, 0.8), 1e-9);
+}
