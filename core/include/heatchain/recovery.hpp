@@ -1,0 +1,164 @@
+#pragma once
+// Heat recovery targets (pinch analysis): from the heating and cooling of
+// every steady-flow stream, the least hot and cold utility any exchanger
+// network could need at a chosen minimum temperature difference, where the
+// pinch is, the hot and cold composite curves and the grand composite curve.
+//
+// Method: the problem table of Linnhoff & Flower (1978), as set out in Kemp,
+// "Pinch Analysis and Process Integration", 2nd ed. (2007), ch. 2 and
+// appendix 3.9, applied to straight pieces of the solved T–Q curves instead
+// of streams of constant heat-capacity flow rate: hot pieces are shifted down
+// and cold pieces up by the stream's ΔTmin contribution (half the ΔTmin unless
+// the stream gives its own), heat is cascaded from the highest shifted
+// temperature down, and the largest deficit is the minimum hot utility.
+// A piece at one temperature (boiling or condensing of a pure substance)
+// enters as heat at a single shifted temperature.
+#include <optional>
+#include <span>
+#include <string>
+#include <vector>
+
+#include "heatchain/project.hpp"
+#include "heatchain/result.hpp"
+#include "heatchain/solver.hpp"
+
+namespace heatchain {
+
+// A straight piece of one stream's T–Q line: the material goes from Tfrom to
+// Tto while `duty` (W, > 0) flows out of it (hot) or into it (cold).
+struct HeatPiece {
+    std::string stream;              // stream id, for messages and exclusions
+    double Tfrom = 0, Tto = 0;       // K
+    double duty = 0;                 // W, > 0
+    bool hot = false;                // true: gives heat (is cooled)
+    std::optional<double> shift;     // K, the stream's ΔTmin contribution; none: ΔTmin / 2
+};
+
+struct CompositePoint {
+    double Q = 0;  // W
+    double T = 0;  // K (shifted for the grand composite curve)
+};
+
+// One row of the problem table: the interval between two shifted
+// temperatures (top > bottom; equal for heat exchanged at one temperature).
+struct ProblemTableRow {
+    double Ttop = 0, Tbottom = 0;  // K, shifted
+    double surplus = 0;            // W, heat the interval gives (> 0) or needs (< 0)
+    double cascadeBelow = 0;       // W, heat flowing down out of the interval with
+                                   // the minimum hot utility put in at the top
+};
+
+struct Targets {
+    double dTmin = 0;               // K
+    double hotUtilityMin = 0;       // W
+    double coldUtilityMin = 0;      // W
+    std::vector<double> pinchShifted;  // K, shifted temperatures where the cascade is zero
+    std::vector<double> pinchHot;      // K, hot-stream temperature at each pinch (+ ΔTmin/2)
+    std::vector<double> pinchCold;     // K, cold-stream temperature at each pinch (− ΔTmin/2)
+    // Composite curves, rising temperature; the hot one starts at Q = 0, the
+    // cold one at Q = coldUtilityMin, so the overlap is the recovered heat.
+    std::vector<CompositePoint> hotComposite, coldComposite;
+    // Grand composite: heat flowing down through each shifted temperature,
+    // rising temperature; its top is hotUtilityMin, its bottom coldUtilityMin.
+    std::vector<CompositePoint> grandComposite;
+    std::vector<ProblemTableRow> problemTable;
+    double hotDuty = 0, coldDuty = 0;  // W, all the heat hot pieces give and cold pieces take
+    double recovered() const { return hotDuty - coldUtilityMin; }  // W, exchanged between streams
+};
+
+// The problem table and composite curves. Pieces with zero duty are skipped.
+// Errors: a non-finite or negative duty or temperature, a negative ΔTmin or
+// contribution (the message names the stream).
+Result<Targets> pinchTargets(std::span<const HeatPiece> pieces, double dTmin);
+
+// A utility level placed against the grand composite curve.
+struct UtilityLevel {
+    std::string id;
+    bool hot = true;     // supplies heat (steam, hot oil) or takes it (cooling water, brine)
+    double T = 0;        // K, the temperature it exchanges at (for a sensible utility, its
+                         // outlet: conservative, it cannot serve anything past its outlet)
+    std::optional<double> shift;  // K; none: ΔTmin / 2
+};
+
+struct UtilityPlacement {
+    std::string id;
+    bool hot = true;
+    double T = 0, Tshifted = 0;  // K
+    double duty = 0;             // W this level can take over, cheaper levels first
+};
+
+struct UtilityPlan {
+    std::vector<UtilityPlacement> levels;  // in the order given
+    double hotUnmet = 0;   // W of the minimum hot utility no level is hot enough for
+    double coldUnmet = 0;  // W of the minimum cold utility no level is cold enough for
+};
+
+// Hot levels are filled from the coldest up (the cheapest first), cold
+// levels from the warmest down: each takes as much as the grand composite
+// curve allows at its shifted temperature (Kemp 2007, ch. 6, the placement
+// of multiple utilities).
+UtilityPlan placeUtilities(const Targets& targets, std::span<const UtilityLevel> levels);
+
+struct SweepPoint {
+    double dTmin = 0, hotUtilityMin = 0, coldUtilityMin = 0;  // K, W, W
+};
+// Targets at `count` ΔTmin values evenly from `from` to `to` (K).
+Result<std::vector<SweepPoint>> dTminSweep(std::span<const HeatPiece> pieces, double from, double to, int count);
+
+// ---- From solved streams ----------------------------------------------------
+
+// A solved stream as the targets see it.
+struct RecoveryStream {
+    std::string id;
+    const Project* project = nullptr;
+    const SequenceResult* result = nullptr;
+    std::optional<double> shift;  // K, the stream's dTminContribution
+};
+
+struct Excluded {
+    std::string stream;
+    std::string reason;
+};
+
+struct StreamPieces {
+    std::vector<HeatPiece> pieces;
+    std::vector<Excluded> excluded;
+    double hotNow = 0;   // W, heat the included streams take from utilities today
+    double coldNow = 0;  // W, heat they give to utilities today
+    double toleranceK = 0;
+    double largestErrorK = 0;  // the largest temperature error left, at the pieces' middles
+};
+
+// The default for how far a straight piece may stray from the solved curve.
+inline constexpr double kRecoveryToleranceK = 0.05;
+
+// Splits each heating and cooling step of every steady-flow stream into
+// straight pieces, halving a piece until the true temperature at its middle
+// (from the stream's model at the middle enthalpy) is within `toleranceK` of
+// the straight line. Compress, expand and throttle steps are left out (their
+// heat is not exchanged with other streams). Closed (batch) streams and
+// streams with a step that could not be computed are excluded, with the
+// reason.
+StreamPieces piecesFromStreams(std::span<const RecoveryStream> streams, double toleranceK = kRecoveryToleranceK);
+
+// Everything `compute --json` and `targets` report.
+struct Recovery {
+    Targets targets;
+    double hotUtilityNow = 0, coldUtilityNow = 0;  // W
+    std::vector<Excluded> excluded;
+    double toleranceK = 0, largestErrorK = 0;
+    UtilityPlan utilities;  // the project's utilities placed against the grand composite
+};
+
+// The project's utilities as levels: steam and fixed at their temperature,
+// sensible at their outlet; a utility that cannot be resolved is skipped.
+std::vector<UtilityLevel> utilityLevels(const Project& project);
+
+Result<Recovery> recoveryTargets(std::span<const RecoveryStream> streams, double dTmin,
+                                 std::span<const UtilityLevel> levels = {},
+                                 double toleranceK = kRecoveryToleranceK);
+
+// The fixed-key `recovery` object (project-format.md, "Additions, second round").
+Json recoveryToJson(const Recovery& r);
+
+}  // namespace heatchain

@@ -1,0 +1,156 @@
+// From solved streams to the straight pieces the targets work on, the
+// project's utilities as levels, and the `recovery` JSON object.
+#include <algorithm>
+#include <cmath>
+
+#include "heatchain/recovery.hpp"
+
+namespace heatchain {
+
+namespace {
+
+// Deepest halving of one sampled interval: 2^12 pieces between two curve
+// points is far beyond any curve the solver gives.
+constexpr int kMaxDepth = 12;
+
+struct Refiner {
+    const PropertyModel& model;
+    double tolerance;
+    double largestError = 0;
+
+    // Appends the end points of straight pieces from a (exclusive) to b
+    // (inclusive), halving where the true temperature at the middle is off
+    // the line by more than the tolerance. In steady flow with no work, the
+    // heat is m·Δh, so the middle in Q is the middle in h.
+    void refine(const CurvePoint& a, const CurvePoint& b, int depth, std::vector<CurvePoint>& out) {
+        const double hMid = 0.5 * (a.h + b.h), PMid = 0.5 * (a.P + b.P);
+        const double lineT = 0.5 * (a.T + b.T);
+        auto mid = model.stateP(PMid, Property::Enthalpy, hMid);
+        if (mid) {
+            const double error = std::abs(mid->T - lineT);
+            if (error > tolerance && depth < kMaxDepth) {
+                const CurvePoint m{mid->T, mid->s, 0.5 * (a.Q + b.Q), PMid, hMid};
+                refine(a, m, depth + 1, out);
+                refine(m, b, depth + 1, out);
+                return;
+            }
+            largestError = std::max(largestError, error);
+        }
+        out.push_back(b);
+    }
+};
+
+bool exchangesWithOthers(StepKind k) { return !isPressureChangeKind(k); }
+
+}  // namespace
+
+StreamPieces piecesFromStreams(std::span<const RecoveryStream> streams, double toleranceK) {
+    StreamPieces out;
+    out.toleranceK = toleranceK;
+    for (const RecoveryStream& s : streams) {
+        if (!s.project || !s.result) {
+            out.excluded.push_back({s.id, "the stream has not been solved"});
+            continue;
+        }
+        if (s.project->system == SystemKind::Closed) {
+            out.excluded.push_back({s.id, "a closed (batch) stream has no steady heat rate to set against the "
+                                          "others; it is left out of the targets"});
+            continue;
+        }
+        if (const Error* e = s.result->firstError()) {
+            out.excluded.push_back({s.id, "not every step could be computed (" + e->text() + ")"});
+            continue;
+        }
+        if (!s.result->model) {
+            out.excluded.push_back({s.id, "the stream has no property model"});
+            continue;
+        }
+        Refiner refiner{*s.result->model, toleranceK};
+        for (std::size_t i = 0; i < s.result->steps.size() && i < s.project->steps.size(); ++i) {
+            const StepResult& step = s.result->steps[i];
+            if (!exchangesWithOthers(step.kind)) continue;
+            std::vector<CurvePoint> line;
+            for (const SegmentResult& seg : step.segments) {
+                if (seg.curve.empty()) continue;
+                if (line.empty()) line.push_back(seg.curve.front());
+                for (std::size_t k = 1; k < seg.curve.size(); ++k)
+                    refiner.refine(line.back(), seg.curve[k], 0, line);
+            }
+            for (std::size_t k = 1; k < line.size(); ++k) {
+                const double dQ = line[k].Q - line[k - 1].Q;
+                if (dQ == 0) continue;
+                out.pieces.push_back({s.id, line[k - 1].T, line[k].T, std::abs(dQ), dQ < 0, s.shift});
+                (dQ > 0 ? out.hotNow : out.coldNow) += std::abs(dQ);
+            }
+        }
+        out.largestErrorK = std::max(out.largestErrorK, refiner.largestError);
+    }
+    return out;
+}
+
+std::vector<UtilityLevel> utilityLevels(const Project& project) {
+    std::vector<UtilityLevel> out;
+    for (const Utility& u : project.utilities) {
+        auto profile = resolveUtility(u, project.displayUnits, project.unitContext());
+        if (!profile) continue;
+        bool asSource = false, asSink = false;
+        for (const Step& s : project.steps) {
+            if (s.source && s.source->utility == u.id) asSource = true;
+            if (s.sink && s.sink->utility == u.id) asSink = true;
+        }
+        UtilityLevel level;
+        level.id = u.id;
+        switch (u.kind) {
+            case UtilityKind::Steam: level.hot = asSource || !asSink; break;
+            case UtilityKind::Sensible: level.hot = profile->Tin > profile->Tout; break;
+            case UtilityKind::Fixed:
+                level.hot = asSource != asSink ? asSource : profile->Tin > project.surroundingsT.si;
+                break;
+        }
+        level.T = profile->Tout;
+        out.push_back(level);
+    }
+    return out;
+}
+
+Result<Recovery> recoveryTargets(std::span<const RecoveryStream> streams, double dTmin,
+                                 std::span<const UtilityLevel> levels, double toleranceK) {
+    StreamPieces pieces = piecesFromStreams(streams, toleranceK);
+    auto targets = pinchTargets(pieces.pieces, dTmin);
+    if (!targets) return targets.error();
+    Recovery r;
+    r.targets = std::move(*targets);
+    r.hotUtilityNow = pieces.hotNow;
+    r.coldUtilityNow = pieces.coldNow;
+    r.excluded = std::move(pieces.excluded);
+    r.toleranceK = pieces.toleranceK;
+    r.largestErrorK = pieces.largestErrorK;
+    r.utilities = placeUtilities(r.targets, levels);
+    return r;
+}
+
+Json recoveryToJson(const Recovery& r) {
+    const Targets& t = r.targets;
+    auto curve = [](const std::vector<CompositePoint>& points, const char* tKey) {
+        Json list = Json::array();
+        for (const CompositePoint& p : points) list.push_back(Json{{"Q_W", p.Q}, {tKey, p.T}});
+        return list;
+    };
+    Json j = Json::object();
+    j["dTmin_K"] = t.dTmin;
+    j["hotUtilityMin_W"] = t.hotUtilityMin;
+    j["coldUtilityMin_W"] = t.coldUtilityMin;
+    j["pinchHot_K"] = t.pinchHot;
+    j["pinchCold_K"] = t.pinchCold;
+    j["hotUtilityNow_W"] = r.hotUtilityNow;
+    j["coldUtilityNow_W"] = r.coldUtilityNow;
+    j["hotComposite"] = curve(t.hotComposite, "T_K");
+    j["coldComposite"] = curve(t.coldComposite, "T_K");
+    j["grandComposite"] = curve(t.grandComposite, "Tshifted_K");
+    Json excluded = Json::array();
+    for (const Excluded& e : r.excluded) excluded.push_back(Json{{"stream", e.stream}, {"reason", e.reason}});
+    j["excluded"] = std::move(excluded);
+    return j;
+}
+
+}  // namespace heatchain
