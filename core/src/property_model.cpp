@@ -216,68 +216,72 @@ std::optional<std::pair<double, double>> PropertyModel::triplePoint() const {
     return std::make_pair(t->T, t->P);
 }
 
-Result<State> PropertyModel::stateP(double P, Property which, double value) const {
-    if (!(P > 0) || !std::isfinite(P)) return makeError("pressure must be positive, got " + fmt(P) + " Pa");
-    if (!std::isfinite(value)) return makeError(std::string(propertyName(which)) + " is not a finite number");
-
-    // Walk the isobar from the lowest temperature upward: single-phase spans
-    // separated by the phase changes the isobar crosses. Along an isobar h, s
-    // and u rise with T; v mostly does (the liquid-water density maximum is
-    // handled because each span is searched by bracketing, not by slope).
-    const auto tr = transitionsAt(P);
-    double Tlo = minTemperature();
-    auto evalPhase = [&](Phase ph, double T) -> std::optional<State> {
-        auto st = phaseState(ph, T, P);
-        if (!st) return std::nullopt;
-        return *st;
-    };
+Result<std::optional<State>> PropertyModel::solveOnIsobarSpan(const IsobarSpan& span, Property which,
+                                                              double value) const {
+    using Found = std::optional<State>;
+    const double P = span.P;
+    // Sample the span at its ends (nudged inside) and solve by Brent.
+    const double ea = span.Ta + 1e-9 * std::max(1.0, span.Ta);
+    const double eb = span.Tb - 1e-9 * std::max(1.0, span.Tb);
+    if (!(eb > ea)) return Found{};
     auto spanPhase = [&](double T) -> std::optional<Phase> {
         auto ph = stablePhase(T, P);
         if (!ph) return std::nullopt;
         return *ph;
     };
-    auto solveSpan = [&](double a, double b) -> std::optional<State> {
-        // Sample the span at its ends (nudged inside) and solve by Brent.
-        const double ea = a + 1e-9 * std::max(1.0, a);
-        const double eb = b - 1e-9 * std::max(1.0, b);
-        if (!(eb > ea)) return std::nullopt;
-        auto pa = spanPhase(0.5 * (ea + eb));
-        if (!pa) return std::nullopt;
-        // For a span without a phase change inside it the phase is fixed, except
-        // above the critical pressure where liquid turns supercritical smoothly.
-        // When the phase at both ends is the middle's, the span holds one
-        // phase and the root search evaluates it directly: asking the model
-        // for the stable phase at every iterate re-solves the phase-change
-        // line each time (the simple models find it by Newton on g), which
-        // was most of the cost of an inversion. Otherwise (liquid turning
-        // supercritical) the phase is asked at every temperature.
-        const auto phaseA = spanPhase(ea), phaseB = spanPhase(eb);
-        const bool onePhase = phaseA && phaseB && *phaseA == *pa && *phaseB == *pa;
-        auto stateAt = [&](double T) -> std::optional<State> {
-            if (onePhase) return evalPhase(*pa, T);
-            auto ph = spanPhase(T);
-            return evalPhase(ph ? *ph : *pa, T);
-        };
-        auto sa = stateAt(ea);
-        auto sb = stateAt(eb);
-        if (!sa || !sb) return std::nullopt;
-        const double fa = propertyOf(*sa, which) - value;
-        const double fb = propertyOf(*sb, which) - value;
-        if ((fa > 0) == (fb > 0) && fa != 0 && fb != 0) return std::nullopt;
-        auto f = [&](double T) {
-            auto s = stateAt(T);
-            return s ? propertyOf(*s, which) - value : std::numeric_limits<double>::quiet_NaN();
-        };
-        auto T = detail::brent(f, ea, eb, fa, fb, {1e-13, 1e-10, 200});
-        if (!T) return std::nullopt;
-        return stateAt(*T);
+    auto evalPhase = [&](Phase ph, double T) -> std::optional<State> {
+        auto st = phaseState(ph, T, P);
+        if (!st) return std::nullopt;
+        return *st;
     };
+    auto pa = spanPhase(0.5 * (ea + eb));
+    if (!pa) return Found{};
+    // For a span without a phase change inside it the phase is fixed, except
+    // above the critical pressure where liquid turns supercritical smoothly.
+    // When the phase at both ends is the middle's, the span holds one phase
+    // and the root search evaluates it directly: asking the model for the
+    // stable phase at every iterate re-solves the phase-change line each
+    // time (the simple models find it by Newton on g), which was most of the
+    // cost of an inversion. Otherwise (liquid turning supercritical) the
+    // phase is asked at every temperature.
+    const auto phaseA = spanPhase(ea), phaseB = spanPhase(eb);
+    const bool onePhase = phaseA && phaseB && *phaseA == *pa && *phaseB == *pa;
+    auto stateAt = [&](double T) -> std::optional<State> {
+        if (onePhase) return evalPhase(*pa, T);
+        auto ph = spanPhase(T);
+        return evalPhase(ph ? *ph : *pa, T);
+    };
+    auto sa = stateAt(ea);
+    auto sb = stateAt(eb);
+    if (!sa || !sb) return Found{};
+    const double fa = propertyOf(*sa, which) - value;
+    const double fb = propertyOf(*sb, which) - value;
+    if ((fa > 0) == (fb > 0) && fa != 0 && fb != 0) return Found{};
+    auto f = [&](double T) {
+        auto s = stateAt(T);
+        return s ? propertyOf(*s, which) - value : std::numeric_limits<double>::quiet_NaN();
+    };
+    auto T = detail::brent(f, ea, eb, fa, fb, {1e-13, 1e-10, 200});
+    if (!T) return Found{};
+    return stateAt(*T);
+}
 
+Result<State> PropertyModel::stateP(double P, Property which, double value) const {
+    if (!(P > 0) || !std::isfinite(P)) return makeError("pressure must be positive, got " + fmt(P) + " Pa");
+    if (!std::isfinite(value)) return makeError(std::string(propertyName(which)) + " is not a finite number");
+
+    // Walk the isobar from the lowest temperature upward: single-phase spans
+    // (solved by the model's hook) separated by the phase changes the isobar
+    // crosses (the lever rule between their two ends). Along an isobar h, s
+    // and u rise with T; v mostly does (the liquid-water density maximum is
+    // handled because each span is searched by bracketing, not by slope).
+    const auto tr = transitionsAt(P);
+    double Tlo = minTemperature();
     for (int i = 0; i <= tr.count; ++i) {
         const double Thi = i < tr.count ? tr.entries[i].T : maxTemperature();
-        if (Thi > Tlo) {
-            if (auto st = solveSpan(Tlo, Thi)) return *st;
-        }
+        auto st = solveOnIsobarSpan(IsobarSpan{P, Tlo, Thi, i, &tr}, which, value);
+        if (!st) return st.error();
+        if (*st) return **st;
         if (i == tr.count) break;
         const auto t = tr.entries[i].kind;
         auto lo = phaseState(lowerPhase(t), tr.entries[i].T, P);

@@ -8,6 +8,8 @@
 #include <array>
 #include <functional>
 #include <memory>
+#include <optional>
+#include <utility>
 #include <string>
 #include <string_view>
 
@@ -101,6 +103,25 @@ public:
 protected:
     // Value of `which` in state s.
     static double propertyOf(const State& s, Property which);
+
+    // One single-phase span [Ta, Tb] of the isobar at P: the `index`-th of
+    // the transitions->count + 1 spans between the phase changes the isobar
+    // crosses (transitionsAt), in rising temperature.
+    struct IsobarSpan {
+        double P = 0, Ta = 0, Tb = 0;
+        int index = 0;
+        const TransitionsAtPressure* transitions = nullptr;
+        bool first() const { return index == 0; }
+        bool last() const { return index == transitions->count; }
+    };
+    // The isobar walk's per-model hook (stateP walks the spans and the phase
+    // changes between them; this solves one span): the state in the span
+    // whose `which` equals `value`, nullopt when the span does not hold it
+    // (the walk goes on), or an error that ends the walk. The default
+    // brackets the span by its ends and solves by Brent, asking the model
+    // for the stable phase where the span's phase is not one throughout.
+    virtual Result<std::optional<State>> solveOnIsobarSpan(const IsobarSpan& span, Property which,
+                                                           double value) const;
 
     // The temperature on one phase's isobar where `which` equals `value`, by
     // a safeguarded Newton on T: `at(T)` gives the state, [Ta, Tb] holds the

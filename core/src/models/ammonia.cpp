@@ -15,12 +15,19 @@
 #include <string>
 
 #include "models/ammonia_helmholtz.hpp"
+#include "models/ammonia_saturation.hpp"
+#include "models/fluid_with_solid.hpp"
 
 namespace heatchain {
 
 namespace {
 
 namespace eq = detail::nh3;
+using eq::Branch;
+using eq::kDeltaMax;
+using eq::Sat;
+using eq::ancillary;
+using eq::Ancillary;
 
 std::string num(double v) {
     char buf[32];
@@ -43,224 +50,6 @@ constexpr double kPmaxValid = 1000e6;
 // WarnAboveTemperatureRange); the library's ideal-gas cp of ammonia reaches
 // 1000 K too, so both fluid models cover the same span.
 constexpr double kTmaxSolver = 1000.0;
-// Above this distance from the melting anchor pressure the vertical melting
-// line is flagged (the real-fluid model uses the same figure).
-constexpr double kMeltingFlagPressure = 5e6;
-// Largest reduced density searched (delta = 6 is 1350 kg/m3, beyond the
-// liquid at 196 K and 1000 MPa).
-constexpr double kDeltaMax = 6.0;
-
-// ---------------------------------------------------------------- density roots
-
-enum class Branch { Vapour, Liquid, Single };
-
-// Reduced density delta with reduced pressure J(delta) = pi on one branch,
-// by Newton kept inside a bracket [lo, hi]. The branch decides which side a
-// point of the unstable region (dJ/ddelta <= 0) belongs to: for the vapour
-// root it bounds from above, for the liquid root from below. Bounded; returns
-// nullopt when the bracket closes on a spinodal (no root on that branch).
-std::optional<double> solveDelta(const eq::TauPowers& tp, double pi, Branch b, double lo, double hi, double start) {
-    double d = std::clamp(start, lo, hi);
-    if (!(d > lo && d < hi)) d = 0.5 * (lo + hi);
-    for (int it = 0; it < 300; ++it) {
-        const eq::Residual r = eq::residual(d, tp);
-        const double J = eq::reducedPressure(d, r);
-        const double dJ = eq::reducedPressureSlope(d, r);
-        const double f = J - pi;
-        double next;
-        if (!(dJ > 0)) {
-            if (b == Branch::Liquid) lo = d; else hi = d;
-            next = 0.5 * (lo + hi);
-        } else {
-            if (f == 0) return d;
-            if (f < 0) lo = d; else hi = d;
-            next = d - f / dJ;
-            if (std::abs(next - d) <= 1e-15 * d) return next;
-            if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-        }
-        if (hi - lo <= 4e-16 * hi) {
-            // The bracket closed. It closed on a root only if the pressure
-            // matches there; otherwise on a spinodal.
-            if (dJ > 0 && std::abs(f) <= 1e-12 * pi) return d;
-            return std::nullopt;
-        }
-        d = next;
-    }
-    return std::nullopt;
-}
-
-// ---------------------------------------------------------------- saturation
-
-struct Sat {
-    double P = 0;                 // Pa
-    double dl = 0, dv = 0;        // reduced densities
-};
-
-// Saturation at tau by Newton on the reduced pressure pi with equal Gibbs
-// energies: d(g/RT)/dpi = 1/delta at fixed T, so the difference's slope is
-// 1/dv - 1/dl. Each pressure gets the two roots on either side of
-// `divider`, a reduced density inside the unstable region. Robust (a missing
-// root moves the pressure bracket) but slower than satNewton below; used to
-// build the ancillary table and as the fallback.
-std::optional<Sat> satByPressure(double T, double divider, double piStart, double dlStart, double dvStart) {
-    const double tau = eq::Tc / T;
-    const eq::TauPowers tp = eq::tauPowers(tau);
-    double lo = 0, hi = std::numeric_limits<double>::infinity();
-    double pi = piStart, dl = dlStart, dv = dvStart;
-    for (int it = 0; it < 200; ++it) {
-        auto v = solveDelta(tp, pi, Branch::Vapour, 0.0, divider, dv);
-        auto l = solveDelta(tp, pi, Branch::Liquid, divider, kDeltaMax, dl);
-        double next;
-        if (!v) {
-            hi = pi;  // above the vapour spinodal
-            next = std::isfinite(hi) ? 0.5 * (lo + hi) : 0.5 * pi;
-        } else if (!l) {
-            lo = pi;  // below the liquid spinodal
-            next = std::isfinite(hi) ? 0.5 * (lo + hi) : 2.0 * pi;
-        } else {
-            dv = *v;
-            dl = *l;
-            const eq::Residual rv = eq::residual(dv, tp), rl = eq::residual(dl, tp);
-            const double dg = eq::reducedGibbsDensityPart(dv, std::log(dv), rv) -
-                              eq::reducedGibbsDensityPart(dl, std::log(dl), rl);
-            if (dg > 0) hi = pi; else lo = pi;
-            const double slope = 1.0 / dv - 1.0 / dl;
-            next = pi - dg / slope;
-            if (std::abs(next - pi) <= 1e-14 * pi) return Sat{next * eq::rhoc * eq::R * T, dl, dv};
-            if (!(next > lo && next < hi)) next = std::isfinite(hi) ? 0.5 * (lo + hi) : 2.0 * pi;
-        }
-        if (std::isfinite(hi) && hi - lo <= 1e-15 * hi) {
-            if (v && l) return Sat{pi * eq::rhoc * eq::R * T, dl, dv};
-            return std::nullopt;
-        }
-        pi = next;
-    }
-    return std::nullopt;
-}
-
-// Saturation at T by Newton on the two reduced densities (dl, dv) with
-// equal reduced pressures J and equal density parts K of g/RT (the method of
-// Akasaka, J. Therm. Sci. Technol. 3 (2008) 442–451). dK/ddelta = J'/delta.
-std::optional<Sat> satNewton(double T, double dl, double dv) {
-    const double tau = eq::Tc / T;
-    const eq::TauPowers tp = eq::tauPowers(tau);
-    eq::Residual rl = eq::residual(dl, tp), rv = eq::residual(dv, tp);
-    for (int it = 0; it < 40; ++it) {
-        const double Jl = eq::reducedPressure(dl, rl), Jv = eq::reducedPressure(dv, rv);
-        const double Kl = eq::reducedGibbsDensityPart(dl, std::log(dl), rl);
-        const double Kv = eq::reducedGibbsDensityPart(dv, std::log(dv), rv);
-        const double Jdl = eq::reducedPressureSlope(dl, rl), Jdv = eq::reducedPressureSlope(dv, rv);
-        if (!(Jdl > 0 && Jdv > 0)) return std::nullopt;
-        const double F1 = Jv - Jl, F2 = Kv - Kl;
-        // Jacobian rows (d/d dl, d/d dv): F1: (-Jdl, Jdv); F2: (-Jdl/dl, Jdv/dv).
-        const double det = Jdl * Jdv * (1.0 / dl - 1.0 / dv);
-        if (!(std::abs(det) > 0)) return std::nullopt;
-        // Solve [-Jdl Jdv; -Jdl/dl Jdv/dv] [x; y] = -[F1; F2].
-        const double x = (-F1 * Jdv / dv + F2 * Jdv) / det;
-        const double y = (-Jdl * (-F2) - (-Jdl / dl) * (-F1)) / det;
-        double lam = 1.0;
-        double nl = dl + x, nv = dv + y;
-        for (int k = 0; k < 30 && !(nl > nv && nv > 0 && nl < kDeltaMax); ++k) {
-            lam *= 0.5;
-            nl = dl + lam * x;
-            nv = dv + lam * y;
-        }
-        if (!(nl > nv && nv > 0)) return std::nullopt;
-        const bool done = std::abs(nl - dl) <= 1e-13 * dl && std::abs(nv - dv) <= 1e-13 * dv;
-        dl = nl;
-        dv = nv;
-        rl = eq::residual(dl, tp);
-        rv = eq::residual(dv, tp);
-        if (done) {
-            const double J = eq::reducedPressure(dv, rv);
-            return Sat{J * eq::rhoc * eq::R * T, dl, dv};
-        }
-    }
-    return std::nullopt;
-}
-
-// Ancillary saturation table made here from the equation itself (not a
-// published fit): ln P, delta_l and delta_v at nodes uniform in
-// x = (1 - T/Tc)^(1/3), which crowds them towards the critical point where
-// the densities change fastest, from 185 K up. Linear interpolation gives
-// starting guesses good to about 1e-4 (checked in
-// tests/core/ammonia_model_test.cpp); every answer is then solved exactly.
-struct Ancillary {
-    static constexpr int N = 160;
-    static constexpr double Tlow = 185.0;
-    std::array<double, N> x{}, T{}, lnP{}, dl{}, dv{};
-    bool ok = false;
-
-    static double xOf(double T) { return std::cbrt(std::max(0.0, 1.0 - T / eq::Tc)); }
-
-    // Interpolation position for T: index i and weight w between nodes i, i+1.
-    // Nodes run from high x (low T) to low x (near Tc).
-    void locate(double Tq, int& i, double& w) const {
-        const double xq = xOf(Tq);
-        const double x0 = x[0], xn = x[N - 1];
-        double pos = (x0 - xq) / (x0 - xn) * (N - 1);
-        pos = std::clamp(pos, 0.0, double(N - 1) - 1e-9);
-        i = int(pos);
-        w = pos - i;
-    }
-    double lnPAt(double Tq) const {
-        int i; double w; locate(Tq, i, w);
-        return (1 - w) * lnP[i] + w * lnP[i + 1];
-    }
-    double dlAt(double Tq) const {
-        int i; double w; locate(Tq, i, w);
-        return (1 - w) * dl[i] + w * dl[i + 1];
-    }
-    double dvAt(double Tq) const {
-        int i; double w; locate(Tq, i, w);
-        return std::exp((1 - w) * std::log(dv[i]) + w * std::log(dv[i + 1]));
-    }
-    // Inverse: temperature where the table's ln P equals lnq (ln P rises with T).
-    double TAt(double lnq) const {
-        if (lnq <= lnP[0]) return T[0];
-        if (lnq >= lnP[N - 1]) return T[N - 1];
-        int a = 0, b = N - 1;
-        while (b - a > 1) {
-            const int m = (a + b) / 2;
-            if (lnP[m] <= lnq) a = m; else b = m;
-        }
-        const double w = (lnq - lnP[a]) / (lnP[b] - lnP[a]);
-        return (1 - w) * T[a] + w * T[b];
-    }
-};
-
-const Ancillary& ancillary() {
-    static const Ancillary table = [] {
-        Ancillary a;
-        const double x0 = Ancillary::xOf(Ancillary::Tlow);
-        const double xn = Ancillary::xOf(eq::Tc - 0.01);  // stop short of the merging densities
-        // Continuation from the cold end, where the liquid is near delta = 3.2
-        // and the vapour nearly ideal; each node starts from the last one and
-        // splits its two roots at the previous mean density (inside the
-        // unstable region).
-        double piPrev = 0, dlPrev = 3.2, dvPrev = 0;
-        for (int k = 0; k < Ancillary::N; ++k) {
-            const double x = x0 + (xn - x0) * k / (Ancillary::N - 1);
-            const double T = eq::Tc * (1.0 - x * x * x);
-            const double divider = k == 0 ? 1.0 : 0.5 * (dlPrev + dvPrev);
-            double pi0 = piPrev > 0 ? piPrev : 1e-3, dv0 = dvPrev > 0 ? dvPrev : 1e-3;
-            auto s = satByPressure(T, divider, pi0, dlPrev, dv0);
-            if (!s) return a;  // a.ok stays false; the factory reports it
-            a.x[k] = x;
-            a.T[k] = T;
-            a.lnP[k] = std::log(s->P);
-            a.dl[k] = s->dl;
-            a.dv[k] = s->dv;
-            piPrev = s->P / (eq::rhoc * eq::R * T);
-            dlPrev = s->dl;
-            dvPrev = s->dv;
-        }
-        a.ok = true;
-        return a;
-    }();
-    return table;
-}
-
 // ---------------------------------------------------------------- the model
 
 // A state found from (T, P) reports the P asked for (the density root
@@ -303,7 +92,7 @@ Fluid fluidAt(double T, double delta) {
     return o;
 }
 
-class AmmoniaModel final : public PropertyModel {
+class AmmoniaModel final : public detail::FluidWithSolidModel {
 public:
     explicit AmmoniaModel(Substance s) : sub_(std::move(s)) {}
     Status init();
@@ -315,27 +104,14 @@ public:
     std::string sourceText() const override;
 
     Result<State> phaseState(Phase phase, double T, double P) const override;
-    Result<Phase> stablePhase(double T, double P) const override;
-    Result<double> transitionTemperature(Transition t, double P) const override;
-    Result<double> transitionPressure(Transition t, double T) const override;
-
-    Result<State> stateP(double P, Property which, double value) const override;
     Result<State> stateTV(double T, double v) const override;
-    TransitionsAtPressure transitionsAt(double P) const override;
 
-    std::optional<std::pair<double, double>> criticalPoint() const override { return std::make_pair(eq::Tc, Pc_); }
-    std::optional<std::pair<double, double>> triplePoint() const override { return std::make_pair(Ttp_, Ptp_); }
-
-    double minTemperature() const override { return Tmin_; }
     double maxTemperature() const override { return kTmaxSolver; }
     double maxPressure() const override { return kPmaxValid; }
 
 private:
     // Saturation at T (Ttp_ <= T <= Tc): pressure and both reduced densities.
     Result<Sat> saturation(double T) const;
-    Result<double> boilingTemperature(double P) const;
-    Result<double> sublimationPressure(double T) const;
-    Result<double> sublimationTemperature(double P) const;
     // Reduced density of a branch at (T, P); an error naming the branch when
     // it has no root there.
     Result<double> density(Branch b, double T, double P) const;
@@ -345,23 +121,17 @@ private:
 
     State fluidState(double T, double delta, Phase label, std::string_view src, std::uint32_t warn) const;
     std::uint32_t rangeWarnings(double T, double P) const;
-    Result<State> solidState(double T, double P) const;
-    struct GibbsV {
-        double g, v, h;
-    };
-    std::optional<GibbsV> vapourGibbs(double T, double P) const;
-    Result<GibbsV> solidGibbs(double T, double P) const;
-    Result<State> solveInPhase(Phase ph, double P, Property which, double value, double Ta, double Tb,
-                               const State& sa, const State& sb) const;
+
+    // The hooks of FluidWithSolidModel.
+    Result<MeltingLiquid> meltingLiquid(double P) const override;
+    std::optional<GibbsV> vapourGibbs(double T, double P) const override;
+    Result<Phase> subcriticalFluidPhase(double T, double P) const override;
+    Result<double> boilingTemperature(double P) const override;
+    Result<double> boilingPressure(double T) const override;
+    std::string_view modelLabel() const override { return "ammonia reference model"; }
 
     Substance sub_;
-    double Pc_ = 0;            // p(Tc, rho_c) of the equation
     double hOff_ = 0, sOff_ = 0;
-    bool hasSolid_ = false;
-    HeatCapacity cpS_;
-    double Tm_ = 0, Pm_ = 0, dhFus_ = 0;
-    double Ttp_ = 0, Ptp_ = 0;  // model triple point: (Tm, Psat(Tm)), or the equation's
-    double Tmin_ = 0;
     double TlowValid_ = 0;      // lowest temperature without a range flag
 };
 
@@ -382,13 +152,13 @@ Result<double> AmmoniaModel::density(Branch b, double T, double P) const {
     if (b == Branch::Single || T >= eq::Tc) {
         // One monotonic isotherm. Start from the gas or, at high pressure, from a dense guess.
         const double start = pi < 0.5 ? idealStart() : std::min(3.0, 1.0 + std::log1p(pi));
-        d = solveDelta(tp, pi, Branch::Liquid, 0.0, kDeltaMax, start);
+        d = eq::solveDelta(tp, pi, Branch::Liquid, 0.0, kDeltaMax, start);
     } else {
         const Ancillary& a = ancillary();
         const double dl = a.dlAt(T), dv = a.dvAt(T);
         const double divider = 0.5 * (dl + dv);
-        if (b == Branch::Vapour) d = solveDelta(tp, pi, b, 0.0, divider, std::min(idealStart(), 0.999 * divider));
-        else d = solveDelta(tp, pi, b, divider, kDeltaMax, dl);
+        if (b == Branch::Vapour) d = eq::solveDelta(tp, pi, b, 0.0, divider, std::min(idealStart(), 0.999 * divider));
+        else d = eq::solveDelta(tp, pi, b, divider, kDeltaMax, dl);
     }
     if (!d)
         return makeError(std::string(b == Branch::Vapour ? "no vapour" : b == Branch::Liquid ? "no liquid" : "no fluid") +
@@ -475,42 +245,15 @@ Result<State> AmmoniaModel::phaseState(Phase phase, double T, double P) const {
 }
 
 // ---------------------------------------------------------------- solid
-//
-// Made exactly as the real-fluid model makes its solid (see
-// peng_robinson.cpp, solidState), with this equation's liquid in place of
-// the cubic's; the logic is repeated here rather than shared because the
-// real-fluid file is not to change:
-//   h_s(T,P) = h_l(Tm,P) - dh_fus + int_Tm^T cp_s dT,
-//   s_s(T,P) = s_l(Tm,P) - dh_fus/Tm + int_Tm^T cp_s/T dT,
-// so g_s(Tm,P) = g_l(Tm,P) at every P (vertical melting line, melting
-// exactly reversible), and v_s = v_l(Tm,P) + (T - Tm)(dv_l/dT)_P at Tm.
-Result<State> AmmoniaModel::solidState(double T, double P) const {
-    if (!hasSolid_)
-        return makeError("the library's ammonia has no melting data or solid cp; the reference model has no solid");
-    if (!(T > 0) || !(P > 0)) return makeError("solid ammonia needs T > 0 and P > 0");
+
+// The liquid at the melting temperature, which carries the solid
+// (fluid_with_solid.hpp).
+Result<AmmoniaModel::MeltingLiquid> AmmoniaModel::meltingLiquid(double P) const {
     auto d = density(Branch::Liquid, Tm_, P);
     if (!d) return d.error();
     const Fluid l = fluidAt(Tm_, *d);
-    const double hl = l.h + hOff_, sl = l.s + sOff_;
     const double rho = *d * eq::rhoc;
-    const double dvdT = (l.dPdT_rho / l.dPdrho_T) / (rho * rho);
-    State s;
-    s.T = T;
-    s.P = P;
-    s.phase = Phase::Solid;
-    s.h = hl - dhFus_ + (cpS_.enthalpy(T) - cpS_.enthalpy(Tm_));
-    s.s = sl - dhFus_ / Tm_ + (cpS_.entropy(T) - cpS_.entropy(Tm_));
-    s.v = l.v + (T - Tm_) * dvdT;
-    s.u = s.h - P * s.v;
-    s.cp = cpS_.cp(T);
-    s.source = kSrcSolid;
-    s.warnings = WarnNone;
-    if (T < Tmin_) s.warnings |= WarnBelowTemperatureRange;
-    if (T > Tm_ * (1 + 1e-12)) s.warnings |= WarnMetastable;
-    if (P > kPmaxValid) s.warnings |= WarnAbovePressureRange;
-    if (!cpS_.inRange(T)) s.warnings |= WarnCpExtrapolated;
-    if (std::abs(P - Pm_) > kMeltingFlagPressure) s.warnings |= WarnMeltingLineApprox;
-    return s;
+    return MeltingLiquid{l.h + hOff_, l.s + sOff_, l.v, (l.dPdT_rho / l.dPdrho_T) / (rho * rho), WarnNone};
 }
 
 std::optional<AmmoniaModel::GibbsV> AmmoniaModel::vapourGibbs(double T, double P) const {
@@ -521,25 +264,7 @@ std::optional<AmmoniaModel::GibbsV> AmmoniaModel::vapourGibbs(double T, double P
     return GibbsV{h - T * s, f.v, h};
 }
 
-Result<AmmoniaModel::GibbsV> AmmoniaModel::solidGibbs(double T, double P) const {
-    auto s = solidState(T, P);
-    if (!s) return s.error();
-    return GibbsV{s->h - T * s->s, s->v, s->h};
-}
-
-Result<Phase> AmmoniaModel::stablePhase(double T, double P) const {
-    if (!(T > 0) || !(P > 0) || !std::isfinite(T) || !std::isfinite(P))
-        return makeError("the ammonia reference model needs finite T > 0 and P > 0");
-    if (hasSolid_ && T <= Tm_) {
-        // Below the melting temperature the liquid is never stable: solid or
-        // vapour, whichever has the lower Gibbs energy.
-        const auto gv = vapourGibbs(T, P);
-        if (!gv) return Phase::Solid;
-        auto gs = solidGibbs(T, P);
-        if (!gs) return gs.error();
-        return gs->g <= gv->g ? Phase::Solid : Phase::Vapor;
-    }
-    if (T >= eq::Tc) return P >= Pc_ ? Phase::Supercritical : Phase::Vapor;
+Result<Phase> AmmoniaModel::subcriticalFluidPhase(double T, double P) const {
     auto above = aboveSaturation(T, P);
     if (!above) return above.error();
     return *above ? Phase::Liquid : Phase::Vapor;
@@ -559,9 +284,9 @@ Result<Sat> AmmoniaModel::saturation(double T) const {
     if (eq::Tc - T < 1e-7 * eq::Tc) return Sat{Pc_, 1.0, 1.0};
     const Ancillary& a = ancillary();
     const double dl = a.dlAt(T), dv = a.dvAt(T);
-    if (auto s = satNewton(T, dl, dv)) return *s;
+    if (auto s = eq::satNewton(T, dl, dv)) return *s;
     const double pi0 = std::exp(a.lnPAt(T)) / (eq::rhoc * eq::R * T);
-    if (auto s = satByPressure(T, 0.5 * (dl + dv), pi0, dl, dv)) return *s;
+    if (auto s = eq::satByPressure(T, 0.5 * (dl + dv), pi0, dl, dv)) return *s;
     return makeError("the vapour pressure of ammonia at " + num(T) + " K did not converge");
 }
 
@@ -594,185 +319,13 @@ Result<double> AmmoniaModel::boilingTemperature(double P) const {
     return makeError("the boiling temperature of ammonia at " + num(P) + " Pa did not converge");
 }
 
-// Sublimation by equal Gibbs energies of the vapour and the solid: the exact
-// integral of Clapeyron's equation along the model's own line.
-Result<double> AmmoniaModel::sublimationPressure(double T) const {
-    if (!hasSolid_) return makeError("the library's ammonia has no solid data; no sublimation line");
-    if (T > Ttp_ * (1 + 1e-12))
-        return makeError("no sublimation above the triple-point temperature " + num(Ttp_) + " K of ammonia");
-    if (T >= Ttp_) return Ptp_;
-    if (!(T > 0)) return makeError("sublimation needs T > 0");
-    auto gs0 = solidGibbs(Ttp_, Ptp_);
-    if (!gs0) return gs0.error();
-    const auto gv0 = vapourGibbs(Ttp_, Ptp_);
-    const double dh = gv0 ? gv0->h - gs0->h : dhFus_;
-    // Start: Clausius–Clapeyron from the triple point.
-    double P = Ptp_ * std::exp(-dh / eq::R * (1.0 / T - 1.0 / Ttp_));
-    double lo = 0, hi = Ptp_;
-    for (int it = 0; it < 200; ++it) {
-        P = std::clamp(P, 1e-300, Ptp_);
-        const auto gv = vapourGibbs(T, P);
-        double next = -1;
-        if (!gv) {
-            hi = P;
-        } else {
-            auto gs = solidGibbs(T, P);
-            if (!gs) return gs.error();
-            const double f = (gv->g - gs->g) / (eq::R * T);  // > 0: the solid is favoured, P too high
-            if (f > 0) hi = P; else lo = P;
-            const double step = -f / (P * (gv->v - gs->v) / (eq::R * T));  // Newton in ln P
-            if (std::abs(step) < 1e-13) return P;
-            next = P * std::exp(std::clamp(step, -5.0, 5.0));
-        }
-        if (!(next > lo && next < hi)) next = lo > 0 ? std::sqrt(lo * hi) : 1e-3 * hi;
-        if (hi - lo < 1e-14 * hi) return P;
-        P = next;
-    }
-    return makeError("the sublimation pressure of ammonia at " + num(T) + " K did not converge");
+Result<double> AmmoniaModel::boilingPressure(double T) const {
+    auto s = saturation(T);
+    if (!s) return s.error();
+    return s->P;
 }
 
-Result<double> AmmoniaModel::sublimationTemperature(double P) const {
-    if (!hasSolid_) return makeError("the library's ammonia has no solid data; no sublimation line");
-    if (P > Ptp_ * (1 + 1e-12))
-        return makeError("no sublimation above the triple-point pressure " + num(Ptp_) + " Pa of ammonia");
-    if (P >= Ptp_) return Ttp_;
-    auto gs0 = solidGibbs(Ttp_, Ptp_);
-    if (!gs0) return gs0.error();
-    const auto gv0 = vapourGibbs(Ttp_, Ptp_);
-    const double dh0 = gv0 ? gv0->h - gs0->h : dhFus_;
-    double T = 1.0 / (1.0 / Ttp_ - eq::R / dh0 * std::log(P / Ptp_));
-    double lo = std::max(1.0, 0.05 * Ttp_), hi = Ttp_;
-    for (int it = 0; it < 200; ++it) {
-        T = std::clamp(T, lo, hi);
-        const auto gv = vapourGibbs(T, P);
-        double next = -1;
-        if (!gv) {
-            lo = T;
-        } else {
-            auto gs = solidGibbs(T, P);
-            if (!gs) return gs.error();
-            const double f = (gv->g - gs->g) / (eq::R * T);  // falls with T
-            if (f > 0) lo = T; else hi = T;
-            // d[(g_v - g_s)/(R T)]/dT = -(h_v - h_s)/(R T^2) (Gibbs–Helmholtz).
-            const double df = -(gv->h - gs->h) / (eq::R * T * T);
-            if (df < 0) {
-                next = T - f / df;
-                if (std::abs(f / df) < 1e-13 * T) return next;
-            }
-        }
-        if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-        if (hi - lo < 1e-13 * hi) return T;
-        T = next;
-    }
-    return makeError("the sublimation temperature of ammonia at " + num(P) + " Pa did not converge");
-}
-
-Result<double> AmmoniaModel::transitionTemperature(Transition t, double P) const {
-    if (!(P > 0) || !std::isfinite(P)) return makeError("the ammonia reference model needs a finite P > 0");
-    switch (t) {
-        case Transition::Boiling: return boilingTemperature(P);
-        case Transition::Sublimation: return sublimationTemperature(P);
-        case Transition::Melting:
-            if (!hasSolid_) return makeError("the library's ammonia has no solid data; no melting line");
-            if (P < Ptp_ * (1 - 1e-12))
-                return makeError("no melting below the triple-point pressure " + num(Ptp_) +
-                                 " Pa of ammonia; the solid sublimates instead");
-            return Tm_;
-    }
-    return makeError("unknown transition");
-}
-
-Result<double> AmmoniaModel::transitionPressure(Transition t, double T) const {
-    if (!(T > 0) || !std::isfinite(T)) return makeError("the ammonia reference model needs a finite T > 0");
-    switch (t) {
-        case Transition::Boiling: {
-            auto s = saturation(T);
-            if (!s) return s.error();
-            return s->P;
-        }
-        case Transition::Sublimation: return sublimationPressure(T);
-        case Transition::Melting:
-            if (!hasSolid_) return makeError("the library's ammonia has no solid data; no melting line");
-            if (std::abs(T - Tm_) > 1e-9 * Tm_)
-                return makeError("the model melts ammonia only at " + num(Tm_) +
-                                 " K (pressure-independent melting temperature)");
-            return Pm_;
-    }
-    return makeError("unknown transition");
-}
-
-TransitionsAtPressure AmmoniaModel::transitionsAt(double P) const {
-    TransitionsAtPressure out;
-    auto add = [&](Transition k, double T) { out.entries[out.count++] = {k, T}; };
-    if (hasSolid_ && P < Ptp_) {
-        if (auto T = sublimationTemperature(P)) add(Transition::Sublimation, *T);
-        return out;
-    }
-    if (hasSolid_) add(Transition::Melting, Tm_);
-    if (P < Pc_ && P >= Ptp_)
-        if (auto T = boilingTemperature(P)) add(Transition::Boiling, *T);
-    return out;
-}
-
-// ---------------------------------------------------------------- (P, x) and (T, v)
-
-Result<State> AmmoniaModel::solveInPhase(Phase ph, double P, Property which, double value, double Ta, double Tb,
-                                         const State& sa, const State& sb) const {
-    return solveTemperatureInBracket([&](double T) { return phaseState(ph, T, P); }, which, value, Ta, Tb, sa, sb,
-                                     1e-13, 1e-12, "ammonia", P);
-}
-
-Result<State> AmmoniaModel::stateP(double P, Property which, double value) const {
-    if (!(P > 0) || !std::isfinite(P) || !std::isfinite(value))
-        return makeError("the ammonia reference model needs a finite P > 0 and a finite value");
-    const TransitionsAtPressure tr = transitionsAt(P);
-    // The isobar as single-phase spans and the phase changes between them,
-    // in rising temperature; h, s, u rise with T along it, so the first span
-    // or change that holds `value` has the answer.
-    double Ta = Tmin_;
-    Phase phA = tr.count > 0 ? lowerPhase(tr.entries[0].kind) : Phase::Supercritical;
-    if (tr.count == 0) {
-        auto p = stablePhase(Ta, P);
-        if (!p) return p.error();
-        phA = *p;
-    }
-    auto sa = phaseState(phA, Ta, P);
-    if (!sa) return sa.error();
-    if (propertyOf(*sa, which) > value)
-        return makeError("the value lies below the ammonia reference model's range at " + num(P) +
-                         " Pa (lowest temperature " + num(Tmin_) + " K)");
-    for (int i = 0; i <= tr.count; ++i) {
-        const bool last = i == tr.count;
-        const double Tb = last ? kTmaxSolver : tr.entries[i].T;
-        Phase ph = phA;
-        if (last && tr.count > 0) ph = upperPhase(tr.entries[tr.count - 1].kind);
-        // Above the critical pressure the liquid turns supercritical smoothly;
-        // phaseState(Supercritical) gives the stable fluid at every T.
-        if (last && P >= Pc_ && ph != Phase::Solid) ph = Phase::Supercritical;
-        auto sb = phaseState(ph, Tb, P);
-        if (!sb) return sb.error();
-        if (Tb > Ta && propertyOf(*sb, which) >= value) {
-            auto s0 = phaseState(ph, Ta, P);
-            if (!s0) return s0.error();
-            return solveInPhase(ph, P, which, value, Ta, Tb, *s0, *sb);
-        }
-        if (last) break;
-        const Transition k = tr.entries[i].kind;
-        auto up = phaseState(upperPhase(k), Tb, P);
-        if (!up) return up.error();
-        const double lo = propertyOf(*sb, which), hi = propertyOf(*up, which);
-        if (value <= hi) {
-            if (!(hi > lo))
-                return makeError("the " + std::string(transitionLabel(k)) +
-                                 " of ammonia does not change this property here; give another one");
-            return mix(*sb, *up, k, (value - lo) / (hi - lo));
-        }
-        Ta = Tb;
-        phA = upperPhase(k);
-    }
-    return makeError("the value lies above the ammonia reference model's range at " + num(P) +
-                     " Pa (highest temperature " + num(kTmaxSolver) + " K)");
-}
+// ---------------------------------------------------------------- (T, v)
 
 Result<State> AmmoniaModel::stateTV(double T, double v) const {
     if (!(T > 0) || !(v > 0) || !std::isfinite(T) || !std::isfinite(v))
@@ -825,8 +378,16 @@ std::string AmmoniaModel::sourceText() const {
 
 Status AmmoniaModel::init() {
     if (!ancillary().ok) return makeError("the ammonia saturation table could not be built from the equation");
+    Tc_ = eq::Tc;
     Pc_ = fluidAt(eq::Tc, 1.0).P;
+    Rs_ = eq::R;
+    solidSource_ = kSrcSolid;
+    lineTolerance_ = 1e-13;
+    spanBracketTolerance_ = 1e-13;
+    spanStepTolerance_ = 1e-12;
+    hasLowerLimit_ = true;
     hasSolid_ = sub_.melting && sub_.cpSolid && sub_.melting->T > 150.0 && sub_.melting->T < eq::Tc;
+    hasMelting_ = hasSolid_;
     if (hasSolid_) {
         Tm_ = sub_.melting->T;
         Pm_ = sub_.melting->P > 0 ? sub_.melting->P : 101325.0;

@@ -14,6 +14,7 @@
 
 #include "heatchain/constants.hpp"
 #include "models/cubic.hpp"
+#include "models/fluid_with_solid.hpp"
 
 namespace heatchain {
 
@@ -61,10 +62,6 @@ const CriticalOmegas& criticalOmegas() {
 // Reference pressure of the ideal-gas entropy; any value works because the
 // entropy offset absorbs it.
 constexpr double kP0 = 1e5;
-// Above this distance from the melting anchor pressure the pressure-
-// independent melting temperature is flagged (common practice: melting
-// temperatures move by roughly 0.01–0.3 K/MPa).
-constexpr double kMeltingFlagPressure = 5e6;
 
 constexpr std::string_view kName = "Peng–Robinson (1978)";
 constexpr std::string_view kSrcLiquid = "Peng–Robinson (1978), liquid root";
@@ -100,7 +97,7 @@ struct Roots {
     double A = 0, B = 0;
 };
 
-class PengRobinsonModel final : public PropertyModel {
+class PengRobinsonModel final : public detail::FluidWithSolidModel {
 public:
     explicit PengRobinsonModel(Substance s) : sub_(std::move(s)) {}
 
@@ -115,25 +112,7 @@ public:
     std::string sourceText() const override;
 
     Result<State> phaseState(Phase phase, double T, double P) const override;
-    Result<Phase> stablePhase(double T, double P) const override;
-    Result<double> transitionTemperature(Transition t, double P) const override;
-    Result<double> transitionPressure(Transition t, double T) const override;
 
-    Result<State> stateTP(double T, double P) const override;
-    Result<State> stateOnLineP(Transition t, double P, double fraction) const override;
-    Result<State> stateOnLineT(Transition t, double T, double fraction) const override;
-    Result<State> stateP(double P, Property which, double value) const override;
-    TransitionsAtPressure transitionsAt(double P) const override;
-
-    std::optional<std::pair<double, double>> criticalPoint() const override {
-        return std::make_pair(Tc_, Pc_);
-    }
-    std::optional<std::pair<double, double>> triplePoint() const override {
-        if (!hasLowerLimit_) return std::nullopt;
-        return std::make_pair(Ttp_, Ptp_);
-    }
-
-    double minTemperature() const override { return Tmin_; }
     double maxTemperature() const override { return Tmax_; }
     double maxPressure() const override { return 10.0 * Pc_; }
 
@@ -152,46 +131,24 @@ private:
 
     // Saturation pressure at T with both ends; pStart is an optional guess.
     Result<Saturation> saturation(double T, double pStart = 0) const;
-    Result<double> boilingTemperature(double P) const;
-    Result<double> sublimationPressure(double T) const;
-    Result<double> sublimationTemperature(double P) const;
 
-    // Solid: values per kg.
-    Result<State> solidState(double T, double P) const;
-    // Gibbs energy per kg of the vapour root (nullopt when there is no
-    // vapour-like root) and its volume.
-    struct GibbsV {
-        double g, v, h;
-    };
-    std::optional<GibbsV> vaporGibbs(double T, double P) const;
-    Result<GibbsV> solidGibbs(double T, double P) const;
-
-    Result<State> solveInPhase(Phase ph, double P, Property which, double value, double Ta, double Tb,
-                               const State& sa, const State& sb) const;
-
-    std::string who() const { return sub_.id.empty() ? sub_.name : sub_.id; }
+    // The hooks of FluidWithSolidModel.
+    Result<MeltingLiquid> meltingLiquid(double P) const override;
+    std::optional<GibbsV> vapourGibbs(double T, double P) const override;
+    Result<Phase> subcriticalFluidPhase(double T, double P) const override;
+    Result<double> boilingTemperature(double P) const override;
+    Result<double> boilingPressure(double T) const override;
+    std::string_view modelLabel() const override { return "real-fluid model"; }
 
     Substance sub_;
     HeatCapacity cp0_;
-    double M_ = 0, Tc_ = 0, Pc_ = 0, omega_ = 0;
+    double M_ = 0, omega_ = 0;
     double ac_ = 0, b_ = 0, kappa_ = 0;
     bool twu_ = false;
     double twuL_ = 0, twuM_ = 0, twuN_ = 0;
     double shift_ = 0;  // Péneloux c, m3/mol
     double hOff_ = 0, sOff_ = 0;
-
-    // Solid phase, anchored at the melting point.
-    bool hasSolid_ = false;
-    bool hasMelting_ = false;
-    HeatCapacity cpS_;
-    double Tm_ = 0, Pm_ = 0, dhFus_ = 0;
-    double hLm_ = 0, sLm_ = 0;  // liquid at (Tm, Pm), per kg, after offsets
-
-    // Lower end of the liquid–vapour line (model triple point).
-    bool hasLowerLimit_ = false;
-    double Ttp_ = 0, Ptp_ = 0;
-
-    double Tmin_ = 0, Tmax_ = 0;
+    double Tmax_ = 0;
 };
 
 // ---------------------------------------------------------------- EOS core
@@ -365,7 +322,7 @@ Result<State> PengRobinsonModel::phaseState(Phase phase, double T, double P) con
     return fluidState(T, P, e, label, liquidLike ? kSrcLiquid : kSrcVapor, warn);
 }
 
-std::optional<PengRobinsonModel::GibbsV> PengRobinsonModel::vaporGibbs(double T, double P) const {
+std::optional<PengRobinsonModel::GibbsV> PengRobinsonModel::vapourGibbs(double T, double P) const {
     const AlphaTerm al = alpha(T);
     const Roots r = roots(T, P, al);
     if (r.single && r.singleIsLiquidLike && T < Tc_) return std::nullopt;
@@ -375,69 +332,24 @@ std::optional<PengRobinsonModel::GibbsV> PengRobinsonModel::vaporGibbs(double T,
     return GibbsV{h - T * s, (e.vm - shift_) / M_, h};
 }
 
-// The solid. Its temperature dependence is the solid cp integrated from the
-// melting anchor, where it lies below the liquid by the enthalpy of fusion:
-//   h_s0(T) = h_l(Tm,Pm) - Δh_fus + ∫_Tm^T cp_s dT,
-//   s_s0(T) = s_l(Tm,Pm) - Δh_fus/Tm + ∫_Tm^T cp_s/T dT.
-// Its pressure dependence is taken from the PR liquid at Tm:
-//   h_s(T,P) = h_s0(T) + [h_l(Tm,P) - h_l(Tm,Pm)],  s_s likewise.
-// Then g_s(Tm,P) = g_l(Tm,P) at every P, so the melting temperature is
-// exactly pressure-independent and melting is exactly reversible
-// (Δs = Δh/Tm) at any pressure; the implied solid volume is
-//   v_s = ∂g_s/∂P = v_l(Tm,P) + (T - Tm) (∂v_l/∂T)_P at Tm.
-// The price is that the solid's density is the liquid's (documented, and
-// states far from the anchor pressure carry WarnMeltingLineApprox).
-Result<State> PengRobinsonModel::solidState(double T, double P) const {
-    if (!hasMelting_)
-        return makeError(who() + " has no melting data in the library; the real-fluid model needs it for a solid");
-    if (!hasSolid_)
-        return makeError(who() + " has no solid heat capacity (cp.solid) in the library; the real-fluid model needs it for a solid");
+// The liquid root at the melting temperature, which carries the solid
+// (fluid_with_solid.hpp).
+Result<PengRobinsonModel::MeltingLiquid> PengRobinsonModel::meltingLiquid(double P) const {
     const AlphaTerm al = alpha(Tm_);
     const Roots r = roots(Tm_, P, al);
     std::uint32_t warn = WarnNone;
     if (r.single && !r.singleIsLiquidLike) warn |= WarnCubicFallback;
     const RootEval e = evalRoot(Tm_, P, r.liquid, al, true);
-    const double hl = cp0_.enthalpy(Tm_) + (e.hRes - P * shift_) / M_ + hOff_;
-    const double sl = cp0_.entropy(Tm_) - kR / M_ * std::log(P / kP0) + e.sRes / M_ + sOff_;
-    const double vl = (e.vm - shift_) / M_;
-    const double dvdT = -(e.dPdT / e.dPdv) / M_;  // (∂v/∂T)_P per kg
-    State s;
-    s.T = T;
-    s.P = P;
-    s.phase = Phase::Solid;
-    s.h = hLm_ - dhFus_ + (cpS_.enthalpy(T) - cpS_.enthalpy(Tm_)) + (hl - hLm_);
-    s.s = sLm_ - dhFus_ / Tm_ + (cpS_.entropy(T) - cpS_.entropy(Tm_)) + (sl - sLm_);
-    s.v = vl + (T - Tm_) * dvdT;
-    s.u = s.h - s.P * s.v;
-    s.cp = cpS_.cp(T);
-    s.source = kSrcSolid;
-    s.warnings = warn;
-    if (T < Tmin_) s.warnings |= WarnBelowTemperatureRange;
-    if (T > Tm_ + 1e-9) s.warnings |= WarnMetastable;
-    if (P > maxPressure()) s.warnings |= WarnAbovePressureRange;
-    if (!cpS_.inRange(T)) s.warnings |= WarnCpExtrapolated;
-    if (std::abs(P - Pm_) > kMeltingFlagPressure) s.warnings |= WarnMeltingLineApprox;
-    return s;
+    MeltingLiquid l{};
+    l.h = cp0_.enthalpy(Tm_) + (e.hRes - P * shift_) / M_ + hOff_;
+    l.s = cp0_.entropy(Tm_) - kR / M_ * std::log(P / kP0) + e.sRes / M_ + sOff_;
+    l.v = (e.vm - shift_) / M_;
+    l.dvdT = -(e.dPdT / e.dPdv) / M_;  // (∂v/∂T)_P per kg
+    l.warnings = warn;
+    return l;
 }
 
-Result<PengRobinsonModel::GibbsV> PengRobinsonModel::solidGibbs(double T, double P) const {
-    auto s = solidState(T, P);
-    if (!s) return s.error();
-    return GibbsV{s->h - T * s->s, s->v, s->h};
-}
-
-Result<Phase> PengRobinsonModel::stablePhase(double T, double P) const {
-    if (!(T > 0) || !(P > 0)) return makeError("the real-fluid model needs T > 0 and P > 0");
-    if (hasSolid_ && T <= Tm_) {
-        // Below the melting temperature the model's liquid is never stable:
-        // solid or vapour, whichever has the lower Gibbs energy.
-        const auto gv = vaporGibbs(T, P);
-        if (!gv) return Phase::Solid;
-        const auto gs = solidGibbs(T, P);
-        if (!gs) return gs.error();
-        return gs->g <= gv->g ? Phase::Solid : Phase::Vapor;
-    }
-    if (T >= Tc_) return P >= Pc_ ? Phase::Supercritical : Phase::Vapor;
+Result<Phase> PengRobinsonModel::subcriticalFluidPhase(double T, double P) const {
     const AlphaTerm al = alpha(T);
     const Roots r = roots(T, P, al);
     if (r.two) {
@@ -446,12 +358,6 @@ Result<Phase> PengRobinsonModel::stablePhase(double T, double P) const {
         return l.lnPhi <= v.lnPhi ? Phase::Liquid : Phase::Vapor;
     }
     return (r.singleIsLiquidLike || P >= Pc_) ? Phase::Liquid : Phase::Vapor;
-}
-
-Result<State> PengRobinsonModel::stateTP(double T, double P) const {
-    auto ph = stablePhase(T, P);
-    if (!ph) return ph.error();
-    return phaseState(*ph, T, P);
 }
 
 // ---------------------------------------------------------------- lines
@@ -543,211 +449,10 @@ Result<double> PengRobinsonModel::boilingTemperature(double P) const {
     return makeError("the boiling temperature of " + who() + " at " + shortNumber(P) + " Pa did not converge");
 }
 
-// Sublimation by equal Gibbs energies of the PR vapour and the solid. This is
-// the exact integral of the Clapeyron equation with Δh_sub = h_v - h_s along
-// the model's own line, so s_v - s_s = Δh/T there.
-Result<double> PengRobinsonModel::sublimationPressure(double T) const {
-    if (!hasSolid_) return makeError(who() + " has no solid in the real-fluid model (needs melting data and cp.solid)");
-    if (T > Ttp_ * (1 + 1e-12))
-        return makeError("no sublimation above the triple-point temperature " + shortNumber(Ttp_) + " K of " + who());
-    if (T >= Ttp_) return Ptp_;
-    const double Rs = kR / M_;
-    // Start: Clausius–Clapeyron from the triple point with Δh_sub there.
-    auto gv0 = vaporGibbs(Ttp_, Ptp_);
-    auto gs0 = solidGibbs(Ttp_, Ptp_);
-    if (!gs0) return gs0.error();
-    const double dh = gv0 ? gv0->h - gs0->h : dhFus_;
-    double P = Ptp_ * std::exp(-dh / Rs * (1.0 / T - 1.0 / Ttp_));
-    double lo = 0, hi = Ptp_;
-    for (int it = 0; it < 200; ++it) {
-        P = std::clamp(P, 1e-300, Ptp_);
-        const auto gv = vaporGibbs(T, P);
-        double next = -1;
-        if (!gv) {
-            hi = P;
-        } else {
-            const auto gs = solidGibbs(T, P);
-            if (!gs) return gs.error();
-            const double f = (gv->g - gs->g) / (Rs * T);  // > 0: solid favoured, P too high
-            if (f > 0) hi = P; else lo = P;
-            const double df = P * (gv->v - gs->v) / (Rs * T);  // df/dlnP
-            const double step = -f / df;
-            if (std::abs(step) < 1e-12) return P;
-            next = P * std::exp(std::clamp(step, -5.0, 5.0));
-        }
-        if (!(next > lo && next < hi)) next = lo > 0 ? std::sqrt(lo * hi) : 1e-3 * hi;
-        if (hi - lo < 1e-14 * hi) return P;
-        P = next;
-    }
-    return makeError("the sublimation pressure of " + who() + " at " + shortNumber(T) + " K did not converge");
-}
-
-Result<double> PengRobinsonModel::sublimationTemperature(double P) const {
-    if (!hasSolid_) return makeError(who() + " has no solid in the real-fluid model (needs melting data and cp.solid)");
-    if (P > Ptp_ * (1 + 1e-12))
-        return makeError("no sublimation above the triple-point pressure " + shortNumber(Ptp_) + " Pa of " + who());
-    if (P >= Ptp_) return Ttp_;
-    const double Rs = kR / M_;
-    auto gv0 = vaporGibbs(Ttp_, Ptp_);
-    auto gs0 = solidGibbs(Ttp_, Ptp_);
-    if (!gs0) return gs0.error();
-    const double dh0 = gv0 ? gv0->h - gs0->h : dhFus_;
-    double T = 1.0 / (1.0 / Ttp_ - Rs / dh0 * std::log(P / Ptp_));
-    double lo = std::max(1.0, 0.05 * Ttp_), hi = Ttp_;
-    for (int it = 0; it < 200; ++it) {
-        T = std::clamp(T, lo, hi);
-        const auto gv = vaporGibbs(T, P);
-        double next = -1;
-        if (!gv) {
-            lo = T;  // no vapour root: too cold for vapour at this P
-        } else {
-            const auto gs = solidGibbs(T, P);
-            if (!gs) return gs.error();
-            const double f = (gv->g - gs->g) / (Rs * T);  // falls with T
-            if (f > 0) lo = T; else hi = T;
-            // d[(g_v - g_s)/(R T)]/dT = -(h_v - h_s)/(R T^2) (Gibbs–Helmholtz).
-            const double df = -(gv->h - gs->h) / (Rs * T * T);
-            if (df < 0) next = T - f / df;
-            if (df < 0 && std::abs(f / df) < 1e-12 * T) return next;
-        }
-        if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-        if (hi - lo < 1e-13 * hi) return T;
-        T = next;
-    }
-    return makeError("the sublimation temperature of " + who() + " at " + shortNumber(P) + " Pa did not converge");
-}
-
-Result<double> PengRobinsonModel::transitionTemperature(Transition t, double P) const {
-    if (!(P > 0)) return makeError("the real-fluid model needs P > 0");
-    switch (t) {
-        case Transition::Boiling: return boilingTemperature(P);
-        case Transition::Sublimation: return sublimationTemperature(P);
-        case Transition::Melting:
-            if (!hasSolid_) return makeError(who() + " has no solid in the real-fluid model (needs melting data and cp.solid)");
-            if (P < Ptp_ * (1 - 1e-12))
-                return makeError("no melting below the triple-point pressure " + shortNumber(Ptp_) + " Pa of " + who() +
-                                 "; the solid sublimates instead");
-            return Tm_;
-    }
-    return makeError("unknown transition");
-}
-
-Result<double> PengRobinsonModel::transitionPressure(Transition t, double T) const {
-    if (!(T > 0)) return makeError("the real-fluid model needs T > 0");
-    switch (t) {
-        case Transition::Boiling: {
-            auto s = saturation(T);
-            if (!s) return s.error();
-            return s->P;
-        }
-        case Transition::Sublimation: return sublimationPressure(T);
-        case Transition::Melting:
-            // The model's melting line is vertical at Tm; at Tm the anchor
-            // pressure stands for it.
-            if (!hasSolid_) return makeError(who() + " has no solid in the real-fluid model (needs melting data and cp.solid)");
-            if (std::abs(T - Tm_) > 1e-9 * Tm_)
-                return makeError("the model melts " + who() + " only at " + shortNumber(Tm_) +
-                                 " K (pressure-independent melting temperature)");
-            return Pm_;
-    }
-    return makeError("unknown transition");
-}
-
-TransitionsAtPressure PengRobinsonModel::transitionsAt(double P) const {
-    TransitionsAtPressure out;
-    auto add = [&](Transition k, double T) { out.entries[out.count++] = {k, T}; };
-    if (hasSolid_ && P < Ptp_) {
-        if (auto T = sublimationTemperature(P)) add(Transition::Sublimation, *T);
-        return out;
-    }
-    if (hasSolid_) add(Transition::Melting, Tm_);
-    if (P < Pc_ && (!hasLowerLimit_ || P >= Ptp_))
-        if (auto T = boilingTemperature(P)) add(Transition::Boiling, *T);
-    return out;
-}
-
-Result<State> PengRobinsonModel::stateOnLineP(Transition t, double P, double fraction) const {
-    if (!(fraction >= 0.0 && fraction <= 1.0)) return makeError("the phase fraction must lie between 0 and 1");
-    auto T = transitionTemperature(t, P);
-    if (!T) return T.error();
-    auto lo = phaseState(lowerPhase(t), *T, P);
-    if (!lo) return lo.error();
-    auto hi = phaseState(upperPhase(t), *T, P);
-    if (!hi) return hi.error();
-    return mix(*lo, *hi, t, fraction);
-}
-
-Result<State> PengRobinsonModel::stateOnLineT(Transition t, double T, double fraction) const {
-    if (!(fraction >= 0.0 && fraction <= 1.0)) return makeError("the phase fraction must lie between 0 and 1");
-    auto P = transitionPressure(t, T);
-    if (!P) return P.error();
-    auto lo = phaseState(lowerPhase(t), T, *P);
-    if (!lo) return lo.error();
-    auto hi = phaseState(upperPhase(t), T, *P);
-    if (!hi) return hi.error();
-    return mix(*lo, *hi, t, fraction);
-}
-
-// ---------------------------------------------------------------- (P, x)
-
-Result<State> PengRobinsonModel::solveInPhase(Phase ph, double P, Property which, double value, double Ta, double Tb,
-                                              const State& sa, const State& sb) const {
-    return solveTemperatureInBracket([&](double T) { return phaseState(ph, T, P); }, which, value, Ta, Tb, sa, sb,
-                                     1e-12, 1e-11, "real-fluid", P);
-}
-
-Result<State> PengRobinsonModel::stateP(double P, Property which, double value) const {
-    if (!(P > 0) || !std::isfinite(value)) return makeError("the real-fluid model needs P > 0 and a finite value");
-    const TransitionsAtPressure tr = transitionsAt(P);
-    // The isobar as alternating single-phase segments and transitions, in
-    // rising temperature. Properties rise with T along it, so the first
-    // place where `value` fits is the answer.
-    double Ta = Tmin_;
-    Phase phA;
-    if (tr.count > 0) phA = lowerPhase(tr.entries[0].kind);
-    else {
-        auto p = stablePhase(Ta, P);
-        if (!p) return p.error();
-        phA = *p;
-    }
-    if (phA == Phase::Solid && !hasSolid_) phA = Phase::Liquid;
-    auto sa = phaseState(phA, Ta, P);
-    if (!sa) return sa.error();
-    if (propertyOf(*sa, which) > value)
-        return makeError("the value lies below the real-fluid model's range at " + shortNumber(P) +
-                         " Pa (lowest temperature " + shortNumber(Tmin_) + " K)");
-    for (int i = 0; i <= tr.count; ++i) {
-        const bool last = i == tr.count;
-        const double Tb = last ? Tmax_ : tr.entries[i].T;
-        if (Tb <= Ta) {  // segment empty (e.g. Tmin above a line)
-            if (last) break;
-        }
-        Phase ph = phA;
-        if (last && tr.count > 0) ph = upperPhase(tr.entries[tr.count - 1].kind);
-        if (last && P >= Pc_ && Tb >= Tc_ && ph != Phase::Solid) ph = Phase::Supercritical;
-        auto sb = phaseState(ph, Tb, P);
-        if (!sb) return sb.error();
-        if (Tb > Ta && propertyOf(*sb, which) >= value) {
-            auto s0 = phaseState(ph, Ta, P);
-            if (!s0) return s0.error();
-            return solveInPhase(ph, P, which, value, Ta, Tb, *s0, *sb);
-        }
-        if (last) break;
-        const Transition k = tr.entries[i].kind;
-        auto up = phaseState(upperPhase(k), Tb, P);
-        if (!up) return up.error();
-        const double lo = propertyOf(*sb, which), hi = propertyOf(*up, which);
-        if (value <= hi) {
-            if (!(hi > lo))
-                return makeError("the " + std::string(transitionLabel(k)) + " of " + who() +
-                                 " does not change this property in the real-fluid model; give another one");
-            return mix(*sb, *up, k, (value - lo) / (hi - lo));
-        }
-        Ta = Tb;
-        phA = upperPhase(k);
-    }
-    return makeError("the value lies above the real-fluid model's range at " + shortNumber(P) +
-                     " Pa (highest temperature " + shortNumber(Tmax_) + " K)");
+Result<double> PengRobinsonModel::boilingPressure(double T) const {
+    auto s = saturation(T);
+    if (!s) return s.error();
+    return s->P;
 }
 
 // ---------------------------------------------------------------- text
@@ -781,6 +486,11 @@ Status PengRobinsonModel::init() {
     Pc_ = c.P;
     omega_ = c.acentricFactor;
     M_ = sub_.molarMass;
+    Rs_ = kR / M_;
+    solidSource_ = kSrcSolid;
+    lineTolerance_ = 1e-12;
+    spanBracketTolerance_ = 1e-12;
+    spanStepTolerance_ = 1e-11;
     cp0_ = *sub_.cpVapor;
     ac_ = criticalOmegas().a * kR * kR * Tc_ * Tc_ / Pc_;
     b_ = criticalOmegas().b * kR * Tc_ / Pc_;
@@ -843,10 +553,6 @@ Status PengRobinsonModel::init() {
                          shortNumber(T0) + " K");
     hOff_ = -ref->h;
     sOff_ = -ref->s;
-    if (hasMelting_) {
-        hLm_ = 0;
-        sLm_ = 0;
-    }
     return Ok{};
 }
 

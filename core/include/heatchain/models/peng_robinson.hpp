@@ -19,7 +19,7 @@
 //
 // Phases: liquid and vapour are the smallest and largest admissible roots of
 // the cubic; "supercritical" when T > Tc and P > Pc. A solid exists when the
-// substance has melting data and a solid cp; see peng_robinson.cpp for how it
+// substance has melting data and a solid cp; see models/fluid_with_solid.hpp for how it
 // is made so that melting and sublimation are exactly reversible
 // (g_solid = g_fluid on the model's own lines).
 #include <memory>

@@ -1,0 +1,147 @@
+// Density roots and saturation of the Tillner-Roth et al. (1993) ammonia
+// equation (ammonia_saturation.hpp).
+#include "models/ammonia_saturation.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+namespace heatchain::detail::nh3 {
+
+std::optional<double> solveDelta(const TauPowers& tp, double pi, Branch b, double lo, double hi, double start) {
+    double d = std::clamp(start, lo, hi);
+    if (!(d > lo && d < hi)) d = 0.5 * (lo + hi);
+    for (int it = 0; it < 300; ++it) {
+        const Residual r = residual(d, tp);
+        const double J = reducedPressure(d, r);
+        const double dJ = reducedPressureSlope(d, r);
+        const double f = J - pi;
+        double next;
+        if (!(dJ > 0)) {
+            if (b == Branch::Liquid) lo = d; else hi = d;
+            next = 0.5 * (lo + hi);
+        } else {
+            if (f == 0) return d;
+            if (f < 0) lo = d; else hi = d;
+            next = d - f / dJ;
+            if (std::abs(next - d) <= 1e-15 * d) return next;
+            if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+        }
+        if (hi - lo <= 4e-16 * hi) {
+            // The bracket closed. It closed on a root only if the pressure
+            // matches there; otherwise on a spinodal.
+            if (dJ > 0 && std::abs(f) <= 1e-12 * pi) return d;
+            return std::nullopt;
+        }
+        d = next;
+    }
+    return std::nullopt;
+}
+
+std::optional<Sat> satByPressure(double T, double divider, double piStart, double dlStart, double dvStart) {
+    const double tau = Tc / T;
+    const TauPowers tp = tauPowers(tau);
+    double lo = 0, hi = std::numeric_limits<double>::infinity();
+    double pi = piStart, dl = dlStart, dv = dvStart;
+    for (int it = 0; it < 200; ++it) {
+        auto v = solveDelta(tp, pi, Branch::Vapour, 0.0, divider, dv);
+        auto l = solveDelta(tp, pi, Branch::Liquid, divider, kDeltaMax, dl);
+        double next;
+        if (!v) {
+            hi = pi;  // above the vapour spinodal
+            next = std::isfinite(hi) ? 0.5 * (lo + hi) : 0.5 * pi;
+        } else if (!l) {
+            lo = pi;  // below the liquid spinodal
+            next = std::isfinite(hi) ? 0.5 * (lo + hi) : 2.0 * pi;
+        } else {
+            dv = *v;
+            dl = *l;
+            const Residual rv = residual(dv, tp), rl = residual(dl, tp);
+            const double dg = reducedGibbsDensityPart(dv, std::log(dv), rv) -
+                              reducedGibbsDensityPart(dl, std::log(dl), rl);
+            if (dg > 0) hi = pi; else lo = pi;
+            const double slope = 1.0 / dv - 1.0 / dl;
+            next = pi - dg / slope;
+            if (std::abs(next - pi) <= 1e-14 * pi) return Sat{next * rhoc * R * T, dl, dv};
+            if (!(next > lo && next < hi)) next = std::isfinite(hi) ? 0.5 * (lo + hi) : 2.0 * pi;
+        }
+        if (std::isfinite(hi) && hi - lo <= 1e-15 * hi) {
+            if (v && l) return Sat{pi * rhoc * R * T, dl, dv};
+            return std::nullopt;
+        }
+        pi = next;
+    }
+    return std::nullopt;
+}
+
+std::optional<Sat> satNewton(double T, double dl, double dv) {
+    const double tau = Tc / T;
+    const TauPowers tp = tauPowers(tau);
+    Residual rl = residual(dl, tp), rv = residual(dv, tp);
+    for (int it = 0; it < 40; ++it) {
+        const double Jl = reducedPressure(dl, rl), Jv = reducedPressure(dv, rv);
+        const double Kl = reducedGibbsDensityPart(dl, std::log(dl), rl);
+        const double Kv = reducedGibbsDensityPart(dv, std::log(dv), rv);
+        const double Jdl = reducedPressureSlope(dl, rl), Jdv = reducedPressureSlope(dv, rv);
+        if (!(Jdl > 0 && Jdv > 0)) return std::nullopt;
+        const double F1 = Jv - Jl, F2 = Kv - Kl;
+        // Jacobian rows (d/d dl, d/d dv): F1: (-Jdl, Jdv); F2: (-Jdl/dl, Jdv/dv).
+        const double det = Jdl * Jdv * (1.0 / dl - 1.0 / dv);
+        if (!(std::abs(det) > 0)) return std::nullopt;
+        // Solve [-Jdl Jdv; -Jdl/dl Jdv/dv] [x; y] = -[F1; F2].
+        const double x = (-F1 * Jdv / dv + F2 * Jdv) / det;
+        const double y = (-Jdl * (-F2) - (-Jdl / dl) * (-F1)) / det;
+        double lam = 1.0;
+        double nl = dl + x, nv = dv + y;
+        for (int k = 0; k < 30 && !(nl > nv && nv > 0 && nl < kDeltaMax); ++k) {
+            lam *= 0.5;
+            nl = dl + lam * x;
+            nv = dv + lam * y;
+        }
+        if (!(nl > nv && nv > 0)) return std::nullopt;
+        const bool done = std::abs(nl - dl) <= 1e-13 * dl && std::abs(nv - dv) <= 1e-13 * dv;
+        dl = nl;
+        dv = nv;
+        rl = residual(dl, tp);
+        rv = residual(dv, tp);
+        if (done) {
+            const double J = reducedPressure(dv, rv);
+            return Sat{J * rhoc * R * T, dl, dv};
+        }
+    }
+    return std::nullopt;
+}
+
+const Ancillary& ancillary() {
+    static const Ancillary table = [] {
+        Ancillary a;
+        const double x0 = Ancillary::xOf(Ancillary::Tlow);
+        const double xn = Ancillary::xOf(Tc - 0.01);  // stop short of the merging densities
+        // Continuation from the cold end, where the liquid is near delta = 3.2
+        // and the vapour nearly ideal; each node starts from the last one and
+        // splits its two roots at the previous mean density (inside the
+        // unstable region).
+        double piPrev = 0, dlPrev = 3.2, dvPrev = 0;
+        for (int k = 0; k < Ancillary::N; ++k) {
+            const double x = x0 + (xn - x0) * k / (Ancillary::N - 1);
+            const double T = Tc * (1.0 - x * x * x);
+            const double divider = k == 0 ? 1.0 : 0.5 * (dlPrev + dvPrev);
+            double pi0 = piPrev > 0 ? piPrev : 1e-3, dv0 = dvPrev > 0 ? dvPrev : 1e-3;
+            auto s = satByPressure(T, divider, pi0, dlPrev, dv0);
+            if (!s) return a;  // a.ok stays false; the factory reports it
+            a.x[k] = x;
+            a.T[k] = T;
+            a.lnP[k] = std::log(s->P);
+            a.dl[k] = s->dl;
+            a.dv[k] = s->dv;
+            piPrev = s->P / (rhoc * R * T);
+            dlPrev = s->dl;
+            dvPrev = s->dv;
+        }
+        a.ok = true;
+        return a;
+    }();
+    return table;
+}
+
+}  // namespace heatchain::detail::nh3
