@@ -23,6 +23,7 @@
 #include "heatchain/version.hpp"
 #include "cli_json.hpp"
 #include "ledger_text.hpp"
+#include "recovery_text.hpp"
 #include "uncertainty_text.hpp"
 
 #ifdef HEATCHAIN_HAVE_REPORT
@@ -55,6 +56,12 @@ const VerbHelp kVerbs[] = {
      "Writes the PDF report (A4 unless --page letter).\n"},
     {"chart", "  heatchain-cli chart   PROJECT|- --ts|--tq -o FILE.svg|FILE.png\n",
      "Writes the T-s chart (--ts) or the T-Q chart (--tq) as SVG or PNG.\n"},
+    {"targets", "  heatchain-cli targets PROJECT|- [--dtmin Q] [--json | --csv | --problem-table] [-o FILE|-]\n",
+     "Heat recovery targets of every steady-flow stream of the worksheet: the least hot and cold\n"
+     "utility any exchanger network could need, the pinch, the worksheet's utilities placed against\n"
+     "the grand composite curve, and with --problem-table its intervals (--json: the \"recovery\" object of compute\n"
+     "--json; --csv: the composite and grand composite curves). Q is the minimum temperature\n"
+     "difference (\"10 K\"; a bare number is kelvin); default: the worksheet's required minimum approach.\n"},
     {"diff", "  heatchain-cli diff    BEFORE AFTER [--json]\n",
      "Says what changed between two revisions and how the results moved; exits 0 whether or not\n"
      "they differ.\n"},
@@ -114,7 +121,7 @@ Result<Args> parseArgs(int argc, char** argv, int from) {
         std::string s = argv[i];
         if (s == "-o" || s == "--output" || s == "--model" || s == "--page" || s == "--step" || s == "--input" ||
             s == "--from" || s == "--to" || s == "--points" || s == "--outputs" || s == "--samples" || s == "--seed" ||
-            s == "--contributions") {
+            s == "--contributions" || s == "--dtmin") {
             if (i + 1 >= argc) return makeError(s + " needs a value");
             a.options[s == "--output" ? "-o" : s] = argv[++i];
         } else if (s == "--uncertainty") {  // the method is optional
@@ -141,6 +148,56 @@ Result<Project> loadInput(const std::string& file) {
     return parseProject(text.str(), "<stdin>");
 }
 
+// compute and check of a worksheet with several streams.
+int computeStreams(const Args& a, const StreamSet& worksheet, bool checkOnly) {
+    if (a.options.count("--uncertainty"))
+        return usage("--uncertainty works on a worksheet of one stream");
+    const bool json = a.options.count("--json"), csv = a.options.count("--csv");
+    const cli::WorksheetAnswer answer = cli::computeWorksheet(worksheet, json, csv);
+    const std::string name = inputName(a.positional[0]);
+    int rc = kDone;
+    if (checkOnly) {
+        if (answer.errors.empty())
+            std::cout << name << ": valid; " << worksheet.streams.size() << " streams, " << answer.steps
+                      << " steps computed, " << answer.warnings << " warning" << (answer.warnings == 1 ? "" : "s") << "\n";
+    } else {
+        std::optional<std::string> out;
+        if (auto it = a.options.find("-o"); it != a.options.end()) out = it->second;
+        rc = emit(answer.text, out);
+    }
+    for (const std::string& e : answer.errors) std::cerr << "heatchain-cli: " << name << ": " << e << "\n";
+    return answer.errors.empty() ? rc : kCannotCompute;
+}
+
+// Heat recovery targets of the worksheet's streams.
+int targets(const Args& a) {
+    if (a.positional.size() != 1) return usage("targets needs one PROJECT");
+    for (const auto& [k, v] : a.options)
+        if (k != "--json" && k != "--csv" && k != "-o" && k != "--dtmin" && k != "--problem-table")
+            return usage("unknown option " + k);
+    const bool json = a.options.count("--json"), csv = a.options.count("--csv");
+    if (json && csv) return usage("--json and --csv exclude each other");
+    auto dTmin = cli::dTminOption(a.options);
+    if (!dTmin) return usage(dTmin.error().message);
+    auto worksheet = cli::loadWorksheetInput(a.positional[0]);
+    if (!worksheet) {
+        std::cerr << "heatchain-cli: " << worksheet.error().text() << "\n";
+        return kInvalid;
+    }
+    const auto results = solveStreams(*worksheet);
+    auto recovery = worksheetRecovery(*worksheet, results, *dTmin);
+    if (!recovery) {
+        std::cerr << "heatchain-cli: " << inputName(a.positional[0]) << ": " << recovery.error().text() << "\n";
+        return kCannotCompute;
+    }
+    std::optional<std::string> out;
+    if (auto it = a.options.find("-o"); it != a.options.end()) out = it->second;
+    const std::string text = json  ? recoveryToJson(*recovery).dump(2) + "\n"
+                             : csv ? cli::targetsCsv(*recovery)
+                                   : cli::targetsText(*worksheet, *recovery, a.options.count("--problem-table") > 0);
+    return emit(text, out);
+}
+
 int compute(const Args& a, bool checkOnly) {
     if (a.positional.size() != 1) return usage("expected one PROJECT file");
     const bool json = a.options.count("--json"), csv = a.options.count("--csv");
@@ -152,11 +209,13 @@ int compute(const Args& a, bool checkOnly) {
     auto uncertainty = cli::uncertaintyOptions(a.options);
     if (!uncertainty) return usage(uncertainty.error().message);
     if (*uncertainty && (csv || checkOnly)) return usage("--uncertainty goes with --json or the text ledger");
-    auto project = loadInput(a.positional[0]);
-    if (!project) {
-        std::cerr << "heatchain-cli: " << project.error().text() << "\n";
+    auto worksheet = cli::loadWorksheetInput(a.positional[0]);
+    if (!worksheet) {
+        std::cerr << "heatchain-cli: " << worksheet.error().text() << "\n";
         return kInvalid;
     }
+    if (worksheet->streams.size() > 1 || worksheet->version > 1) return computeStreams(a, *worksheet, checkOnly);
+    const std::optional<Project> project = worksheet->streams.front().project;
     const auto result = solve(*project);
     const Error* err = result.firstError();
     if (checkOnly) {
@@ -184,6 +243,8 @@ int compute(const Args& a, bool checkOnly) {
     std::string text;
     if (json) {
         Json j = resultsToJson(*project, result);
+        const auto recovery = worksheetRecovery(*worksheet, {result});
+        j["recovery"] = recovery ? recoveryToJson(*recovery) : Json(nullptr);
         if (unc) j["uncertainty"] = uncertaintyJson(*unc);
         text = j.dump(2) + "\n";
     } else if (csv) {
@@ -492,6 +553,7 @@ int main(int argc, char** argv) {
     if (verb == "report") return report(*args);
     if (verb == "chart") return chart(*args);
     if (verb == "diff") return diff(*args);
+    if (verb == "targets") return targets(*args);
     if (verb == "state") return state(*args);
     if (verb == "substances") return substances(*args);
     if (verb == "sweep") return sweepCommand(*args);

@@ -242,9 +242,9 @@ UtilityPlan placeUtilities(const Targets& targets, std::span<const UtilityLevel>
     return plan;
 }
 
-Result<std::vector<SweepPoint>> dTminSweep(std::span<const HeatPiece> pieces, double from, double to, int count) {
+Result<std::vector<TargetsAtDTmin>> dTminSweep(std::span<const HeatPiece> pieces, double from, double to, int count) {
     if (count < 1 || count > 10000) return makeError("the sweep needs 1 to 10000 points", "count");
-    std::vector<SweepPoint> out;
+    std::vector<TargetsAtDTmin> out;
     out.reserve(static_cast<std::size_t>(count));
     for (int i = 0; i < count; ++i) {
         const double d = count == 1 ? from : from + (to - from) * i / (count - 1);

@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "heatchain/recovery.hpp"
+#include "heatchain/results_json.hpp"
 
 namespace heatchain {
 
@@ -88,15 +89,18 @@ StreamPieces piecesFromStreams(std::span<const RecoveryStream> streams, double t
     return out;
 }
 
-std::vector<UtilityLevel> utilityLevels(const Project& project) {
+std::vector<UtilityLevel> utilityLevels(const StreamSet& set) {
     std::vector<UtilityLevel> out;
-    for (const Utility& u : project.utilities) {
-        auto profile = resolveUtility(u, project.displayUnits, project.unitContext());
+    const Project& shared = set.shared;
+    for (const Utility& u : shared.utilities) {
+        auto profile = resolveUtility(u, shared.displayUnits, shared.unitContext());
         if (!profile) continue;
         bool asSource = false, asSink = false;
-        for (const Step& s : project.steps) {
-            if (s.source && s.source->utility == u.id) asSource = true;
-            if (s.sink && s.sink->utility == u.id) asSink = true;
+        for (const Stream& stream : set.streams) {
+            for (const Step& s : stream.project.steps) {
+                if (s.source && s.source->utility == u.id) asSource = true;
+                if (s.sink && s.sink->utility == u.id) asSink = true;
+            }
         }
         UtilityLevel level;
         level.id = u.id;
@@ -104,7 +108,7 @@ std::vector<UtilityLevel> utilityLevels(const Project& project) {
             case UtilityKind::Steam: level.hot = asSource || !asSink; break;
             case UtilityKind::Sensible: level.hot = profile->Tin > profile->Tout; break;
             case UtilityKind::Fixed:
-                level.hot = asSource != asSink ? asSource : profile->Tin > project.surroundingsT.si;
+                level.hot = asSource != asSink ? asSource : profile->Tin > shared.surroundingsT.si;
                 break;
         }
         level.T = profile->Tout;
@@ -129,6 +133,42 @@ Result<Recovery> recoveryTargets(std::span<const RecoveryStream> streams, double
     return r;
 }
 
+Result<Recovery> worksheetRecovery(const StreamSet& set, const std::vector<SequenceResult>& results,
+                                   std::optional<double> dTmin) {
+    std::vector<RecoveryStream> streams;
+    streams.reserve(set.streams.size());
+    for (std::size_t i = 0; i < set.streams.size(); ++i) {
+        const Stream& s = set.streams[i];
+        streams.push_back({s.id, &s.project, i < results.size() ? &results[i] : nullptr,
+                           s.dTminContribution ? std::optional<double>(s.dTminContribution->si) : std::nullopt});
+    }
+    const std::vector<UtilityLevel> levels = utilityLevels(set);
+    return recoveryTargets(streams, dTmin ? *dTmin : set.shared.minApproachK(), levels);
+}
+
+Json worksheetResultsToJson(const StreamSet& set, const std::vector<SequenceResult>& results,
+                            const Result<Recovery>& recovery) {
+    const Json rec = recovery ? recoveryToJson(*recovery) : Json(nullptr);
+    if (set.streams.size() == 1 && set.version == 1 && !results.empty()) {
+        Json j = resultsToJson(set.streams.front().project, results.front());
+        j["recovery"] = rec;
+        return j;
+    }
+    Json j = Json::object();
+    j["title"] = set.shared.meta.title;
+    Json list = Json::array();
+    for (std::size_t i = 0; i < set.streams.size() && i < results.size(); ++i) {
+        Json one = Json::object();
+        one["id"] = set.streams[i].id;
+        const Json today = resultsToJson(set.streams[i].project, results[i]);
+        for (auto it = today.begin(); it != today.end(); ++it) one[it.key()] = it.value();
+        list.push_back(std::move(one));
+    }
+    j["streams"] = std::move(list);
+    j["recovery"] = rec;
+    return j;
+}
+
 Json recoveryToJson(const Recovery& r) {
     const Targets& t = r.targets;
     auto curve = [](const std::vector<CompositePoint>& points, const char* tKey) {
@@ -150,6 +190,15 @@ Json recoveryToJson(const Recovery& r) {
     Json excluded = Json::array();
     for (const Excluded& e : r.excluded) excluded.push_back(Json{{"stream", e.stream}, {"reason", e.reason}});
     j["excluded"] = std::move(excluded);
+    // Optional additions beyond the fixed keys.
+    j["recovered_W"] = t.recovered();
+    j["temperatureTolerance_K"] = r.toleranceK;
+    Json levels = Json::array();
+    for (const UtilityPlacement& u : r.utilities.levels)
+        levels.push_back(Json{{"id", u.id}, {"hot", u.hot}, {"T_K", u.T}, {"duty_W", u.duty}});
+    j["utilityLevels"] = std::move(levels);
+    j["hotUtilityUnmet_W"] = r.utilities.hotUnmet;
+    j["coldUtilityUnmet_W"] = r.utilities.coldUnmet;
     return j;
 }
 

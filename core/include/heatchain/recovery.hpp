@@ -21,6 +21,7 @@
 #include "heatchain/project.hpp"
 #include "heatchain/result.hpp"
 #include "heatchain/solver.hpp"
+#include "heatchain/streams.hpp"
 
 namespace heatchain {
 
@@ -99,11 +100,11 @@ struct UtilityPlan {
 // of multiple utilities).
 UtilityPlan placeUtilities(const Targets& targets, std::span<const UtilityLevel> levels);
 
-struct SweepPoint {
+struct TargetsAtDTmin {
     double dTmin = 0, hotUtilityMin = 0, coldUtilityMin = 0;  // K, W, W
 };
 // Targets at `count` ΔTmin values evenly from `from` to `to` (K).
-Result<std::vector<SweepPoint>> dTminSweep(std::span<const HeatPiece> pieces, double from, double to, int count);
+Result<std::vector<TargetsAtDTmin>> dTminSweep(std::span<const HeatPiece> pieces, double from, double to, int count);
 
 // ---- From solved streams ----------------------------------------------------
 
@@ -150,13 +151,29 @@ struct Recovery {
     UtilityPlan utilities;  // the project's utilities placed against the grand composite
 };
 
-// The project's utilities as levels: steam and fixed at their temperature,
+// The worksheet's utilities as levels: steam and fixed at their temperature,
 // sensible at their outlet; a utility that cannot be resolved is skipped.
-std::vector<UtilityLevel> utilityLevels(const Project& project);
+// Steam is hot unless steps only give heat to it; a fixed temperature is
+// hot when steps use it as a source (or, unused, when it is above the
+// surroundings); a sensible utility is hot when it enters hotter than it leaves.
+std::vector<UtilityLevel> utilityLevels(const StreamSet& set);
 
 Result<Recovery> recoveryTargets(std::span<const RecoveryStream> streams, double dTmin,
                                  std::span<const UtilityLevel> levels = {},
                                  double toleranceK = kRecoveryToleranceK);
+
+// The targets of a whole worksheet: every stream (with its ΔTmin
+// contribution), at `dTmin` or else the worksheet's required minimum
+// approach, with the worksheet's utilities placed as levels.
+Result<Recovery> worksheetRecovery(const StreamSet& set, const std::vector<SequenceResult>& results,
+                                   std::optional<double> dTmin = std::nullopt);
+
+// `compute --json` of a worksheet: version 1, today's object plus
+// "recovery"; several streams, { "title", "streams": [ today's object per
+// stream plus "id" ], "recovery" }. `recovery` null when it could not be
+// worked out.
+Json worksheetResultsToJson(const StreamSet& set, const std::vector<SequenceResult>& results,
+                            const Result<Recovery>& recovery);
 
 // The fixed-key `recovery` object (project-format.md, "Additions, second round").
 Json recoveryToJson(const Recovery& r);
