@@ -14,6 +14,7 @@
 
 #include "cli_json.hpp"
 #include "heatchain/project_file.hpp"
+#include "heatchain/recovery.hpp"
 #include "heatchain/results_json.hpp"
 #include "heatchain/solver.hpp"
 #include "heatchain/sweep.hpp"
@@ -105,7 +106,7 @@ PYBIND11_MODULE(_core, m) {
         py::object first = py::none();
         if (const Error* e = r.firstError())
             first = py::make_tuple(e->message, e->where, e->line, e->column);
-        return py::make_tuple(resultsToJson(p, r).dump(), curves, first);
+        return py::make_tuple(resultsWithRecoveryToJson(p, r).dump(), curves, first);
     }, py::arg("project"));
 
     m.def("sweep", [](const Project& p, const std::string& step, const std::string& input, const std::string& from,

@@ -242,9 +242,7 @@ int compute(const Args& a, bool checkOnly) {
     }
     std::string text;
     if (json) {
-        Json j = resultsToJson(*project, result);
-        const auto recovery = worksheetRecovery(*worksheet, {result});
-        j["recovery"] = recovery ? recoveryToJson(*recovery) : Json(nullptr);
+        Json j = resultsWithRecoveryToJson(*project, result);
         if (unc) j["uncertainty"] = uncertaintyJson(*unc);
         text = j.dump(2) + "\n";
     } else if (csv) {

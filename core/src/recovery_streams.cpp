@@ -169,6 +169,15 @@ Json worksheetResultsToJson(const StreamSet& set, const std::vector<SequenceResu
     return j;
 }
 
+Json resultsWithRecoveryToJson(const Project& project, const SequenceResult& result) {
+    const StreamSet set = streamSetOf(project);
+    const std::vector<SequenceResult> results{result};
+    Json j = resultsToJson(project, result);
+    const auto recovery = worksheetRecovery(set, results);
+    j["recovery"] = recovery ? recoveryToJson(*recovery) : Json(nullptr);
+    return j;
+}
+
 Json recoveryToJson(const Recovery& r) {
     const Targets& t = r.targets;
     auto curve = [](const std::vector<CompositePoint>& points, const char* tKey) {

@@ -11,6 +11,7 @@
 #include <gtest/gtest.h>
 
 #include "fuzz/fuzz_inputs.hpp"
+#include "heatchain/streams.hpp"
 
 namespace {
 
@@ -64,7 +65,7 @@ TEST(FuzzCorpus, SampleProjectsAreSeedsAndLoad) {
         ++count;
         const fs::path seed = corpus / e.path().filename();
         EXPECT_TRUE(fs::exists(seed)) << seed << " is missing from the seed corpus";
-        auto p = heatchain::parseProject(readBytes(e.path()), e.path().filename().string());
+        auto p = heatchain::parseStreamSet(readBytes(e.path()), e.path().filename().string());
         EXPECT_TRUE(p.ok()) << e.path().filename() << ": " << (p ? std::string() : p.error().text());
     }
     EXPECT_GE(count, 5);

@@ -20,6 +20,7 @@
 #include "heatchain/project_file.hpp"
 #include "heatchain/property_model.hpp"
 #include "heatchain/solver.hpp"
+#include "heatchain/streams.hpp"
 #include "heatchain/substance.hpp"
 #include "heatchain/units.hpp"
 
@@ -29,6 +30,13 @@ namespace heatchain::fuzz {
 // sequence must solve (to values or errors).
 inline std::optional<std::string> projectInput(const std::uint8_t* data, std::size_t size) {
     const std::string_view text(reinterpret_cast<const char*>(data), size);
+    // Several streams (version 2): read, write, read again to the same bytes.
+    if (auto set = parseStreamSet(text, "fuzz.hchain"); set && set->streams.size() > 1) {
+        const std::string written = writeStreamSet(*set);
+        auto again = parseStreamSet(written, "rewritten.hchain");
+        if (!again) return "a worksheet of several streams was written as text that does not load: " + again.error().text();
+        if (writeStreamSet(*again) != written) return "a worksheet of several streams does not write back stably";
+    }
     auto project = parseProject(text, "fuzz.hchain");
     if (!project) return std::nullopt;
     const std::string written = writeProject(*project);

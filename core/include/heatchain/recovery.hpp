@@ -175,6 +175,9 @@ Result<Recovery> worksheetRecovery(const StreamSet& set, const std::vector<Seque
 Json worksheetResultsToJson(const StreamSet& set, const std::vector<SequenceResult>& results,
                             const Result<Recovery>& recovery);
 
+// `compute --json` of a one-stream worksheet: resultsToJson plus "recovery".
+Json resultsWithRecoveryToJson(const Project& project, const SequenceResult& result);
+
 // The fixed-key `recovery` object (project-format.md, "Additions, second round").
 Json recoveryToJson(const Recovery& r);
 
