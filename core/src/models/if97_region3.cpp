@@ -58,14 +58,32 @@ Phi phi(double delta, double tau) {
     return p;
 }
 
-// Pressure and its density derivative on an isotherm (eq. 28, Table 31).
-void pressureAndSlope(double rho, double T, double& P, double& dPdrho) {
-    const double delta = rho / rhoc;
-    const double tau = Tc / T;
-    const Phi f = phi(delta, tau);
-    P = rho * R * T * delta * f.fd;
-    dPdrho = R * T * (2 * delta * f.fd + delta * delta * f.fdd);
-}
+// Pressure and its density derivative along one isotherm (eq. 28, Table
+// 31). They need only the delta derivatives of phi, so the tau powers are
+// made once per isotherm and only the sums SI and SII are formed, term for
+// term as phi() forms them (the same numbers to the last bit).
+class Isotherm {
+public:
+    explicit Isotherm(double T) : T_(T), pt_(Tc / T) {}
+    void pressureAndSlope(double rho, double& P, double& dPdrho) const {
+        const double delta = rho / rhoc;
+        const detail::PowTable<0, 11> pd(delta);
+        double SI = 0, SII = 0;
+        for (const Term& t : kRegion3) {
+            const double v = t.n * pd[t.I] * pt_[t.J];
+            SI += t.I * v;
+            SII += t.I * (t.I - 1) * v;
+        }
+        const double fd = kN1 / delta + SI / delta;
+        const double fdd = -kN1 / (delta * delta) + SII / (delta * delta);
+        P = rho * R * T_ * delta * fd;
+        dPdrho = R * T_ * (2 * delta * fd + delta * delta * fdd);
+    }
+
+private:
+    double T_;
+    detail::PowTable<0, 26> pt_;
+};
 
 }  // namespace
 
@@ -147,13 +165,14 @@ bool region3Density(double T, double P, Branch branch, double& rho) {
     // below on the dilute branch, where it is concave), so that steps never
     // jump into the two-phase loop. A bisection bracket guards every step.
     const bool dense = branch == Branch::Liquid;
+    const Isotherm iso(T);
     // Region 3 ends near 760 kg/m3 (623.15 K, 100 MPa); the polynomial turns
     // over somewhat beyond that, so the dense start is the first density
     // above the root where the isotherm still rises.
     double lo = 1e-3, hi = 0;
     for (double cand : {760.0, 850.0, 950.0}) {
         double p, dp;
-        pressureAndSlope(cand, T, p, dp);
+        iso.pressureAndSlope(cand, p, dp);
         if (p > P && dp > 0) {
             hi = cand;
             break;
@@ -163,7 +182,7 @@ bool region3Density(double T, double P, Branch branch, double& rho) {
     double x = dense ? hi : std::min(P / (R * T), 0.5 * hi);
     for (int it = 0; it < 200; ++it) {
         double p, dp;
-        pressureAndSlope(x, T, p, dp);
+        iso.pressureAndSlope(x, p, dp);
         const double f = p - P;
         if (std::fabs(f) <= 1e-12 * P) {
             if (dp <= 0) return false;  // stopped on the unstable part of the loop
@@ -182,7 +201,7 @@ bool region3Density(double T, double P, Branch branch, double& rho) {
         if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
         if (hi - lo <= 1e-14 * hi) {
             rho = 0.5 * (lo + hi);
-            pressureAndSlope(rho, T, p, dp);
+            iso.pressureAndSlope(rho, p, dp);
             return dp > 0 && std::fabs(p - P) <= 1e-9 * P;
         }
         x = next;

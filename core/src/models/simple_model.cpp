@@ -350,11 +350,14 @@ SimpleModel::LineT SimpleModel::lineTemperature(int lower, int upper, double P, 
     if (Fb == 0) return {LineOutcome::Found, b};
     double T = a + (b - a) * Fa / (Fa - Fb);
     for (int i = 0; i < kMaxIterations; ++i) {
-        const double f = F(T);
+        // F and its slope from one evaluation of each phase's h and s
+        // (G = H - T S as in G(), so F is the same number F(T) gives).
+        const double sl = S(lower, T, P), su = S(upper, T, P);
+        const double f = (H(lower, T, P) - T * sl) - (H(upper, T, P) - T * su);
         if (f == 0) return {LineOutcome::Found, T};
         if (f < 0) a = T;
         else b = T;
-        const double dF = S(upper, T, P) - S(lower, T, P);
+        const double dF = su - sl;
         double next = T - f / dF;
         if (!(next > a && next < b)) next = 0.5 * (a + b);  // bisect when Newton leaves the bracket
         if (std::abs(next - T) <= 1e-14 * T || b - a <= 1e-14 * T) return {LineOutcome::Found, next};
