@@ -10,16 +10,13 @@
 #include <string>
 
 #include "numerics/root.hpp"
+#include "models/number_text.hpp"
 
 namespace heatchain {
 
 namespace {
 
-std::string fmt(double v) {
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%.6g", v);
-    return buf;
-}
+using detail::numberText;
 
 const char* propertyName(Property p) {
     switch (p) {
@@ -121,9 +118,7 @@ Result<State> PropertyModel::solveTemperatureInBracket(const std::function<Resul
         lastF = f;
         T = next;
     }
-    char p[32];
-    std::snprintf(p, sizeof p, "%.6g", P);
-    return makeError("the " + std::string(what) + " state at P = " + p + " Pa did not converge");
+    return makeError("the " + std::string(what) + " state at P = " + numberText(P) + " Pa did not converge");
 }
 
 double PropertyModel::propertyOf(const State& s, Property which) {
@@ -165,7 +160,7 @@ Result<State> PropertyModel::stateTP(double T, double P) const {
 
 Result<State> PropertyModel::stateOnLineP(Transition t, double P, double fraction) const {
     if (!(fraction >= 0.0 && fraction <= 1.0))
-        return makeError("phase fraction " + fmt(fraction) + " is outside 0–1");
+        return makeError("phase fraction " + numberText(fraction) + " is outside 0–1");
     auto T = transitionTemperature(t, P);
     if (!T) return T.error();
     auto lo = phaseState(lowerPhase(t), *T, P);
@@ -177,7 +172,7 @@ Result<State> PropertyModel::stateOnLineP(Transition t, double P, double fractio
 
 Result<State> PropertyModel::stateOnLineT(Transition t, double T, double fraction) const {
     if (!(fraction >= 0.0 && fraction <= 1.0))
-        return makeError("phase fraction " + fmt(fraction) + " is outside 0–1");
+        return makeError("phase fraction " + numberText(fraction) + " is outside 0–1");
     auto P = transitionPressure(t, T);
     if (!P) return P.error();
     auto lo = phaseState(lowerPhase(t), T, *P);
@@ -267,7 +262,7 @@ Result<std::optional<State>> PropertyModel::solveOnIsobarSpan(const IsobarSpan& 
 }
 
 Result<State> PropertyModel::stateP(double P, Property which, double value) const {
-    if (!(P > 0) || !std::isfinite(P)) return makeError("pressure must be positive, got " + fmt(P) + " Pa");
+    if (!(P > 0) || !std::isfinite(P)) return makeError("pressure must be positive, got " + numberText(P) + " Pa");
     if (!std::isfinite(value)) return makeError(std::string(propertyName(which)) + " is not a finite number");
 
     // Walk the isobar from the lowest temperature upward: single-phase spans
@@ -296,8 +291,8 @@ Result<State> PropertyModel::stateP(double P, Property which, double value) cons
         }
         Tlo = tr.entries[i].T;
     }
-    return makeError("no state of " + substance().name + " at " + fmt(P) + " Pa has " +
-                     propertyName(which) + " " + fmt(value) + " " + propertyUnit(which) +
+    return makeError("no state of " + substance().name + " at " + numberText(P) + " Pa has " +
+                     propertyName(which) + " " + numberText(value) + " " + propertyUnit(which) +
                      " within the " + std::string(name()) + " range (" + rangeText() + ")");
 }
 
@@ -338,8 +333,8 @@ Result<State> PropertyModel::stateTV(double T, double v) const {
             } else if (auto st = solveP(lowerPhase(line), *Psat, Pmax)) {
                 return *st;
             }
-            return makeError("no state of " + substance().name + " at " + fmt(T) + " K has specific volume " +
-                             fmt(v) + " m3/kg within the " + std::string(name()) +
+            return makeError("no state of " + substance().name + " at " + numberText(T) + " K has specific volume " +
+                             numberText(v) + " m3/kg within the " + std::string(name()) +
                              " model (a condensed phase it treats as incompressible cannot be compressed further)");
         }
     }
@@ -347,7 +342,7 @@ Result<State> PropertyModel::stateTV(double T, double v) const {
     for (Phase ph : {Phase::Supercritical, Phase::Vapor, Phase::Liquid}) {
         if (auto st = solveP(ph, Pmin, Pmax)) return *st;
     }
-    return makeError("no state of " + substance().name + " at " + fmt(T) + " K has specific volume " + fmt(v) +
+    return makeError("no state of " + substance().name + " at " + numberText(T) + " K has specific volume " + numberText(v) +
                      " m3/kg within the " + std::string(name()) + " range (" + rangeText() + ")");
 }
 

@@ -17,10 +17,13 @@
 #include "models/ammonia_helmholtz.hpp"
 #include "models/ammonia_saturation.hpp"
 #include "models/fluid_with_solid.hpp"
+#include "models/number_text.hpp"
 
 namespace heatchain {
 
 namespace {
+
+using detail::numberText;
 
 namespace eq = detail::nh3;
 using eq::Branch;
@@ -28,12 +31,6 @@ using eq::kDeltaMax;
 using eq::Sat;
 using eq::ancillary;
 using eq::Ancillary;
-
-std::string num(double v) {
-    char buf[32];
-    std::snprintf(buf, sizeof buf, "%.6g", v);
-    return buf;
-}
 
 constexpr std::string_view kName = "Tillner-Roth et al. (1993) ammonia equation";
 constexpr std::string_view kSrcLiquid = "Tillner-Roth et al. (1993), liquid";
@@ -162,7 +159,7 @@ Result<double> AmmoniaModel::density(Branch b, double T, double P) const {
     }
     if (!d)
         return makeError(std::string(b == Branch::Vapour ? "no vapour" : b == Branch::Liquid ? "no liquid" : "no fluid") +
-                         " density of ammonia at " + num(T) + " K and " + num(P) + " Pa in the Tillner-Roth equation" +
+                         " density of ammonia at " + numberText(T) + " K and " + numberText(P) + " Pa in the Tillner-Roth equation" +
                          (b == Branch::Vapour ? " (the pressure is beyond the vapour spinodal)"
                           : b == Branch::Liquid ? " (the pressure is below the liquid spinodal)"
                                                 : ""));
@@ -210,13 +207,13 @@ Result<bool> AmmoniaModel::aboveSaturation(double T, double P) const {
 
 Result<State> AmmoniaModel::phaseState(Phase phase, double T, double P) const {
     if (!(T > 0) || !(P > 0) || !std::isfinite(T) || !std::isfinite(P))
-        return makeError("the ammonia reference model needs finite T > 0 and P > 0 (got T = " + num(T) + " K, P = " +
-                         num(P) + " Pa)");
+        return makeError("the ammonia reference model needs finite T > 0 and P > 0 (got T = " + numberText(T) + " K, P = " +
+                         numberText(P) + " Pa)");
     if (isTwoPhase(phase)) return makeError("phaseState needs a single phase, not " + std::string(phaseId(phase)));
     if (phase == Phase::Solid) return solidState(T, P);
     if (T < 0.5 * TlowValid_ || T > 2.0 * kTmaxSolver)
-        return makeError("fluid ammonia at " + num(T) + " K is far outside the Tillner-Roth equation's range (" +
-                         num(eq::Ttriple) + "–" + num(kTmaxValid) + " K)");
+        return makeError("fluid ammonia at " + numberText(T) + " K is far outside the Tillner-Roth equation's range (" +
+                         numberText(eq::Ttriple) + "–" + numberText(kTmaxValid) + " K)");
     if (T >= eq::Tc) {
         // Above Tc the isotherm is monotonic: one fluid, named by the pressure.
         auto d = density(Branch::Single, T, P);
@@ -274,11 +271,11 @@ Result<Phase> AmmoniaModel::subcriticalFluidPhase(double T, double P) const {
 
 Result<Sat> AmmoniaModel::saturation(double T) const {
     if (!(T <= eq::Tc))
-        return makeError("no boiling above the critical temperature " + num(eq::Tc) + " K of ammonia (T = " + num(T) +
+        return makeError("no boiling above the critical temperature " + numberText(eq::Tc) + " K of ammonia (T = " + numberText(T) +
                          " K)");
     if (T < Ttp_ * (1 - 1e-12))
-        return makeError("no liquid–vapour line below the triple-point temperature " + num(Ttp_) +
-                         " K of ammonia (T = " + num(T) + " K)");
+        return makeError("no liquid–vapour line below the triple-point temperature " + numberText(Ttp_) +
+                         " K of ammonia (T = " + numberText(T) + " K)");
     // Within 1e-7 Tc of the critical point the two densities merge; the
     // equation's critical state stands for both.
     if (eq::Tc - T < 1e-7 * eq::Tc) return Sat{Pc_, 1.0, 1.0};
@@ -287,16 +284,16 @@ Result<Sat> AmmoniaModel::saturation(double T) const {
     if (auto s = eq::satNewton(T, dl, dv)) return *s;
     const double pi0 = std::exp(a.lnPAt(T)) / (eq::rhoc * eq::R * T);
     if (auto s = eq::satByPressure(T, 0.5 * (dl + dv), pi0, dl, dv)) return *s;
-    return makeError("the vapour pressure of ammonia at " + num(T) + " K did not converge");
+    return makeError("the vapour pressure of ammonia at " + numberText(T) + " K did not converge");
 }
 
 Result<double> AmmoniaModel::boilingTemperature(double P) const {
     if (P > Pc_)
-        return makeError("no boiling above the critical pressure " + num(Pc_) + " Pa of ammonia (Tc = " + num(eq::Tc) +
+        return makeError("no boiling above the critical pressure " + numberText(Pc_) + " Pa of ammonia (Tc = " + numberText(eq::Tc) +
                          " K)");
     if (P == Pc_) return eq::Tc;
     if (P < Ptp_ * (1 - 1e-12))
-        return makeError("no boiling below the triple-point pressure " + num(Ptp_) + " Pa of ammonia; the solid "
+        return makeError("no boiling below the triple-point pressure " + numberText(Ptp_) + " Pa of ammonia; the solid "
                          "sublimates instead");
     if (P <= Ptp_) return Ttp_;
     double lo = Ttp_, hi = eq::Tc;
@@ -316,7 +313,7 @@ Result<double> AmmoniaModel::boilingTemperature(double P) const {
         if (std::abs(next - T) <= 1e-13 * T || hi - lo <= 1e-13 * hi) return next;
         T = next;
     }
-    return makeError("the boiling temperature of ammonia at " + num(P) + " Pa did not converge");
+    return makeError("the boiling temperature of ammonia at " + numberText(P) + " Pa did not converge");
 }
 
 Result<double> AmmoniaModel::boilingPressure(double T) const {
@@ -334,11 +331,11 @@ Result<State> AmmoniaModel::stateTV(double T, double v) const {
     // base class finds that from the sublimation line.
     if (hasSolid_ && T < Ttp_) return PropertyModel::stateTV(T, v);
     if (T < 0.5 * TlowValid_ || T > 2.0 * kTmaxSolver)
-        return makeError("ammonia at " + num(T) + " K is far outside the Tillner-Roth equation's range");
+        return makeError("ammonia at " + numberText(T) + " K is far outside the Tillner-Roth equation's range");
     // The equation is explicit in (T, rho): only the two-phase test needs a solve.
     const double delta = 1.0 / (v * eq::rhoc);
     if (delta > kDeltaMax)
-        return makeError("specific volume " + num(v) + " m3/kg of ammonia is denser than the equation reaches");
+        return makeError("specific volume " + numberText(v) + " m3/kg of ammonia is denser than the equation reaches");
     if (T < eq::Tc) {
         auto s = saturation(T);
         if (!s) return s.error();
@@ -354,7 +351,7 @@ Result<State> AmmoniaModel::stateTV(double T, double v) const {
         return st;
     }
     State st = fluidState(T, delta, Phase::Vapor, kSrcVapor, WarnNone);
-    if (!(st.P > 0)) return makeError("no positive pressure for ammonia at " + num(T) + " K and v = " + num(v));
+    if (!(st.P > 0)) return makeError("no positive pressure for ammonia at " + numberText(T) + " K and v = " + numberText(v));
     if (st.P >= Pc_) {
         st.phase = Phase::Supercritical;
         st.source = kSrcSuper;
@@ -365,9 +362,9 @@ Result<State> AmmoniaModel::stateTV(double T, double v) const {
 // ---------------------------------------------------------------- text and set-up
 
 std::string AmmoniaModel::rangeText() const {
-    return "Tillner-Roth et al. (1993) ammonia equation: " + num(eq::Ttriple) + " K to " + num(kTmaxValid) +
-           " K, up to " + num(kPmaxValid / 1e6) + " MPa (gas to " + num(kTmaxSolver) +
-           " K with a range warning); solid below " + num(Tm_) +
+    return "Tillner-Roth et al. (1993) ammonia equation: " + numberText(eq::Ttriple) + " K to " + numberText(kTmaxValid) +
+           " K, up to " + numberText(kPmaxValid / 1e6) + " MPa (gas to " + numberText(kTmaxSolver) +
+           " K with a range warning); solid below " + numberText(Tm_) +
            " K from the library's solid cp and enthalpy of fusion, melting line taken as vertical";
 }
 

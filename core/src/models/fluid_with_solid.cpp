@@ -2,21 +2,13 @@
 // equations of state (fluid_with_solid.hpp says how the solid is made).
 #include "models/fluid_with_solid.hpp"
 
+#include "models/number_text.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
 
 namespace heatchain::detail {
-
-namespace {
-
-std::string num(double v) {
-    char buf[32];
-    std::snprintf(buf, sizeof buf, "%.6g", v);
-    return buf;
-}
-
-}  // namespace
 
 std::string FluidWithSolidModel::who() const {
     const Substance& s = substance();
@@ -87,7 +79,7 @@ Result<double> FluidWithSolidModel::sublimationPressure(double T) const {
         return makeError(who() + " has no solid in the " + std::string(modelLabel()) +
                          " (needs melting data and cp.solid)");
     if (T > Ttp_ * (1 + 1e-12))
-        return makeError("no sublimation above the triple-point temperature " + num(Ttp_) + " K of " + who());
+        return makeError("no sublimation above the triple-point temperature " + numberText(Ttp_) + " K of " + who());
     if (T >= Ttp_) return Ptp_;
     auto gs0 = solidGibbs(Ttp_, Ptp_);
     if (!gs0) return gs0.error();
@@ -119,7 +111,7 @@ Result<double> FluidWithSolidModel::sublimationPressure(double T) const {
         if (hi - lo < 1e-14 * hi) return P;
         P = next;
     }
-    return makeError("the sublimation pressure of " + who() + " at " + num(T) + " K did not converge");
+    return makeError("the sublimation pressure of " + who() + " at " + numberText(T) + " K did not converge");
 }
 
 Result<double> FluidWithSolidModel::sublimationTemperature(double P) const {
@@ -127,7 +119,7 @@ Result<double> FluidWithSolidModel::sublimationTemperature(double P) const {
         return makeError(who() + " has no solid in the " + std::string(modelLabel()) +
                          " (needs melting data and cp.solid)");
     if (P > Ptp_ * (1 + 1e-12))
-        return makeError("no sublimation above the triple-point pressure " + num(Ptp_) + " Pa of " + who());
+        return makeError("no sublimation above the triple-point pressure " + numberText(Ptp_) + " Pa of " + who());
     if (P >= Ptp_) return Ttp_;
     auto gs0 = solidGibbs(Ttp_, Ptp_);
     if (!gs0) return gs0.error();
@@ -157,7 +149,7 @@ Result<double> FluidWithSolidModel::sublimationTemperature(double P) const {
         if (hi - lo < 1e-13 * hi) return T;
         T = next;
     }
-    return makeError("the sublimation temperature of " + who() + " at " + num(P) + " Pa did not converge");
+    return makeError("the sublimation temperature of " + who() + " at " + numberText(P) + " Pa did not converge");
 }
 
 Result<double> FluidWithSolidModel::transitionTemperature(Transition t, double P) const {
@@ -170,7 +162,7 @@ Result<double> FluidWithSolidModel::transitionTemperature(Transition t, double P
                 return makeError(who() + " has no solid in the " + std::string(modelLabel()) +
                                  " (needs melting data and cp.solid)");
             if (P < Ptp_ * (1 - 1e-12))
-                return makeError("no melting below the triple-point pressure " + num(Ptp_) + " Pa of " + who() +
+                return makeError("no melting below the triple-point pressure " + numberText(Ptp_) + " Pa of " + who() +
                                  "; the solid sublimates instead");
             return Tm_;
     }
@@ -189,7 +181,7 @@ Result<double> FluidWithSolidModel::transitionPressure(Transition t, double T) c
                 return makeError(who() + " has no solid in the " + std::string(modelLabel()) +
                                  " (needs melting data and cp.solid)");
             if (std::abs(T - Tm_) > 1e-9 * Tm_)
-                return makeError("the model melts " + who() + " only at " + num(Tm_) +
+                return makeError("the model melts " + who() + " only at " + numberText(Tm_) +
                                  " K (pressure-independent melting temperature)");
             return Pm_;
     }
@@ -232,14 +224,14 @@ Result<std::optional<State>> FluidWithSolidModel::solveOnIsobarSpan(const Isobar
         auto sa = phaseState(ph, span.Ta, P);
         if (!sa) return sa.error();
         if (propertyOf(*sa, which) > value)
-            return makeError("the value lies below the " + std::string(modelLabel()) + "'s range at " + num(P) +
-                             " Pa (lowest temperature " + num(span.Ta) + " K)");
+            return makeError("the value lies below the " + std::string(modelLabel()) + "'s range at " + numberText(P) +
+                             " Pa (lowest temperature " + numberText(span.Ta) + " K)");
     } else {
         ph = upperPhase(tr.entries[span.index - 1].kind);
     }
     auto aboveRange = [&] {
-        return makeError("the value lies above the " + std::string(modelLabel()) + "'s range at " + num(P) +
-                         " Pa (highest temperature " + num(span.Tb) + " K)");
+        return makeError("the value lies above the " + std::string(modelLabel()) + "'s range at " + numberText(P) +
+                         " Pa (highest temperature " + numberText(span.Tb) + " K)");
     };
     if (!(span.Tb > span.Ta)) {  // an empty span (the lowest temperature above a line)
         if (span.last()) return aboveRange();

@@ -15,17 +15,13 @@
 #include "heatchain/constants.hpp"
 #include "models/cubic.hpp"
 #include "models/fluid_with_solid.hpp"
+#include "models/number_text.hpp"
 
 namespace heatchain {
 
 namespace {
 
-// Numbers in messages for people: "126.19", not "126.190000".
-std::string shortNumber(double v) {
-    char buf[32];
-    std::snprintf(buf, sizeof buf, "%.6g", v);
-    return buf;
-}
+using detail::numberText;
 
 constexpr double kR = kGasConstant;
 constexpr double kSqrt2 = std::numbers::sqrt2;
@@ -278,8 +274,8 @@ State PengRobinsonModel::fluidState(double T, double P, const RootEval& r, Phase
 
 Result<State> PengRobinsonModel::phaseState(Phase phase, double T, double P) const {
     if (!(T > 0) || !(P > 0) || !std::isfinite(T) || !std::isfinite(P))
-        return makeError("the real-fluid model needs T > 0 and P > 0 (got T = " + shortNumber(T) +
-                         " K, P = " + shortNumber(P) + " Pa)");
+        return makeError("the real-fluid model needs T > 0 and P > 0 (got T = " + numberText(T) +
+                         " K, P = " + numberText(P) + " Pa)");
     if (isTwoPhase(phase))
         return makeError("phaseState needs a single phase, not " + std::string(phaseId(phase)));
     if (phase == Phase::Solid) return solidState(T, P);
@@ -364,11 +360,11 @@ Result<Phase> PengRobinsonModel::subcriticalFluidPhase(double T, double P) const
 
 Result<PengRobinsonModel::Saturation> PengRobinsonModel::saturation(double T, double pStart) const {
     if (T > Tc_)
-        return makeError("no boiling above the critical temperature Tc = " + shortNumber(Tc_) + " K of " + who() +
-                         " (T = " + shortNumber(T) + " K)");
+        return makeError("no boiling above the critical temperature Tc = " + numberText(Tc_) + " K of " + who() +
+                         " (T = " + numberText(T) + " K)");
     if (hasLowerLimit_ && T < Ttp_ * (1 - 1e-12))
-        return makeError("no liquid–vapour line below the triple-point temperature " + shortNumber(Ttp_) + " K of " +
-                         who() + " (T = " + shortNumber(T) + " K)");
+        return makeError("no liquid–vapour line below the triple-point temperature " + numberText(Ttp_) + " K of " +
+                         who() + " (T = " + numberText(T) + " K)");
     const AlphaTerm al = alpha(T);
     Saturation out;
     if (Tc_ - T < 1e-7 * Tc_) {  // the two roots merge; the critical point of PR is (Tc, Pc) by construction
@@ -415,16 +411,16 @@ Result<PengRobinsonModel::Saturation> PengRobinsonModel::saturation(double T, do
         }
         P = next;
     }
-    return makeError("the saturation pressure of " + who() + " at " + shortNumber(T) + " K did not converge");
+    return makeError("the saturation pressure of " + who() + " at " + numberText(T) + " K did not converge");
 }
 
 Result<double> PengRobinsonModel::boilingTemperature(double P) const {
     if (P > Pc_)
-        return makeError("no boiling above the critical pressure Pc = " + shortNumber(Pc_) + " Pa of " + who() +
-                         " (Tc = " + shortNumber(Tc_) + " K)");
+        return makeError("no boiling above the critical pressure Pc = " + numberText(Pc_) + " Pa of " + who() +
+                         " (Tc = " + numberText(Tc_) + " K)");
     if (P == Pc_) return Tc_;
     if (hasLowerLimit_ && P < Ptp_)
-        return makeError("no boiling below the triple-point pressure " + shortNumber(Ptp_) + " Pa of " + who() +
+        return makeError("no boiling below the triple-point pressure " + numberText(Ptp_) + " Pa of " + who() +
                          "; the solid sublimates instead");
     double lo = hasLowerLimit_ ? Ttp_ : 0.2 * Tc_, hi = Tc_;
     // Start: Wilson's correlation inverted.
@@ -446,7 +442,7 @@ Result<double> PengRobinsonModel::boilingTemperature(double P) const {
         pGuess = sat->P;
         T = next;
     }
-    return makeError("the boiling temperature of " + who() + " at " + shortNumber(P) + " Pa did not converge");
+    return makeError("the boiling temperature of " + who() + " at " + numberText(P) + " Pa did not converge");
 }
 
 Result<double> PengRobinsonModel::boilingPressure(double T) const {
@@ -458,11 +454,7 @@ Result<double> PengRobinsonModel::boilingPressure(double T) const {
 // ---------------------------------------------------------------- text
 
 std::string PengRobinsonModel::rangeText() const {
-    auto g = [](double v) {
-        char buf[32];
-        std::snprintf(buf, sizeof buf, "%.6g", v);
-        return std::string(buf);
-    };
+    auto g = numberText;
     return "Peng–Robinson real fluid for " + (sub_.name.empty() ? who() : sub_.name) + ": " + g(Tmin_) +
            " K to " + g(Tmax_) + " K, up to " + g(maxPressure() / 1e6) +
            " MPa; least accurate near the critical point and for liquid densities "
@@ -550,7 +542,7 @@ Status PengRobinsonModel::init() {
     if (!ref) return ref.error();
     if (ref->warnings & WarnCubicFallback)
         return makeError("the Peng–Robinson cubic of " + who() + " has no liquid root at the reference point " +
-                         shortNumber(T0) + " K");
+                         numberText(T0) + " K");
     hOff_ = -ref->h;
     sOff_ = -ref->s;
     return Ok{};

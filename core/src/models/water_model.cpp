@@ -18,9 +18,12 @@
 
 #include "heatchain/models/ice_ih.hpp"
 #include "heatchain/models/if97.hpp"
+#include "models/number_text.hpp"
 
 namespace heatchain {
 namespace {
+
+using detail::numberText;
 
 namespace w = if97;
 
@@ -45,12 +48,6 @@ constexpr double kFluidTmax = 2500.0;
 constexpr double kFluidPmax = ice::kMaxPressure;  // the liquid side of the ice Ih melting line
 constexpr double kMetastableVapourPmax = 10e6;    // R7-97(2012), Sec. 6.2: eq. 18 for p ≤ 10 MPa
 constexpr double kIceTmaxMetastable = 300.0;      // superheated ice, flagged
-
-std::string fmt(double v) {
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%.6g", v);
-    return buf;
-}
 
 // IF97 and ice Ih give the same set of properties in their own structs.
 template <class Props>
@@ -266,9 +263,9 @@ private:
 Result<State> WaterReferenceModel::iceState(double T, double P) const {
     if (!(T > 0) || !(P > 0)) return makeError("ice Ih needs a positive temperature and pressure");
     if (P > ice::kMaxPressure)
-        return makeError("ice Ih (IAPWS R10-06) is defined up to 210 MPa; got " + fmt(P / 1e6) + " MPa");
+        return makeError("ice Ih (IAPWS R10-06) is defined up to 210 MPa; got " + numberText(P / 1e6) + " MPa");
     if (T > kIceTmaxMetastable)
-        return makeError("ice Ih above " + fmt(kIceTmaxMetastable) + " K is not modelled (got " + fmt(T) + " K)");
+        return makeError("ice Ih above " + numberText(kIceTmaxMetastable) + " K is not modelled (got " + numberText(T) + " K)");
     State s = fromIce(ice::props(T, P));
     if (T > w::Tt) s.warnings |= WarnAboveTemperatureRange | WarnMetastable;
     else if (T < ice::kSublTmin) s.warnings |= WarnBelowTemperatureRange;
@@ -282,10 +279,10 @@ Result<State> WaterReferenceModel::iceState(double T, double P) const {
 
 Result<State> WaterReferenceModel::fluidState(Phase requested, double T, double P) const {
     if (!(P > 0) || !std::isfinite(P) || !std::isfinite(T))
-        return makeError("water needs a finite positive pressure, got " + fmt(P) + " Pa");
+        return makeError("water needs a finite positive pressure, got " + numberText(P) + " Pa");
     if (T < kFluidTmin || T > kFluidTmax || P > kFluidPmax)
-        return makeError("(" + fmt(T) + " K, " + fmt(P) + " Pa) is outside what IAPWS-IF97 can be stretched to (" +
-                         fmt(kFluidTmin) + "–" + fmt(kFluidTmax) + " K, up to " + fmt(kFluidPmax / 1e6) + " MPa)");
+        return makeError("(" + numberText(T) + " K, " + numberText(P) + " Pa) is outside what IAPWS-IF97 can be stretched to (" +
+                         numberText(kFluidTmin) + "–" + numberText(kFluidTmax) + " K, up to " + numberText(kFluidPmax / 1e6) + " MPa)");
     const std::uint32_t flags = fluidRangeFlags(T, P);
     const Phase eq = fluidPhase(T, P);
     auto done = [&](const w::Props& p, Phase ph, std::string_view src, std::uint32_t extra = WarnNone) {
@@ -303,7 +300,7 @@ Result<State> WaterReferenceModel::fluidState(Phase requested, double T, double 
         if (wantVapor && P > ps * (1 + kLineSlack)) {
             // Subcooled (metastable) vapour: eq. 18 up to 10 MPa only.
             if (P > kMetastableVapourPmax || T < w::Tmin)
-                return makeError("vapour at " + fmt(T) + " K and " + fmt(P / 1e6) +
+                return makeError("vapour at " + numberText(T) + " K and " + numberText(P / 1e6) +
                                  " MPa is beyond IF97's metastable-vapour equation (eq. 18, up to 10 MPa)");
             return done(w::region2Metastable(T, P), Phase::Vapor, kSrc2m, WarnMetastable);
         }
@@ -329,14 +326,14 @@ Result<State> WaterReferenceModel::fluidState(Phase requested, double T, double 
     // 623.15 K < T ≤ 1073.15 K: region 2 below B23, region 3 above.
     if (T > w::T23max || P <= w::b23Pressure(T)) {
         if (wantLiquid && T < w::Tc)
-            return makeError("liquid at " + fmt(T) + " K and " + fmt(P / 1e6) +
+            return makeError("liquid at " + numberText(T) + " K and " + numberText(P / 1e6) +
                              " MPa lies in IF97 region 2, which has no liquid branch");
         return done(w::region2(T, P), eq, kSrc2);
     }
     double rho = 0;
     if (T >= w::Tc) {
         if (!w::region3Density(T, P, P >= w::Pc ? w::Branch::Liquid : w::Branch::Vapor, rho))
-            return makeError("no IF97 region 3 density at " + fmt(T) + " K, " + fmt(P / 1e6) + " MPa");
+            return makeError("no IF97 region 3 density at " + numberText(T) + " K, " + numberText(P / 1e6) + " MPa");
         return done(w::region3(rho, T), eq, kSrc3);
     }
     const Phase ph = wantLiquid ? Phase::Liquid : (wantVapor ? Phase::Vapor : eq);
@@ -347,7 +344,7 @@ Result<State> WaterReferenceModel::fluidState(Phase requested, double T, double 
     const bool meta = (ph == Phase::Liquid && P < ps * (1 - kLineSlack)) ||
                       (ph == Phase::Vapor && P > ps * (1 + kLineSlack));
     if (!w::region3Density(T, P, ph == Phase::Liquid ? w::Branch::Liquid : w::Branch::Vapor, rho))
-        return makeError(std::string(phaseLabel(ph)) + " at " + fmt(T) + " K and " + fmt(P / 1e6) +
+        return makeError(std::string(phaseLabel(ph)) + " at " + numberText(T) + " K and " + numberText(P / 1e6) +
                          " MPa is past the IF97 region 3 spinodal: no such metastable state");
     return done(w::region3(rho, T), ph, kSrc3, meta ? WarnMetastable : WarnNone);
 }
@@ -364,11 +361,11 @@ Result<Phase> WaterReferenceModel::stablePhase(double T, double P) const {
     if (!(T > 0) || !(P > 0)) return makeError("temperature and pressure must be positive");
     if (T < w::Tt) {
         if (T < ice::kSublTmin)
-            return makeError("below " + fmt(ice::kSublTmin) + " K the sublimation curve (IAPWS R14-08) is not defined");
+            return makeError("below " + numberText(ice::kSublTmin) + " K the sublimation curve (IAPWS R14-08) is not defined");
         if (P < ice::sublimationPressure(T)) return Phase::Vapor;
         if (T >= ice::kMeltTmin) return P > ice::meltingPressure(T) ? Phase::Liquid : Phase::Solid;
         if (P > ice::meltingPressureMax())
-            return makeError("at " + fmt(T) + " K and " + fmt(P / 1e6) +
+            return makeError("at " + numberText(T) + " K and " + numberText(P / 1e6) +
                              " MPa water is a high-pressure ice, which is not modelled (only ice Ih)");
         return Phase::Solid;
     }
@@ -388,21 +385,21 @@ Result<double> WaterReferenceModel::transitionTemperature(Transition t, double P
         case Transition::Boiling:
             if (!(P >= w::Pt * (1 - kLineSlack) && P <= w::Pc))
                 return makeError("water boils only between the triple point (611.657 Pa) and the critical point "
-                                 "(22.064 MPa); got " + fmt(P) + " Pa");
+                                 "(22.064 MPa); got " + numberText(P) + " Pa");
             return std::max(w::saturationTemperature(std::max(P, w::Pt)), w::Tt);
         case Transition::Melting: {
             const double T = ice::meltingTemperature(P);
             if (!std::isfinite(T))
                 return makeError("the ice Ih melting curve (IAPWS R14-08) spans 251.165–273.16 K, from the triple "
-                                 "point 611.657 Pa to " + fmt(ice::meltingPressureMax() / 1e6) + " MPa; got " +
-                                 fmt(P) + " Pa");
+                                 "point 611.657 Pa to " + numberText(ice::meltingPressureMax() / 1e6) + " MPa; got " +
+                                 numberText(P) + " Pa");
             return T;
         }
         case Transition::Sublimation: {
             const double T = ice::sublimationTemperature(P);
             if (!std::isfinite(T))
                 return makeError("the sublimation curve (IAPWS R14-08) spans 50–273.16 K, up to the triple point "
-                                 "611.657 Pa; got " + fmt(P) + " Pa");
+                                 "611.657 Pa; got " + numberText(P) + " Pa");
             return T;
         }
     }
@@ -414,15 +411,15 @@ Result<double> WaterReferenceModel::transitionPressure(Transition t, double T) c
         case Transition::Boiling:
             if (!(T >= w::Tt && T <= w::Tc))
                 return makeError("water boils only between 273.16 K and the critical temperature 647.096 K; got " +
-                                 fmt(T) + " K");
+                                 numberText(T) + " K");
             return w::saturationPressure(T);
         case Transition::Melting:
             if (!(T >= ice::kMeltTmin && T <= w::Tt))
-                return makeError("the ice Ih melting curve (IAPWS R14-08) spans 251.165–273.16 K; got " + fmt(T) + " K");
+                return makeError("the ice Ih melting curve (IAPWS R14-08) spans 251.165–273.16 K; got " + numberText(T) + " K");
             return ice::meltingPressure(T);
         case Transition::Sublimation:
             if (!(T >= ice::kSublTmin && T <= w::Tt))
-                return makeError("the sublimation curve (IAPWS R14-08) spans 50–273.16 K; got " + fmt(T) + " K");
+                return makeError("the sublimation curve (IAPWS R14-08) spans 50–273.16 K; got " + numberText(T) + " K");
             return ice::sublimationPressure(T);
     }
     return makeError("unknown transition");
@@ -571,15 +568,15 @@ Result<State> WaterReferenceModel::fluidOnIsobar(double P, Property which, doubl
         }
         return solveSpan(sp, which, value, fa, fb);
     }
-    return makeError("no state of water at " + fmt(P) + " Pa has " + (H ? "specific enthalpy " : "specific entropy ") +
-                     fmt(value) + (H ? " J/kg" : " J/(kg K)") + " within " + rangeText());
+    return makeError("no state of water at " + numberText(P) + " Pa has " + (H ? "specific enthalpy " : "specific entropy ") +
+                     numberText(value) + (H ? " J/kg" : " J/(kg K)") + " within " + rangeText());
 }
 
 Result<State> WaterReferenceModel::stateP(double P, Property which, double value) const {
     if (which != Property::Enthalpy && which != Property::Entropy) return PropertyModel::stateP(P, which, value);
-    if (!(P > 0) || !std::isfinite(P)) return makeError("pressure must be positive, got " + fmt(P) + " Pa");
+    if (!(P > 0) || !std::isfinite(P)) return makeError("pressure must be positive, got " + numberText(P) + " Pa");
     if (!std::isfinite(value)) return makeError("the specific enthalpy or entropy is not a finite number");
-    if (P > kFluidPmax) return makeError("pressure " + fmt(P / 1e6) + " MPa is above the model's range (" + rangeText() + ")");
+    if (P > kFluidPmax) return makeError("pressure " + numberText(P / 1e6) + " MPa is above the model's range (" + rangeText() + ")");
     auto prop = [which](const State& s) { return which == Property::Enthalpy ? s.h : s.s; };
 
     // Fast path: a state clearly inside region 1, 2 or 3.
@@ -615,9 +612,9 @@ Result<State> WaterReferenceModel::stateP(double P, Property which, double value
     auto cold = iceState(sp.a, P);
     if (!cold) return cold.error();
     if (value < prop(*cold))
-        return makeError("no state of water at " + fmt(P) + " Pa has this " +
+        return makeError("no state of water at " + numberText(P) + " Pa has this " +
                          (which == Property::Enthalpy ? "enthalpy" : "entropy") + ": it is below ice Ih at " +
-                         fmt(sp.a) + " K");
+                         numberText(sp.a) + " K");
     return solveSpan(sp, which, value, prop(*cold), prop(*solid));
 }
 
