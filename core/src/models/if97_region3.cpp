@@ -4,8 +4,6 @@
 #include <algorithm>
 #include <cmath>
 #include <initializer_list>
-#include <iterator>
-#include <utility>
 
 #include "models/if97_detail.hpp"
 
@@ -40,8 +38,16 @@ struct Phi {
 Phi phi(double delta, double tau) {
     const detail::PowTable<0, 11> pd(delta);
     const detail::PowTable<0, 26> pt(tau);
-    const detail::SeriesSums m = detail::seriesSums<kRegion3>(pd, pt);
-    const double S = m.S, SI = m.SI, SII = m.SII, SJ = m.SJ, SJJ = m.SJJ, SIJ = m.SIJ;
+    double S = 0, SI = 0, SII = 0, SJ = 0, SJJ = 0, SIJ = 0;
+    for (const Term& t : kRegion3) {
+        const double v = t.n * pd[t.I] * pt[t.J];
+        S += v;
+        SI += t.I * v;
+        SII += t.I * (t.I - 1) * v;
+        SJ += t.J * v;
+        SJJ += t.J * (t.J - 1) * v;
+        SIJ += t.I * t.J * v;
+    }
     Phi p;
     p.f = kN1 * std::log(delta) + S;
     p.fd = kN1 / delta + SI / delta;
@@ -63,7 +69,11 @@ public:
         const double delta = rho / rhoc;
         const detail::PowTable<0, 11> pd(delta);
         double SI = 0, SII = 0;
-        deltaSums(pd, SI, SII, std::make_index_sequence<std::size(kRegion3)>{});
+        for (const Term& t : kRegion3) {
+            const double v = t.n * pd[t.I] * pt_[t.J];
+            SI += t.I * v;
+            SII += t.I * (t.I - 1) * v;
+        }
         const double fd = kN1 / delta + SI / delta;
         const double fdd = -kN1 / (delta * delta) + SII / (delta * delta);
         P = rho * R * T_ * delta * fd;
@@ -71,21 +81,6 @@ public:
     }
 
 private:
-    // Unrolled over the table in its order; the terms with I = 0 (which add
-    // ±0) and I = 1 to SII are left out, which changes no sum.
-    template <std::size_t... K>
-    void deltaSums(const detail::PowTable<0, 11>& pd, double& SI, double& SII, std::index_sequence<K...>) const {
-        (addDelta<kRegion3[K].I, kRegion3[K].J>(kRegion3[K].n, pd, SI, SII), ...);
-    }
-    template <int I, int J>
-    void addDelta(double n, const detail::PowTable<0, 11>& pd, double& SI, double& SII) const {
-        if constexpr (I != 0) {
-            const double v = n * pd[I] * pt_[J];
-            SI += I * v;
-            if constexpr (I != 1) SII += I * (I - 1) * v;
-        }
-    }
-
     double T_;
     detail::PowTable<0, 26> pt_;
 };
