@@ -729,6 +729,9 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
     const long long v = version->is_number_unsigned() ? static_cast<long long>(std::min<std::uint64_t>(
                                                             version->get<std::uint64_t>(), 1ull << 62))
                                                       : version->get<long long>();
+    if (v == 2)  // streams.hpp reads it; this reader holds one stream
+        r.fail({{"version", -1}}, "this worksheet holds several streams (format version 2), which this part of "
+                                  "Heatchain does not open yet; heatchain-cli compute, targets and chart read it");
     if (v > kProjectFormatVersion)
         r.fail({{"version", -1}}, "file is format version " + std::to_string(v) + "; this Heatchain reads version " +
                                       std::to_string(kProjectFormatVersion) + " (a newer Heatchain wrote it)");
