@@ -43,6 +43,32 @@ struct Refiner {
 
 bool exchangesWithOthers(StepKind k) { return !isPressureChangeKind(k); }
 
+// The solver's points joined into as few straight pieces as keep every
+// point within `tolerance` (in T at the point's Q) of its piece: from each
+// start, the piece is grown while all points it passes stay close.
+std::vector<CurvePoint> joined(const std::vector<CurvePoint>& line, double tolerance) {
+    if (line.size() < 3) return line;
+    std::vector<CurvePoint> out{line.front()};
+    std::size_t a = 0;
+    while (a + 1 < line.size()) {
+        std::size_t b = a + 1;
+        while (b + 1 < line.size()) {
+            const std::size_t next = b + 1;
+            const double dQ = line[next].Q - line[a].Q;
+            bool close = dQ != 0;
+            for (std::size_t k = a + 1; close && k < next; ++k) {
+                const double onChord = line[a].T + (line[next].T - line[a].T) * (line[k].Q - line[a].Q) / dQ;
+                close = std::abs(onChord - line[k].T) <= tolerance;
+            }
+            if (!close) break;
+            b = next;
+        }
+        out.push_back(line[b]);
+        a = b;
+    }
+    return out;
+}
+
 }  // namespace
 
 StreamPieces piecesFromStreams(std::span<const RecoveryStream> streams, double toleranceK) {
@@ -70,12 +96,26 @@ StreamPieces piecesFromStreams(std::span<const RecoveryStream> streams, double t
         for (std::size_t i = 0; i < s.result->steps.size() && i < s.project->steps.size(); ++i) {
             const StepResult& step = s.result->steps[i];
             if (!exchangesWithOthers(step.kind)) continue;
-            std::vector<CurvePoint> line;
+            // The solver's points, joined where they lie on one line, then
+            // each piece checked at its middle against the model. The join
+            // keeps a tenth of the tolerance for the curve between points.
+            std::vector<CurvePoint> solved;
             for (const SegmentResult& seg : step.segments) {
                 if (seg.curve.empty()) continue;
-                if (line.empty()) line.push_back(seg.curve.front());
-                for (std::size_t k = 1; k < seg.curve.size(); ++k)
-                    refiner.refine(line.back(), seg.curve[k], 0, line);
+                if (!solved.empty()) {
+                    const CurvePoint& last = solved.back();
+                    const CurvePoint& first = seg.curve.front();
+                    if (last.Q == first.Q && last.T == first.T) solved.pop_back();
+                }
+                solved.insert(solved.end(), seg.curve.begin(), seg.curve.end());
+            }
+            const std::vector<CurvePoint> corners = joined(solved, 0.9 * toleranceK);
+            std::vector<CurvePoint> line;
+            for (std::size_t k = 0; k < corners.size(); ++k) {
+                if (line.empty())
+                    line.push_back(corners[k]);
+                else
+                    refiner.refine(line.back(), corners[k], 0, line);
             }
             for (std::size_t k = 1; k < line.size(); ++k) {
                 const double dQ = line[k].Q - line[k - 1].Q;

@@ -133,10 +133,11 @@ struct StreamPieces {
 // The default for how far a straight piece may stray from the solved curve.
 inline constexpr double kRecoveryToleranceK = 0.05;
 
-// Splits each heating and cooling step of every steady-flow stream into
-// straight pieces, halving a piece until the true temperature at its middle
-// (from the stream's model at the middle enthalpy) is within `toleranceK` of
-// the straight line. Compress, expand and throttle steps are left out (their
+// Cuts each heating and cooling step of every steady-flow stream into
+// straight pieces: the solver's curve points are joined into as few pieces
+// as keep each point within 0.9 · `toleranceK` of its piece, then a piece is
+// halved until the true temperature at its middle (from the stream's model
+// at the middle enthalpy) is within `toleranceK` of the straight line. Compress, expand and throttle steps are left out (their
 // heat is not exchanged with other streams). Closed (batch) streams and
 // streams with a step that could not be computed are excluded, with the
 // reason.
