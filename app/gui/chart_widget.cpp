@@ -26,6 +26,7 @@ ChartWidget::ChartWidget(ProjectDocument* doc, view::ProcessChart::Kind kind, QW
 
 void ChartWidget::refresh() {
     chart_.setStepColours(doc_->stepColours());
+    chart_.setUncertainty(doc_->uncertainty());
     chart_.setData(doc_->project(), doc_->result(), doc_->dome());
     chart_.setSelectedStep(doc_->selectedStep());
     hover_.reset();
@@ -36,12 +37,7 @@ QRectF ChartWidget::chartRect() const { return QRectF(rect()).adjusted(0, 22, 0,
 
 void ChartWidget::paintEvent(QPaintEvent*) {
     QPainter p(this);
-    p.fillRect(rect(), Qt::white);
-    QFont f = font();
-    f.setBold(true);
-    p.setFont(f);
-    p.setPen(view::ink::text());
-    p.drawText(QRectF(8, 2, width() - 16, 20), Qt::AlignVCenter, title_);
+    paintPanelHeading(p, *this, title_);
     if (chart_.kind() == view::ProcessChart::Kind::TemperatureDuty) {
         if (auto a = chart_.smallestApproach()) {
             p.setFont(font());
@@ -94,6 +90,16 @@ void ChartWidget::mousePressEvent(QMouseEvent* e) {
 void ChartWidget::leaveEvent(QEvent*) {
     hover_.reset();
     update();
+}
+
+void paintPanelHeading(QPainter& p, const QWidget& w, const QString& title) {
+    p.fillRect(w.rect(), Qt::white);
+    QFont f = w.font();
+    f.setBold(true);
+    p.setFont(f);
+    p.setPen(view::ink::text());
+    p.drawText(QRectF(8, 2, w.width() - 16, 20), Qt::AlignVCenter, title);
+    p.setFont(w.font());
 }
 
 }  // namespace heatchain::gui

@@ -2,6 +2,7 @@
 // A process chart on screen: draws heatchain::view::ProcessChart, shows the
 // values of the nearest curve point under the mouse, and selects a step on
 // click.
+#include <QPainter>
 #include <QWidget>
 
 #include "document.hpp"
@@ -33,5 +34,9 @@ private:
     QString title_;
     std::optional<view::ProcessChart::Hover> hover_;
 };
+
+// The charts' common face: a white panel with its title in bold at the top
+// left (the painter's font is the widget's again afterwards).
+void paintPanelHeading(QPainter& p, const QWidget& w, const QString& title);
 
 }  // namespace heatchain::gui

@@ -203,7 +203,24 @@ void ProjectDocument::recompute() {
         dome_ = model_ ? saturationDome(*model_) : DomeCurve{};
     }
     result_ = model_ ? solve(project_, model_) : solve(project_);
+    uncertainty_.reset();
+    uncertaintyError_.clear();
+    auto inputs = uncertainInputs(project_);
+    hasUncertainInputs_ = inputs && !inputs->empty();
+    if (!inputs) uncertaintyError_ = QString::fromStdString(inputs.error().message);
+    if (uncertaintyShown_ && hasUncertainInputs_ && !result_.firstError()) {
+        auto u = propagateUncertainty(project_);
+        if (u) uncertainty_ = std::move(*u);
+        else uncertaintyError_ = QString::fromStdString(u.error().message);
+    }
     lastSolveMs_ = double(timer.nsecsElapsed()) / 1e6;
+}
+
+void ProjectDocument::setUncertaintyShown(bool shown) {
+    if (shown == uncertaintyShown_) return;
+    uncertaintyShown_ = shown;
+    recompute();
+    emit changed();
 }
 
 }  // namespace heatchain::gui

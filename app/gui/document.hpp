@@ -17,6 +17,7 @@
 #include "heatchain/project.hpp"
 #include "heatchain/result.hpp"
 #include "heatchain/solver.hpp"
+#include "heatchain/uncertainty.hpp"
 
 namespace heatchain::gui {
 
@@ -79,6 +80,18 @@ public:
     QColor stepColour(int index) const;
     std::vector<QColor> stepColours() const;
 
+    // How sure the results are: the first-order propagation of the
+    // worksheet's tolerances (core's), recomputed with the result while shown.
+    // Null when hidden, when nothing carries a tolerance, or when it failed
+    // (uncertaintyError() then says why).
+    const UncertaintyResult* uncertainty() const { return uncertainty_ ? &*uncertainty_ : nullptr; }
+    QString uncertaintyError() const { return uncertaintyError_; }
+    bool uncertaintyShown() const { return uncertaintyShown_; }
+    void setUncertaintyShown(bool shown);
+    // Whether any input carries a tolerance (or the worksheet asks for the
+    // models' stated uncertainty).
+    bool hasUncertainInputs() const { return hasUncertainInputs_; }
+
     // Time the last solve took, ms.
     double lastSolveMs() const { return lastSolveMs_; }
 
@@ -94,6 +107,10 @@ private:
 
     Project project_;
     SequenceResult result_;
+    std::optional<UncertaintyResult> uncertainty_;
+    QString uncertaintyError_;
+    bool uncertaintyShown_ = true;
+    bool hasUncertainInputs_ = false;
     DomeCurve dome_;
     std::shared_ptr<const PropertyModel> model_;
     std::string modelKey_;  // model kind + substance; the model is rebuilt only when it changes

@@ -3,6 +3,8 @@
 #include <QMouseEvent>
 #include <QPainter>
 
+#include "chart_widget.hpp"
+
 #include "heatchain_view/format.hpp"
 #include "heatchain_view/palette.hpp"
 #include "heatchain_view/utility_text.hpp"
@@ -30,13 +32,7 @@ QRectF ExergyWidget::chartRect() const { return QRectF(rect()).adjusted(4, 24, -
 
 void ExergyWidget::paintEvent(QPaintEvent*) {
     QPainter p(this);
-    p.fillRect(rect(), Qt::white);
-    QFont f = font();
-    f.setBold(true);
-    p.setFont(f);
-    p.setPen(view::ink::text());
-    p.drawText(QRectF(8, 2, width() - 16, 20), Qt::AlignVCenter, tr("Exergy destroyed by step"));
-    p.setFont(font());
+    paintPanelHeading(p, *this, tr("Exergy destroyed by step"));
     const SequenceResult& r = doc_->result();
     if (r.exergyAvailable) {
         p.setPen(view::ink::muted());

@@ -36,7 +36,7 @@ void LedgerModel::refresh() {
     const UnitContext ctx = displayContext(p);
     decimals_.assign(ColumnCount, -1);
     for (int c = ColTin; c < ColumnCount; ++c) {
-        if (c == ColPhase) continue;
+        if (c == ColPhase || isUncertaintyColumn(c)) continue;
         const Dimension d = dimensionOf(c);
         double largest = 0;
         for (const Row& row : rows_)
@@ -50,6 +50,10 @@ void LedgerModel::refresh() {
             decimals_[std::size_t(c)] = std::clamp(4 - mag, 0, 4);
         }
     }
+    // "804.9 ± 12.3": a ± column shows the decimals of the value beside it.
+    decimals_[std::size_t(ColUTout)] = decimals_[std::size_t(ColTout)];
+    decimals_[std::size_t(ColUQ)] = decimals_[std::size_t(ColQ)];
+    decimals_[std::size_t(ColUW)] = decimals_[std::size_t(ColW)];
     endResetModel();
     emit headerDataChanged(Qt::Horizontal, 0, ColumnCount - 1);
 }
@@ -88,6 +92,8 @@ Dimension LedgerModel::dimensionOf(int column) const {
     const SystemKind sys = doc_->result().system;
     switch (column) {
     case ColTin: case ColTout: return Dimension::Temperature;
+    case ColUTout: return Dimension::TemperatureDifference;
+    case ColUQ: case ColUW: return energyDimension(sys);
     case ColPin: case ColPout: return Dimension::Pressure;
     case ColQ: case ColW: case ColdH: case ColdU: case ColExd: return energyDimension(sys);
     case ColdS: case ColSgen: return entropyDimension(sys);
@@ -97,6 +103,20 @@ Dimension LedgerModel::dimensionOf(int column) const {
 
 QVariant LedgerModel::siValue(const Row& row, int c) const {
     const SequenceResult& r = doc_->result();
+    if (isUncertaintyColumn(c)) {
+        const UncertaintyResult* u = doc_->uncertainty();
+        if (!u) return {};
+        std::string path;
+        const char* key = c == ColUQ ? ".Q" : c == ColUW ? ".W" : ".end.T_K";
+        if (row.kind == RowKind::Step) path = "steps." + r.steps[std::size_t(row.step)].id + key;
+        else if (c != ColUTout && row.kind == RowKind::Total) path = std::string("totals") + key;
+        else if (c == ColUQ && row.kind == RowKind::HeatingDuty) path = "totals.heatingDuty";
+        else if (c == ColUQ && row.kind == RowKind::CoolingDuty) path = "totals.coolingDuty";
+        const UncertainOutput* o = path.empty() ? nullptr : u->find(path);
+        if (!o) return {};
+        // Below the solver's own noise a spread is none (as the command line).
+        return o->u <= 1e-9 * std::fabs(o->value) ? 0.0 : o->u;
+    }
     auto fromState = [&](const State& a, const State& b) -> QVariant {
         switch (c) {
         case ColTin: return a.T;
@@ -256,6 +276,8 @@ QVariant LedgerModel::data(const QModelIndex& index, int role) const {
         if (row.kind == RowKind::Start) return QBrush(QColor(0xf7, 0xf8, 0xf9));
         return {};
     case Qt::ToolTipRole:
+        if (isUncertaintyColumn(c))
+            return tr("Standard uncertainty from the worksheet's tolerances (first-order method, JCGM 100:2008)");
         if (row.kind == RowKind::Step) {
             const StepResult& s = doc_->result().steps[std::size_t(row.step)];
             QStringList t;
@@ -283,6 +305,9 @@ QVariant LedgerModel::headerData(int section, Qt::Orientation o, int role) const
     case ColWhat: return tr("Kind / segment\n");
     case ColTin: return h(tr("T in"));
     case ColTout: return h(tr("T out"));
+    case ColUTout: return h(tr("± T out"));
+    case ColUQ: return h(tr("± Q"));
+    case ColUW: return h(tr("± W"));
     case ColPin: return h(tr("P in"));
     case ColPout: return h(tr("P out"));
     case ColPhase: return tr("Phase out\n");

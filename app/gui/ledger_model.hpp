@@ -17,8 +17,8 @@ class LedgerModel : public QAbstractTableModel {
     Q_OBJECT
 public:
     enum Column {
-        ColStep, ColWhat, ColTin, ColTout, ColPin, ColPout, ColPhase,
-        ColQ, ColW, ColdH, ColdU, ColdS, ColSgen, ColExd, ColumnCount
+        ColStep, ColWhat, ColTin, ColTout, ColUTout, ColPin, ColPout, ColPhase,
+        ColQ, ColUQ, ColW, ColUW, ColdH, ColdU, ColdS, ColSgen, ColExd, ColumnCount
     };
     enum class RowKind { Start, Step, Segment, Total, HeatingDuty, CoolingDuty };
     // Qt::UserRole gives the SI value of a numeric cell (the core's number),
@@ -31,6 +31,10 @@ public:
 
     int rowCount(const QModelIndex& parent = {}) const override;
     int columnCount(const QModelIndex& parent = {}) const override;
+    // The ± columns (standard uncertainty of T out, Q and W) hold values only
+    // while the document shows uncertainty; the view hides them otherwise.
+    static bool isUncertaintyColumn(int column) { return column == ColUTout || column == ColUQ || column == ColUW; }
+    bool showsUncertainty() const { return doc_->uncertainty() != nullptr; }
     QVariant data(const QModelIndex& index, int role) const override;
     QVariant headerData(int section, Qt::Orientation o, int role) const override;
 

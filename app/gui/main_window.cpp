@@ -29,6 +29,7 @@
 
 #include "commands.hpp"
 #include "compare_dialog.hpp"
+#include "contribution_widget.hpp"
 #include "heatchain/project_file.hpp"
 #include "heatchain_view/format.hpp"
 #include "heatchain_view/step_icons.hpp"
@@ -116,6 +117,14 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     for (int c = LedgerModel::ColTin; c < LedgerModel::ColumnCount; ++c) ledgerView_->setColumnWidth(c, 82);
     ledgerView_->setColumnWidth(LedgerModel::ColPhase, 170);
     ledgerView_->setColumnWidth(LedgerModel::ColExd, 124);
+    // The ± columns show while the worksheet has tolerances and View ▸
+    // Uncertainty is on.
+    auto showUncertaintyColumns = [this] {
+        for (int c : {int(LedgerModel::ColUTout), int(LedgerModel::ColUQ), int(LedgerModel::ColUW)})
+            ledgerView_->setColumnHidden(c, !ledger_->showsUncertainty());
+    };
+    connect(&doc_, &ProjectDocument::changed, this, showUncertaintyColumns);
+    showUncertaintyColumns();
     // A click on "▸ n parts" opens a step's segments, another folds them.
     connect(ledgerView_, &QTableView::clicked, this, [this](const QModelIndex& index) {
         if (index.column() != LedgerModel::ColWhat) return;
@@ -334,6 +343,12 @@ void MainWindow::buildDocks() {
     secondLawDock->setObjectName(QStringLiteral("secondLawDock"));
     secondLawDock->setWidget(secondLaw_);
     tabifyDockWidget(ledgerDock, secondLawDock);
+    // Which input drives the uncertainty: a third tab.
+    contributions_ = new ContributionWidget(&doc_, this);
+    auto* uncertaintyDock = new QDockWidget(tr("Uncertainty"), this);
+    uncertaintyDock->setObjectName(QStringLiteral("uncertaintyDock"));
+    uncertaintyDock->setWidget(contributions_);
+    tabifyDockWidget(secondLawDock, uncertaintyDock);
     ledgerDock->raise();
     resizeDocks({editorDock, chartDock}, {440, 640}, Qt::Horizontal);
     viewMenu_ = new QMenu(tr("&View"), this);
@@ -448,6 +463,13 @@ void MainWindow::buildActions() {
     gaugeAction_->setToolTip(tr("Show pressures above the worksheet's atmosphere (bar(g), kPa(g), psig) instead "
                                 "of absolute (bar(a), kPa(a), psia)"));
     connect(gaugeAction_, &QAction::triggered, this, &MainWindow::setGaugeDisplay);
+    viewMenu_->addSeparator();
+    QAction* showUncertainty = viewMenu_->addAction(tr("&Uncertainty (±)"));
+    showUncertainty->setCheckable(true);
+    showUncertainty->setChecked(doc_.uncertaintyShown());
+    showUncertainty->setToolTip(tr("Standard uncertainties from the worksheet's tolerances: ± columns in the ledger, "
+                                   "bands on the T–s and T–Q charts, and the contributions chart"));
+    connect(showUncertainty, &QAction::toggled, &doc_, &ProjectDocument::setUncertaintyShown);
     viewMenu_->addSeparator();
     viewMenu_->addAction(tr("Zoom &in"), this, [this] { chain_->zoomBy(1.2); })->setShortcut(QKeySequence::ZoomIn);
     viewMenu_->addAction(tr("Zoom &out"), this, [this] { chain_->zoomBy(1 / 1.2); })->setShortcut(QKeySequence::ZoomOut);

@@ -26,6 +26,7 @@
 #include "chain_view.hpp"
 #include "chart_widget.hpp"
 #include "document.hpp"
+#include "contribution_widget.hpp"
 #include "exergy_widget.hpp"
 #include "second_law_panel.hpp"
 #include "ledger_model.hpp"
@@ -54,6 +55,7 @@ public:
     ChartWidget* tqChart() const { return tq_; }
     MessagesPanel* messages() const { return messages_; }
     ExergyWidget* exergyChart() const { return exergy_; }
+    ContributionWidget* contributionChart() const { return contributions_; }
     SecondLawPanel* secondLaw() const { return secondLaw_; }
     QLineEdit* quickAdd() const { return quickAdd_; }
 
@@ -159,6 +161,7 @@ private:
     ChartWidget* tq_;
     MessagesPanel* messages_;
     ExergyWidget* exergy_ = nullptr;
+    ContributionWidget* contributions_ = nullptr;
     SecondLawPanel* secondLaw_ = nullptr;
     QLineEdit* quickAdd_;
     QMenu* recentMenu_ = nullptr;

@@ -14,7 +14,7 @@ namespace heatchain::gui {
 
 namespace {
 QString qs(const std::string& s) { return QString::fromStdString(s); }
-QString numText(const std::optional<Number>& n) { return n ? qs(n->raw.dump()) : QString(); }
+QString numText(const std::optional<Number>& n) { return n ? qs(n->typed()) : QString(); }
 }  // namespace
 
 ProjectSettingsDialog::ProjectSettingsDialog(const Project& project, QWidget* parent)

@@ -225,8 +225,8 @@ void StartEditor::refresh() {
     model_->setCurrentIndex(model_->findData(int(p.model)));
     T_->showValue(p.start.T ? qs(p.start.T->text) : QString());
     P_->showValue(p.start.P ? qs(p.start.P->text) : QString());
-    quality_->showValue(p.start.quality ? qs(p.start.quality->raw.dump()) : QString());
-    melt_->showValue(p.start.meltFraction ? qs(p.start.meltFraction->raw.dump()) : QString());
+    quality_->showValue(p.start.quality ? qs(p.start.quality->typed()) : QString());
+    melt_->showValue(p.start.meltFraction ? qs(p.start.meltFraction->typed()) : QString());
     basisKind_->setCurrentIndex(basisKind_->findData(int(p.basis.kind)));
     basis_->showValue(qs(p.basis.amount.text));
     const UnitSystem u = p.displayUnits;

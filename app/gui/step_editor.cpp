@@ -20,7 +20,7 @@ QString qs(const std::string& s) { return QString::fromStdString(s); }
 QString typedText(const std::optional<Quantity>& q) { return q ? qs(q->text) : QString(); }
 QString typedText(const std::optional<Number>& n) {
     if (!n) return {};
-    return qs(n->raw.is_null() ? std::to_string(n->value) : n->raw.dump());
+    return qs(n->typed());
 }
 QString typedText(const std::optional<Reservoir>& r) {
     return r && r->T ? qs(r->T->text) : QString();

@@ -387,3 +387,51 @@ TEST(Report, UtilitiesAndExergyOfSolventRecovery) {
     EXPECT_TRUE(std::any_of(seq.begin(), seq.end(), [&](double x) { return std::fabs(x - eta) <= 0.05 + 1e-9; }))
         << lineStarting(layout, "Sequence") << " lacks " << eta;
 }
+
+// How sure, in the report: with tolerances typed, an uncertainty section
+// states the method and gives the same value ± u as `compute --json
+// --uncertainty linear`; without any, there is no such section.
+TEST(Report, UncertaintySectionMatchesTheCommandLine) {
+    std::string text = heatchain::testing::readWholeFile(sample("compressor-aftercooler"));
+    auto swap = [&](const std::string& from, const std::string& to) {
+        const auto at = text.find(from);
+        ASSERT_NE(at, std::string::npos) << from;
+        text.replace(at, from.size(), to);
+    };
+    swap(R"("T": "25 degC", "P": "0.98 bar")", R"("T": "25 degC ± 1 K", "P": "0.98 bar")");
+    swap(R"("efficiency": 0.8 })", R"("efficiency": "0.8 ± 0.03" })");
+    const fs::path project = scratch("toleranced.hchain");
+    std::ofstream(project) << text;
+    const fs::path pdf = scratch("toleranced.pdf");
+    auto run = runCommand(cli("report " + project.string() + " -o " + pdf.string()));
+    ASSERT_EQ(run.exit, 0) << run.err;
+    const std::string layout = pdfText(pdf, true);
+    const std::string flat = squeeze(layout);
+    for (const char* words : {"Uncertainty", "First-order method (JCGM 100:2008", "Inputs with a tolerance",
+                              "0.8 ± 0.03", "25 degC ± 1 K", "Contributions to the uncertainty"})
+        EXPECT_NE(flat.find(words), std::string::npos) << words;
+
+    auto cj = runCommand(cli("compute " + project.string() + " --json --uncertainty linear"));
+    ASSERT_EQ(cj.exit, 0) << cj.err;
+    const auto u = nlohmann::json::parse(cj.out)["uncertainty"]["outputs"]["steps.stage-1.W"];
+    // The results table's row of stage-1: Q ± u, W ± u, T end ± u; W in kW.
+    std::string row;
+    {
+        std::istringstream in(layout);
+        std::string line;
+        while (std::getline(in, line))
+            if (line.find("stage-1") != std::string::npos && line.find("±") != std::string::npos) row = line;
+    }
+    ASSERT_FALSE(row.empty());
+    for (std::size_t at; (at = row.find("±")) != std::string::npos;) row.replace(at, 2, " ");
+    const auto xs = numbersIn(row);
+    auto has = [&](double v) {
+        return std::any_of(xs.begin(), xs.end(), [&](double x) { return std::fabs(x - v) <= std::fabs(v) * 5e-4 + 2e-3; });
+    };
+    EXPECT_TRUE(has(u["value"].get<double>() / 1000)) << row;
+    EXPECT_TRUE(has(u["u"].get<double>() / 1000)) << row;
+
+    const fs::path plain = scratch("plain.pdf");
+    ASSERT_EQ(runCommand(cli("report " + sample("compressor-aftercooler") + " -o " + plain.string())).exit, 0);
+    EXPECT_EQ(squeeze(pdfText(plain, true)).find("Inputs with a tolerance"), std::string::npos);
+}

@@ -488,13 +488,14 @@ void paintChartFigure(QPainter& p, const QRectF& rect, const view::ProcessChart&
     p.restore();
 }
 
-void paintExergyFigure(QPainter& p, const QRectF& rect, const view::ExergyBarChart& chart, double logicalWidth) {
+void paintScaledFigure(QPainter& p, const QRectF& rect, double logicalWidth,
+                       const std::function<void(QPainter&, const QRectF&)>& draw) {
     const double scale = rect.width() / logicalWidth;
     p.save();
     p.translate(rect.topLeft());
     p.scale(scale, scale);
     p.setFont(chartFont());
-    chart.paint(p, QRectF(0, 0, logicalWidth, rect.height() / scale));
+    draw(p, QRectF(0, 0, logicalWidth, rect.height() / scale));
     p.restore();
 }
 

@@ -112,8 +112,10 @@ private:
 void paintChartFigure(QPainter& p, const QRectF& rect, const view::ProcessChart& chart,
                       const SequenceResult& result, double logicalWidth, bool legend);
 // Height of the legend strip, as a share of the logical chart layout.
-// The exergy-destroyed bars, drawn at `logicalWidth` and scaled into `rect`.
-void paintExergyFigure(QPainter& p, const QRectF& rect, const view::ExergyBarChart& chart, double logicalWidth);
+// A bar chart (exergy destroyed, contributions to the uncertainty) drawn by
+// `draw` at `logicalWidth` with the report's chart font, scaled into `rect`.
+void paintScaledFigure(QPainter& p, const QRectF& rect, double logicalWidth,
+                       const std::function<void(QPainter&, const QRectF&)>& draw);
 double legendHeight(const SequenceResult& result, double logicalWidth);
 
 }  // namespace heatchain::report_detail

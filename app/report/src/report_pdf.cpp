@@ -17,9 +17,11 @@
 #include "gui_app.hpp"
 #include "heatchain/project_file.hpp"
 #include "heatchain/report.hpp"
+#include "heatchain/uncertainty.hpp"
 #include "heatchain_view/format.hpp"
 #include "heatchain_view/palette.hpp"
 #include "heatchain_view/process_chart.hpp"
+#include "heatchain_view/contribution_chart.hpp"
 #include "heatchain_view/exergy_chart.hpp"
 #include "heatchain_view/utility_text.hpp"
 #include "report_layout.hpp"
@@ -155,7 +157,7 @@ QString basisText(const Project& p) {
 // The inputs of a step as the user typed them.
 std::vector<std::pair<QString, QString>> stepInputs(const Step& s) {
     std::vector<std::pair<QString, QString>> rows;
-    auto num = [](const Number& n) { return qs(n.raw.is_null() ? std::to_string(n.value) : n.raw.dump()); };
+    auto num = [](const Number& n) { return qs(n.typed()); };
     if (s.hasTo) {
         if (s.to.T) rows.emplace_back(QStringLiteral("Target temperature"), qs(s.to.T->text));
         if (s.to.P) rows.emplace_back(QStringLiteral("Target pressure"), qs(s.to.P->text));
@@ -187,6 +189,7 @@ struct Content {
     const Project& project;
     const SequenceResult& result;
     QString fileName, checksum, checksumNote, generated;
+    UncertaintyOptions uncertainty;
 };
 
 void writeContent(Layout& L, const Content& c) {
@@ -319,7 +322,7 @@ void writeContent(Layout& L, const Content& c) {
         QStringList typed;
         if (p.start.T) typed << QStringLiteral("T = %1").arg(qs(p.start.T->text));
         if (p.start.P) typed << QStringLiteral("P = %1").arg(qs(p.start.P->text));
-        auto num = [](const Number& n) { return qs(n.raw.is_null() ? std::to_string(n.value) : n.raw.dump()); };
+        auto num = [](const Number& n) { return qs(n.typed()); };
         if (p.start.quality) typed << QStringLiteral("quality = %1").arg(num(*p.start.quality));
         if (p.start.meltFraction) typed << QStringLiteral("melt fraction = %1").arg(num(*p.start.meltFraction));
         std::vector<std::pair<QString, QString>> rows = {{QStringLiteral("As given"), typed.join(QStringLiteral(", "))}};
@@ -544,7 +547,89 @@ void writeContent(Layout& L, const Content& c) {
         const double wanted = bars.preferredHeight(int(bars.bars().size())) * (L.width() / logicalW);
         const double h = std::min(wanted, L.mm(150));
         L.subheading(QStringLiteral("Exergy destroyed by step: where the losses are"), h);
-        L.figure(h, [&](QPainter& painter, const QRectF& rect) { paintExergyFigure(painter, rect, bars, logicalW); });
+        L.figure(h, [&](QPainter& painter, const QRectF& rect) {
+            paintScaledFigure(painter, rect, logicalW, [&](QPainter& q, const QRectF& r2) { bars.paint(q, r2); });
+        });
+        ++section;
+    }
+
+    // ---- Uncertainty ----------------------------------------------------------------
+    if (auto inputs = uncertainInputs(p); inputs && !inputs->empty() && r.ok()) {
+        L.heading(QString::number(section), QStringLiteral("Uncertainty"), L.mm(50));
+        auto propagated = propagateUncertainty(p, c.uncertainty);
+        if (!propagated) {
+            L.paragraph(QStringLiteral("The uncertainty could not be computed: %1").arg(qs(propagated.error().message)),
+                        small, view::ink::error());
+        } else {
+            const UncertaintyResult& u = *propagated;
+            const bool mc = u.method == UncertaintyMethod::MonteCarlo;
+            L.paragraph(mc ? QStringLiteral("Monte Carlo method (JCGM 101:2008): %1 of %2 draws computed, seed %3. "
+                                            "± is one standard uncertainty; the 95 % interval runs from the 2.5th "
+                                            "to the 97.5th percentile of the draws.")
+                                 .arg(u.samplesUsed)
+                                 .arg(u.samples)
+                                 .arg(qulonglong(u.seed))
+                           : QStringLiteral("First-order method (JCGM 100:2008, the law of propagation of uncertainty "
+                                            "for independent inputs), sensitivities from re-solving the sequence at "
+                                            "each input ± its standard uncertainty. ± is one standard uncertainty."),
+                        small, view::ink::text());
+            std::vector<TableColumn> icol = {{QStringLiteral("Input"), {}, 2.6},
+                                             {QStringLiteral("As typed"), {}, 2.6},
+                                             {QStringLiteral("Distribution"), {}, 1.2}};
+            std::vector<TableRow> irows;
+            for (const UncertainInput& in : u.inputs)
+                irows.push_back({{qs(in.path), qs(in.text),
+                                  in.model ? QStringLiteral("model (%1)").arg(qs(in.source))
+                                  : in.distribution == Distribution::Rectangular ? QStringLiteral("rectangular")
+                                                                                 : QStringLiteral("normal")}});
+            L.subheading(QStringLiteral("Inputs with a tolerance"), L.mm(15));
+            L.table(icol, irows, 7.5, QStringLiteral("Inputs with a tolerance, continued"));
+            auto pm = [&](const std::string& path, Dimension d) -> QString {
+                const UncertainOutput* o = u.find(path);
+                if (!o) return QStringLiteral("–");
+                const Dimension ud = d == Dimension::Temperature ? Dimension::TemperatureDifference : d;
+                const double sd = o->u <= 1e-9 * std::fabs(o->value) ? 0.0 : o->u;
+                QString t = fmt(o->value, d) + QStringLiteral(" ± ") + fmt(sd, ud);
+                if (mc && o->p025 && o->p975)
+                    t += QStringLiteral(" (95 %: %1 to %2)").arg(fmt(*o->p025, d), fmt(*o->p975, d));
+                return t;
+            };
+            const QString eu = unitSymbol(E, us), tu = unitSymbol(Dimension::Temperature, us);
+            std::vector<TableColumn> ocol = {{QStringLiteral("#"), {}, 0.5, Qt::AlignRight},
+                                             {QStringLiteral("Step"), {}, 1.6},
+                                             {QStringLiteral("Q"), eu, 2.4, Qt::AlignRight},
+                                             {QStringLiteral("W"), eu, 2.4, Qt::AlignRight},
+                                             {QStringLiteral("T end"), tu, 2.0, Qt::AlignRight}};
+            std::vector<TableRow> orows;
+            for (std::size_t i = 0; i < r.steps.size(); ++i) {
+                const std::string at = "steps." + r.steps[i].id + ".";
+                TableRow row;
+                row.marker = view::stepColour(int(i));
+                row.cells = {QString::number(i + 1), qs(r.steps[i].id), pm(at + "Q", E), pm(at + "W", E),
+                             pm(at + "end.T_K", Dimension::Temperature)};
+                orows.push_back(std::move(row));
+            }
+            orows.push_back({{QString(), QStringLiteral("Heating duty"), pm("totals.heatingDuty", E), QString(), QString()},
+                             TableRow::Style::Total});
+            orows.push_back({{QString(), QStringLiteral("Cooling duty"), pm("totals.coolingDuty", E), QString(), QString()},
+                             TableRow::Style::Total});
+            orows.push_back({{QString(), QStringLiteral("Work"), QString(), pm("totals.W", E), QString()},
+                             TableRow::Style::Total});
+            L.subheading(QStringLiteral("Results with their standard uncertainty"), L.mm(15));
+            L.table(ocol, orows, 7.5, QStringLiteral("Results with their standard uncertainty, continued"));
+            for (const std::string& n : u.notes) L.paragraph(QStringLiteral("Note: %1").arg(qs(n)), small, view::ink::muted());
+            view::ContributionChart contributions;
+            contributions.setData(u);
+            const double logicalW = 760;
+            const double h = std::min(contributions.preferredHeight() * (L.width() / logicalW), L.mm(120));
+            L.subheading(QStringLiteral("Contributions to the uncertainty of the %1: which input drives it")
+                             .arg(view::uncertaintyOutputTitle(contributions.output())),
+                         h);
+            L.figure(h, [&](QPainter& painter, const QRectF& rect) {
+                paintScaledFigure(painter, rect, logicalW,
+                                  [&](QPainter& q, const QRectF& r2) { contributions.paint(q, r2); });
+            });
+        }
         ++section;
     }
 
@@ -655,7 +740,8 @@ Status writeReportPdf(const Project& project, const SequenceResult& result, std:
     Content content{project, result,
                     file.isEmpty() ? QStringLiteral("(not saved)") : QFileInfo(file).fileName(),
                     QString::fromLatin1(QCryptographicHash::hash(bytes, QCryptographicHash::Sha256).toHex()), note,
-                    QDateTime::currentDateTimeUtc().toString(QStringLiteral("yyyy-MM-dd HH:mm 'UTC'"))};
+                    QDateTime::currentDateTimeUtc().toString(QStringLiteral("yyyy-MM-dd HH:mm 'UTC'")),
+                    options.uncertainty};
 
     QBuffer buffer;
     buffer.open(QIODevice::WriteOnly);

@@ -255,7 +255,7 @@ QString modelTitle(ModelKind m) {
 
 static QString typed(const Quantity& q) { return QString::fromStdString(q.text); }
 static QString typed(const Number& n) {
-    return QString::fromStdString(n.raw.is_null() ? std::to_string(n.value) : n.raw.dump());
+    return QString::fromStdString(n.typed());
 }
 
 QString stepSpecSummary(const Step& step, SystemKind) {

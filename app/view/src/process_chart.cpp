@@ -228,6 +228,7 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
     // Ranges: the paths (and the start point), widened to the dome when the
     // paths reach into its temperature span, so the dome gives context
     // without squashing a small process into a corner.
+    buildBands(result);
     double x0 = std::numeric_limits<double>::infinity(), x1 = -x0, y0 = x0, y1 = -x0;
     auto grow = [&](QPointF v) {
         if (!std::isfinite(v.x()) || !std::isfinite(v.y())) return;
@@ -238,6 +239,8 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
         for (QPointF v : s.pts) grow(v);
     for (const ReservoirLine& r : reservoirs_)
         for (QPointF v : r.pts) grow(v);
+    for (const Band& b : bands_)
+        for (QPointF v : b.pts) grow(v);
     if (!std::isfinite(x0)) {
         x0 = 0; x1 = 1; y0 = 0; y1 = 100;
     }
@@ -332,6 +335,16 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
     const Frame f = frame(rect);
     drawAxes(p, f);
     p.setClipRect(f.plot.adjusted(1, 1, -1, -1));
+
+    for (const Band& b : bands_) {
+        QPolygonF poly;
+        for (QPointF v : b.pts) poly << f.map(v);
+        QColor fill = b.colour;
+        fill.setAlpha(b.step == selected_ ? 70 : 45);
+        p.setPen(Qt::NoPen);
+        p.setBrush(fill);
+        p.drawPolygon(poly);
+    }
 
     if (!dome_.empty()) {
         QPolygonF poly;
@@ -499,6 +512,61 @@ std::optional<ProcessChart::Hover> ProcessChart::hoverAt(QPointF pos, const QRec
     lines << QStringLiteral("Q cum. = %1").arg(formatWithUnit(c.Q, energyDimension(system_), units_, ctx_));
     h.text = lines.join(QLatin1Char('\n'));
     return h;
+}
+
+}  // namespace heatchain::view
+
+namespace heatchain::view {
+
+// ± one standard uncertainty around each step's path: the uncertainties of
+// the temperature and of the x quantity (specific entropy, or cumulative
+// duty) at the step's start and end, from core's band outputs, interpolated
+// along the path. The outline runs on the side of the path a joint shift of
+// both would reach (above-left and below-right of a rising path).
+void ProcessChart::buildBands(const SequenceResult& result) {
+    bands_.clear();
+    const UncertaintyResult* u = uncertainty_;
+    if (!u) return;
+    const bool ts = kind_ == Kind::TemperatureEntropy;
+    const Dimension xDim = ts ? Dimension::SpecificEntropy : energyDimension(system_);
+    auto uOf = [&](const std::string& path) {
+        const UncertainOutput* o = u->find(path);
+        return o ? o->u : 0.0;
+    };
+    double uT0 = 0;
+    for (const UncertainInput& in : u->inputs)
+        if (in.path == "start.T") uT0 = in.u;
+    double ux0 = ts ? uOf("start.s_J_per_kgK") : 0.0;
+    for (std::size_t i = 0; i < result.steps.size(); ++i) {
+        const StepResult& st = result.steps[i];
+        if (!st.computed) break;
+        const std::string at = "steps." + st.id + ".";
+        const double uT1 = uOf(at + "end.T_K");
+        const double ux1 = uOf(at + (ts ? "end.s_J_per_kgK" : "Qcumulative"));
+        std::vector<QPointF> path;
+        for (const Series& s : series_)
+            if (s.step == int(i)) path.insert(path.end(), s.pts.begin(), s.pts.end());
+        if (path.size() >= 2 && (uT0 > 0 || uT1 > 0 || ux0 > 0 || ux1 > 0)) {
+            const double rising = (path.back().x() - path.front().x()) * (path.back().y() - path.front().y()) >= 0 ? 1 : -1;
+            std::vector<QPointF> upper, lower;
+            const std::size_t n = path.size();
+            for (std::size_t k = 0; k < n; ++k) {
+                const double t = double(k) / double(n - 1);
+                const double dT = toDisplay(uT0 + t * (uT1 - uT0), Dimension::TemperatureDifference, units_, ctx_);
+                const double dx = toDisplay(ux0 + t * (ux1 - ux0), xDim, units_, ctx_);
+                upper.emplace_back(path[k].x() - rising * dx, path[k].y() + dT);
+                lower.emplace_back(path[k].x() + rising * dx, path[k].y() - dT);
+            }
+            Band b;
+            b.step = int(i);
+            b.colour = i < colours_.size() ? colours_[i] : stepColour(int(i));
+            b.pts = std::move(upper);
+            b.pts.insert(b.pts.end(), lower.rbegin(), lower.rend());
+            bands_.push_back(std::move(b));
+        }
+        uT0 = uT1;
+        ux0 = ux1;
+    }
 }
 
 }  // namespace heatchain::view

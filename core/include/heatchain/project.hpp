@@ -28,6 +28,14 @@ struct Number {
     Json raw;  // the number as it was in the file (written back unchanged)
     double value = 0;
     std::string text;  // a JSON number's characters exactly as typed ("0.60"); empty when made in code
+
+    // The number as the user typed it, for display: "0.60", "0.72 ± 0.03"
+    // (a number with a tolerance is a string in the file), never with quotes.
+    std::string typed() const {
+        if (raw.is_string()) return raw.get<std::string>();
+        if (!text.empty()) return text;
+        return raw.is_null() ? Json(value).dump() : raw.dump();
+    }
 };
 
 enum class SystemKind { Closed, SteadyFlow };

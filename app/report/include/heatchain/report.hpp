@@ -1,4 +1,5 @@
 #pragma once
+#include "heatchain/uncertainty.hpp"
 // The PDF step report and the exports of a solved project. Plain C++ face
 // (no Qt types), so the CLI can call it; inside it draws with Qt. Every call
 // creates the Qt application it needs when the process has none (headless,
@@ -18,6 +19,10 @@ Result<PageSize> parsePageSize(std::string_view id);  // "A4", "letter" (any cas
 
 struct ReportOptions {
     PageSize pageSize = PageSize::A4;
+    // How the report's uncertainty section propagates the worksheet's
+    // tolerances (first order unless asked; the section is left out when
+    // nothing carries a tolerance).
+    UncertaintyOptions uncertainty;
 };
 
 // Writes the step report of `result` (solved from `project`) to `out`.

@@ -17,6 +17,7 @@
 
 #include "heatchain/project.hpp"
 #include "heatchain/solver.hpp"
+#include "heatchain/uncertainty.hpp"
 
 namespace heatchain::view {
 
@@ -31,6 +32,16 @@ public:
     void setData(const Project& project, const SequenceResult& result, const DomeCurve* dome);
     // Colours of the steps by index, used by setData (else by index).
     void setStepColours(std::vector<QColor> colours) { colours_ = std::move(colours); }
+    // Standard uncertainties (core's first-order propagation) to draw as a
+    // band of ± one standard uncertainty around each step's path; null for
+    // none. Used by the next setData.
+    void setUncertainty(const UncertaintyResult* u) { uncertainty_ = u; }
+    struct Band {
+        int step = -1;
+        std::vector<QPointF> pts;  // closed outline, display units
+        QColor colour;
+    };
+    const std::vector<Band>& bands() const { return bands_; }
     void setSelectedStep(int index) { selected_ = index; }
     int selectedStep() const { return selected_; }
     Kind kind() const { return kind_; }
@@ -99,6 +110,9 @@ private:
     UnitContext ctx_;
     SystemKind system_ = SystemKind::SteadyFlow;
     std::vector<Series> series_;
+    const UncertaintyResult* uncertainty_ = nullptr;
+    std::vector<Band> bands_;
+    void buildBands(const SequenceResult& result);
     std::vector<ReservoirLine> reservoirs_;
     std::vector<QPointF> dome_;  // closed outline, display units
     std::optional<Approach> approach_;
