@@ -28,6 +28,7 @@
 
 #ifdef HEATCHAIN_HAVE_REPORT
 #include "heatchain/report.hpp"
+#include "heatchain/recovery_report.hpp"
 #endif
 
 namespace {
@@ -54,8 +55,11 @@ const VerbHelp kVerbs[] = {
      "quantities (\"80 degC ± 2 K\"): first order (linear, the default) or Monte Carlo.\n"},
     {"report", "  heatchain-cli report  PROJECT|- -o REPORT.pdf [--page A4|letter]\n",
      "Writes the PDF report (A4 unless --page letter).\n"},
-    {"chart", "  heatchain-cli chart   PROJECT|- --ts|--tq -o FILE.svg|FILE.png\n",
-     "Writes the T-s chart (--ts) or the T-Q chart (--tq) as SVG or PNG.\n"},
+    {"chart", "  heatchain-cli chart   PROJECT|- --ts|--tq|--composite|--grand-composite [--dtmin Q] -o FILE.svg|FILE.png\n",
+     "Writes the T-s chart (--ts) or the T-Q chart (--tq) as SVG or PNG; or, for heat recovery, the\n"
+     "hot and cold composite curves (--composite) or the grand composite curve with the utility\n"
+     "levels (--grand-composite) of every stream at the minimum temperature difference Q (default:\n"
+     "the worksheet's required minimum approach).\n"},
     {"targets", "  heatchain-cli targets PROJECT|- [--dtmin Q] [--json | --csv | --problem-table] [-o FILE|-]\n",
      "Heat recovery targets of every steady-flow stream of the worksheet: the least hot and cold\n"
      "utility any exchanger network could need, the pinch, the worksheet's utilities placed against\n"
@@ -302,7 +306,42 @@ int report(const Args& a) {
 #endif
 }
 
+// chart --composite | --grand-composite: the heat recovery charts of every stream.
+int recoveryChart(const Args& a) {
+    if (a.positional.size() != 1 || !a.options.count("-o"))
+        return usage("chart needs PROJECT, --composite or --grand-composite, and -o FILE.svg|FILE.png");
+    for (const auto& [k, v] : a.options)
+        if (k != "-o" && k != "--composite" && k != "--grand-composite" && k != "--dtmin") return usage("unknown option " + k);
+    if (a.options.count("--composite") && a.options.count("--grand-composite"))
+        return usage("chart needs exactly one of --composite and --grand-composite");
+    if (a.options.at("-o") == "-") return usage("chart writes an image file; -o - (standard output) is for text results");
+    auto dTmin = cli::dTminOption(a.options);
+    if (!dTmin) return usage(dTmin.error().message);
+#ifdef HEATCHAIN_HAVE_REPORT
+    if (auto format = imageFormatFor(a.options.at("-o")); !format) return usage(format.error().text());
+    auto worksheet = cli::loadWorksheetInput(a.positional[0]);
+    if (!worksheet) {
+        std::cerr << "heatchain-cli: " << worksheet.error().text() << "\n";
+        return kInvalid;
+    }
+    auto recovery = worksheetRecovery(*worksheet, solveStreams(*worksheet), *dTmin);
+    if (!recovery) {
+        std::cerr << "heatchain-cli: " << inputName(a.positional[0]) << ": " << recovery.error().text() << "\n";
+        return kCannotCompute;
+    }
+    const auto kind = a.options.count("--composite") ? RecoveryChartKind::Composite : RecoveryChartKind::GrandComposite;
+    if (auto st = exportRecoveryChart(*worksheet, *recovery, kind, a.options.at("-o")); !st) {
+        std::cerr << "heatchain-cli: " << st.error().text() << "\n";
+        return kCannotCompute;
+    }
+    return kDone;
+#else
+    return usage("chart is not available in this build (it needs the Qt report library)");
+#endif
+}
+
 int chart(const Args& a) {
+    if (a.options.count("--composite") || a.options.count("--grand-composite")) return recoveryChart(a);
     if (a.positional.size() != 1 || !a.options.count("-o")) return usage("chart needs PROJECT, --ts or --tq, and -o FILE.svg|FILE.png");
     for (const auto& [k, v] : a.options)
         if (k != "-o" && k != "--ts" && k != "--tq") return usage("unknown option " + k);
