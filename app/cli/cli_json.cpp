@@ -17,6 +17,10 @@ std::string siLabel(Dimension d) {
         case Dimension::EntropyRate: return "W/K";
         case Dimension::Mass: return "kg";
         case Dimension::MassFlow: return "kg/s";
+        case Dimension::Area: return "m2";
+        case Dimension::HeatTransferCoefficient: return "W/(m2 K)";
+        case Dimension::ThermalConductance: return "W/K";
+        case Dimension::Time: return "s";
         default: return "1";
     }
 }

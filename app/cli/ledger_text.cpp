@@ -8,6 +8,7 @@
 
 #include "heatchain/rules.hpp"
 #include "heatchain/units.hpp"
+#include "transfer_text.hpp"
 
 namespace heatchain::cli {
 
@@ -261,6 +262,7 @@ std::string ledgerText(const Project& p, const SequenceResult& r) {
       << fixed(E(tt.coolingDuty), dE_) << " " << uE << "\n";
 
     o << utilitiesText(p, r);
+    o << transferText(p, r);
     o << exergyText(p, r);
 
     // Errors and warnings first, notes apart: the levels core gave them.

@@ -11,7 +11,7 @@ namespace {
 constexpr std::array kStepKinds = {
     StepKind::Heat,      StepKind::Cool,    StepKind::Melt,     StepKind::Freeze,
     StepKind::Boil,      StepKind::Condense, StepKind::Sublimate, StepKind::Deposit,
-    StepKind::Compress,  StepKind::Expand,  StepKind::Throttle,
+    StepKind::Compress,  StepKind::Expand,  StepKind::Throttle, StepKind::Hold,
 };
 
 }  // namespace
@@ -33,6 +33,7 @@ std::string_view stepKindId(StepKind k) {
         case StepKind::Compress: return "compress";
         case StepKind::Expand: return "expand";
         case StepKind::Throttle: return "throttle";
+        case StepKind::Hold: return "hold";
     }
     return "heat";
 }

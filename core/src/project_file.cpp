@@ -380,8 +380,9 @@ std::optional<Reservoir> readReservoir(const Reader& r, const Json& step, const 
 }
 
 constexpr std::string_view kStepFields[] = {"id",         "kind",   "to",   "at",  "fraction", "path",
-                                            "n",          "efficiency", "source", "sink", "note"};
-constexpr std::string_view kTargetFields[] = {"T", "P", "duty", "quality", "ratio"};
+                                            "n",          "efficiency", "source", "sink", "note",
+                                            "transfer", "duration", "heatLoss"};
+constexpr std::string_view kTargetFields[] = {"T", "P", "duty", "quality", "ratio", "rated", "time"};
 
 // What each kind of step takes, for the "does not belong" errors.
 std::string_view ownersOf(std::string_view field) {
@@ -391,7 +392,102 @@ std::string_view ownersOf(std::string_view field) {
     if (field == "path") return "compress and expand";
     if (field == "n") return "compress and expand on a polytropic path";
     if (field == "efficiency") return "compress and expand on an adiabatic path";
+    if (field == "transfer") return "heat, cool, the phase-change kinds and hold";
+    if (field == "duration") return "hold";
     return "";
+}
+
+// ---- Heat transfer, batch time and heat loss (optional fields) ----
+
+constexpr std::string_view kZoneKeys[] = {"liquid", "vapour", "two-phase", "solid", "solid-liquid", "solid-vapour"};
+
+// A quantity that must be above zero (an area, a coefficient, a time).
+Quantity positiveQuantity(const Reader& r, const Json& v, const JsonPath& path, Dimension d) {
+    Quantity q = r.quantity(v, path, d);
+    if (!(q.si > 0)) r.fail(path, "the " + std::string(dimensionName(d)) + " must be greater than zero");
+    return q;
+}
+
+HeatLossSpec readHeatLoss(const Reader& r, const Json& v, const JsonPath& path, const Project& p) {
+    r.object(v, path, "heatLoss");
+    if (p.system != SystemKind::Closed)
+        r.fail(path, "\"heatLoss\" belongs to a closed system (a batch); this project is steady-flow");
+    const Json* ua = member(v, "UA");
+    if (!ua) r.fail(path, "heatLoss needs \"UA\", the conductance to the surroundings, e.g. { \"UA\": \"25 W/K\" }");
+    HeatLossSpec h;
+    h.UA = r.quantity(*ua, child(path, "UA"), Dimension::ThermalConductance);
+    if (!(h.UA.si >= 0)) r.fail(child(path, "UA"), "the heat-loss UA cannot be negative");
+    h.extra = Reader::unknownFields(v, {"UA"});
+    return h;
+}
+
+// "rated" and "time" targets of a heat or cool step.
+void readTransferTarget(const Reader& r, const Json& to, const JsonPath& toPath, const Project& p, Step& s) {
+    if (const Json* rated = member(to, "rated")) {
+        if (!rated->is_boolean() || !rated->get<bool>())
+            r.fail(child(toPath, "rated"), "\"rated\" is true (the end state the given area reaches); found " +
+                                               (rated->is_boolean() ? std::string("false") : jsonTypeName(*rated)));
+        if (p.system == SystemKind::Closed)
+            r.fail(child(toPath, "rated"), "a batch (closed system) has no rated end state; give a time, "
+                                           "e.g. \"to\": { \"time\": \"45 min\" }");
+        s.to.rated = true;
+    }
+    if (const Json* time = member(to, "time")) {
+        if (p.system != SystemKind::Closed)
+            r.fail(child(toPath, "time"), "a time target belongs to a closed system (a batch); this project is "
+                                          "steady-flow");
+        s.to.time = positiveQuantity(r, *time, child(toPath, "time"), Dimension::Time);
+    }
+}
+
+void readTransferFields(const Reader& r, const Json& v, const JsonPath& path, const Project& p, Step& s) {
+    if (const Json* t = member(v, "transfer")) {
+        const JsonPath tp = child(path, "transfer");
+        r.object(*t, tp, "transfer");
+        HeatTransferSpec spec;
+        if (const Json* u = member(*t, "U")) {
+            const JsonPath up = child(tp, "U");
+            if (u->is_object()) {
+                for (auto it = u->begin(); it != u->end(); ++it) {
+                    if (!isOneOf(it.key(), kZoneKeys)) {
+                        spec.Uextra[it.key()] = it.value();
+                        continue;
+                    }
+                    spec.zoneU.emplace_back(it.key(), positiveQuantity(r, it.value(), child(up, it.key()),
+                                                                       Dimension::HeatTransferCoefficient));
+                }
+                if (spec.zoneU.empty())
+                    r.fail(up, "U per zone needs at least one of " + listOf(kZoneKeys));
+            } else {
+                spec.U = positiveQuantity(r, *u, up, Dimension::HeatTransferCoefficient);
+            }
+        }
+        if (const Json* a = member(*t, "area")) spec.area = positiveQuantity(r, *a, child(tp, "area"), Dimension::Area);
+        if (const Json* ua = member(*t, "UA")) {
+            spec.UA = positiveQuantity(r, *ua, child(tp, "UA"), Dimension::ThermalConductance);
+            if (spec.U || !spec.zoneU.empty() || spec.area)
+                r.fail(child(tp, "UA"), "give U and area, or UA instead of both; not UA with them");
+        }
+        if (!spec.UA && spec.U == std::nullopt && spec.zoneU.empty())
+            r.fail(tp, "transfer needs an overall coefficient U (with area), or UA, e.g. "
+                       "{ \"U\": \"450 W/(m2 K)\", \"area\": \"6.5 m2\" }");
+        spec.extra = Reader::unknownFields(*t, {"U", "area", "UA"});
+        s.transfer = std::move(spec);
+    }
+    const bool hasArea = s.transfer && (s.transfer->UA || s.transfer->area);
+    if (s.to.rated && !hasArea)
+        r.fail(child(path, "to"), "a rated end state needs the exchanger: \"transfer\" with U and area (or UA)");
+    if (s.to.time && !hasArea)
+        r.fail(child(path, "to"), "a time target needs the jacket or coil: \"transfer\" with U and area (or UA)");
+    if ((s.to.rated || s.to.time) && !s.source && !s.sink)
+        r.fail(child(path, "to"), "a rated or timed step needs its source or sink (a utility or a temperature)");
+    if (const Json* d = member(v, "duration")) s.duration = positiveQuantity(r, *d, child(path, "duration"), Dimension::Time);
+    if (s.kind == StepKind::Hold) {
+        if (p.system != SystemKind::Closed)
+            r.fail(child(path, "kind"), "a hold step belongs to a closed system (a batch); this project is steady-flow");
+        if (!s.duration) r.fail(path, "a hold step needs its \"duration\", e.g. \"2 h\"");
+    }
+    if (const Json* h = member(v, "heatLoss")) s.heatLoss = readHeatLoss(r, *h, child(path, "heatLoss"), p);
 }
 
 Step readStep(const Reader& r, const Json& v, long index, const Project& p, std::set<std::string>& ids,
@@ -415,7 +511,7 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
 
     const Json* kind = member(v, "kind");
     if (!kind) r.fail(path, "the step has no kind (heat, cool, melt, freeze, boil, condense, sublimate, deposit, "
-                            "compress, expand, throttle)");
+                            "compress, expand, throttle, hold)");
     auto k = parseStepKind(r.string(*kind, child(path, "kind")));
     if (!k) r.fail(child(path, "kind"), k.error().message);
     s.kind = *k;
@@ -425,6 +521,7 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
     const bool phase = isPhaseChangeKind(s.kind);
     const bool machine = s.kind == StepKind::Compress || s.kind == StepKind::Expand;
     const bool throttle = s.kind == StepKind::Throttle;
+    const bool hold = s.kind == StepKind::Hold;
 
     // Known fields in the wrong kind of step are errors, not extras.
     auto belongs = [&](std::string_view field) {
@@ -432,6 +529,8 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
         if (field == "at") return heatCool;
         if (field == "fraction") return phase;
         if (field == "path" || field == "n" || field == "efficiency") return machine;
+        if (field == "transfer") return heatCool || phase || hold;
+        if (field == "duration") return hold;
         return true;
     };
     for (auto it = v.begin(); it != v.end(); ++it) {
@@ -444,7 +543,7 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
     if (const Json* to = member(v, "to")) {
         const JsonPath toPath = child(path, "to");
         r.object(*to, toPath, "to");
-        static constexpr std::string_view heatCoolTargets[] = {"T", "duty", "quality"};
+        static constexpr std::string_view heatCoolTargets[] = {"T", "duty", "quality", "rated", "time"};
         static constexpr std::string_view machineTargets[] = {"P", "ratio"};
         static constexpr std::string_view throttleTargets[] = {"P"};
         const std::span<const std::string_view> allowed =
@@ -469,6 +568,7 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
         if (const Json* q = member(*to, "quality"))
             s.to.quality = r.bounded(*q, child(toPath, "quality"), BoundedField::Quality);
         if (const Json* ratio = member(*to, "ratio")) s.to.ratio = r.bounded(*ratio, child(toPath, "ratio"), BoundedField::Ratio);
+        readTransferTarget(r, *to, toPath, p, s);
         s.to.extra = Reader::unknownFields(*to, kTargetFields);
         s.hasTo = true;
     } else if (heatCool) {
@@ -531,18 +631,19 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
     s.source = readReservoir(r, v, path, "source");
     s.sink = readReservoir(r, v, path, "sink");
     s.note = r.optionalString(v, path, "note");
+    readTransferFields(r, v, path, p, s);
     s.extra = Reader::unknownFields(v, kStepFields);
     return s;
 }
 
 // ---- Utilities (optional top-level "utilities" and "minApproach") ----
 
-constexpr std::string_view kUtilityFields[] = {"id", "kind", "name", "P", "in", "out", "cp", "density", "T"};
+constexpr std::string_view kUtilityFields[] = {"id", "kind", "name", "P", "in", "out", "cp", "density", "T", "flow"};
 
 std::string_view utilityOwnersOf(std::string_view field) {
     if (field == "P") return "steam";
     if (field == "T") return "fixed";
-    return "sensible";  // in, out, cp, density
+    return "sensible";  // in, out, cp, density, flow
 }
 
 Utility readUtility(const Reader& r, const Json& v, long index, std::set<std::string>& ids) {
@@ -576,18 +677,24 @@ Utility readUtility(const Reader& r, const Json& v, long index, std::set<std::st
     u.cp = r.optionalQuantity(v, path, "cp", Dimension::SpecificEntropy);
     u.density = r.optionalQuantity(v, path, "density", Dimension::Density);
     u.T = r.optionalQuantity(v, path, "T", Dimension::Temperature);
+    u.flow = r.optionalQuantity(v, path, "flow", Dimension::MassFlow);
+    if (u.flow) {
+        if (!(u.flow->si > 0)) r.fail(child(path, "flow"), "the flow must be greater than zero");
+        if (u.Tout) r.fail(child(path, "flow"), "give \"out\" or \"flow\", not both: with a flow the outlet follows from the exchange");
+    }
     switch (u.kind) {
         case UtilityKind::Steam:
             if (!u.P) r.fail(path, "a steam utility needs its pressure, e.g. \"P\": \"3 barg\"");
             if (!(u.P->si > 0)) r.fail(child(path, "P"), "the steam pressure must be above zero absolute");
             break;
         case UtilityKind::Sensible:
-            if (!u.Tin || !u.Tout || !u.cp)
-                r.fail(path, "a sensible utility needs \"in\" and \"out\" temperatures and \"cp\", e.g. "
+            if (!u.Tin || !(u.Tout || u.flow) || !u.cp)
+                r.fail(path, "a sensible utility needs \"in\" and \"out\" temperatures (or \"in\" and a \"flow\") "
+                             "and \"cp\", e.g. "
                              "{ \"in\": \"28 degC\", \"out\": \"36 degC\", \"cp\": \"4.18 kJ/(kg K)\" }");
-            if (!(u.Tin->si > 0) || !(u.Tout->si > 0))
+            if (!(u.Tin->si > 0) || (u.Tout && !(u.Tout->si > 0)))
                 r.fail(child(path, u.Tin->si > 0 ? "out" : "in"), "the temperature must be above absolute zero");
-            if (u.Tin->si == u.Tout->si)
+            if (u.Tout && u.Tin->si == u.Tout->si)
                 r.fail(child(path, "out"), "\"in\" and \"out\" are equal; a sensible utility changes temperature "
                                            "(for one temperature use kind \"fixed\")");
             if (!(u.cp->si > 0)) r.fail(child(path, "cp"), "cp must be greater than zero");
@@ -807,6 +914,7 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
     readStart(r, *start, p.start);
 
     readUtilities(r, root, p);
+    if (const Json* h = member(root, "heatLoss")) p.heatLoss = readHeatLoss(r, *h, {{"heatLoss", -1}}, p);
 
     const Json* steps = member(root, "steps");
     if (!steps) r.fail(top, "\"steps\" is missing (an empty list [] is fine)");
@@ -820,7 +928,7 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
 
     p.extra = Reader::unknownFields(root, {"format", "version", "meta", "display", "system", "model", "substance",
                                            "basis", "atmosphere", "surroundings", "start", "steps",
-                                           "minApproach", "utilities"});
+                                           "minApproach", "utilities", "heatLoss"});
     return p;
 }
 
@@ -890,6 +998,8 @@ private:
                 to["duty"] = quantityJson(*s.to.duty, system == SystemKind::Closed ? Dimension::Energy : Dimension::Power);
             if (s.to.quality) to["quality"] = number(*s.to.quality);
             if (s.to.ratio) to["ratio"] = number(*s.to.ratio);
+            if (s.to.rated) to["rated"] = true;
+            if (s.to.time) to["time"] = quantityJson(*s.to.time, Dimension::Time);
             appendExtra(to, s.to.extra);
             j["to"] = std::move(to);
         }
@@ -900,12 +1010,39 @@ private:
         if (s.efficiency) j["efficiency"] = number(*s.efficiency);
         if (s.source) j["source"] = reservoir(*s.source);
         if (s.sink) j["sink"] = reservoir(*s.sink);
+        if (s.transfer) j["transfer"] = transfer(*s.transfer);
+        if (s.duration) j["duration"] = quantityJson(*s.duration, Dimension::Time);
+        if (s.heatLoss) j["heatLoss"] = heatLoss(*s.heatLoss);
         if (s.note) j["note"] = *s.note;
         appendExtra(j, s.extra);
         return j;
     }
 
-    // Key order: id, kind, name, P, in, out, cp, density, T, then unknown fields.
+    // Key order: U, area, UA, then unknown fields; a per-zone U keeps the file's order.
+    static Json transfer(const HeatTransferSpec& t) {
+        Json j = Json::object();
+        if (t.U) {
+            j["U"] = quantityJson(*t.U, Dimension::HeatTransferCoefficient);
+        } else if (!t.zoneU.empty()) {
+            Json u = Json::object();
+            for (const auto& [zone, q] : t.zoneU) u[zone] = quantityJson(q, Dimension::HeatTransferCoefficient);
+            appendExtra(u, t.Uextra);
+            j["U"] = std::move(u);
+        }
+        if (t.area) j["area"] = quantityJson(*t.area, Dimension::Area);
+        if (t.UA) j["UA"] = quantityJson(*t.UA, Dimension::ThermalConductance);
+        appendExtra(j, t.extra);
+        return j;
+    }
+
+    static Json heatLoss(const HeatLossSpec& h) {
+        Json j = Json::object();
+        j["UA"] = quantityJson(h.UA, Dimension::ThermalConductance);
+        appendExtra(j, h.extra);
+        return j;
+    }
+
+    // Key order: id, kind, name, P, in, out, cp, density, T, flow, then unknown fields.
     static Json utility(const Utility& u) {
         Json j = Json::object();
         j["id"] = u.id;
@@ -917,6 +1054,7 @@ private:
         if (u.cp) j["cp"] = quantityJson(*u.cp, Dimension::SpecificEntropy);
         if (u.density) j["density"] = quantityJson(*u.density, Dimension::Density);
         if (u.T) j["T"] = quantityJson(*u.T, Dimension::Temperature);
+        if (u.flow) j["flow"] = quantityJson(*u.flow, Dimension::MassFlow);
         appendExtra(j, u.extra);
         return j;
     }
@@ -1050,6 +1188,7 @@ std::string Writer::project(const Project& p) const {
         for (const Utility& u : p.utilities) list.push_back(utility(u));
         j["utilities"] = std::move(list);
     }
+    if (p.heatLoss) j["heatLoss"] = heatLoss(*p.heatLoss);
 
     // Unknown top-level fields keep their order, before the long list of steps.
     Json extra = p.extra;

@@ -55,6 +55,25 @@ Json stepExergyJson(const StepResult& s) {
     return j;
 }
 
+// Area and zones of a step (transfer.hpp); a zone's U and area are null
+// when only UA was given.
+Json transferJson(const StepTransfer& t) {
+    Json zones = Json::array();
+    for (const auto& z : t.zones)
+        zones.push_back({{"label", z.label}, {"Q", z.Q}, {"U_W_per_m2K", z.U > 0 ? Json(z.U) : Json(nullptr)},
+                         {"LMTD_K", z.LMTD}, {"area_m2", z.U > 0 ? Json(z.area) : Json(nullptr)}});
+    return {{"UA_W_per_K", t.UA}, {"area_m2", optNumber(t.area)}, {"meanDeltaT_K", t.meanDeltaT}, {"zones", zones}};
+}
+
+void batchJson(Json& st, const StepBatch& b) {
+    st["duration_s"] = b.duration;
+    st["peakDuty_W"] = b.peakDuty;
+    st["meanDuty_W"] = b.meanDuty;
+    Json profile = Json::array();
+    for (const auto& p : b.profile) profile.push_back({{"t_s", p.t}, {"T_K", p.T}, {"Qdot_W", p.Qdot}});
+    st["profile"] = profile;
+}
+
 }  // namespace
 
 Json stateToJson(const State& s) {
@@ -109,6 +128,8 @@ Json resultsToJson(const Project& project, const SequenceResult& r) {
             st["segments"] = segs;
             if (s.utility) st["utility"] = utilityStepJson(*s.utility, project.minApproachK(), s.segments);
             st["exergy"] = r.exergyAvailable ? stepExergyJson(s) : Json(nullptr);
+            if (s.transfer) st["transfer"] = transferJson(*s.transfer);
+            if (s.batch) batchJson(st, *s.batch);
         } else {
             for (const char* k : {"start", "end", "Q", "W", "dH", "dU", "dS", "Sgen", "exergyDestroyed"})
                 st[k] = nullptr;
@@ -126,6 +147,8 @@ Json resultsToJson(const Project& project, const SequenceResult& r) {
                    {"exergyDestroyed", t.exergyDestroyed},
                    {"heatingDuty", t.heatingDuty},     {"coolingDuty", t.coolingDuty},
                    {"complete", t.complete}};
+    j["totals"]["area_m2"] = optNumber(t.area);
+    if (closed) j["totals"]["cycleTime_s"] = optNumber(t.cycleTime);
     j["warnings"] = r.warnings;
     j["notes"] = r.notes;
     // Exergy of the sequence and the utilities.

@@ -163,7 +163,9 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
         return r;
     }
     r.start = *start;
-    const Ctx c{project, *model, r.massBasis, project.system == SystemKind::Closed, r.T0, options.curvePointsPerStep};
+    const Ctx plain{project, *model, r.massBasis, project.system == SystemKind::Closed, r.T0, options.curvePointsPerStep};
+    // Heat transfer reads the step's curve: such steps are always sampled.
+    const Ctx ct{project, *model, r.massBasis, plain.closed, r.T0, std::max(options.curvePointsPerStep, 16)};
     std::vector<Result<UtilityProfile>> profiles;
     profiles.reserve(project.utilities.size());
     for (const Utility& u : project.utilities)
@@ -171,9 +173,16 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
     State cur = *start;
     double Qcum = 0;
     for (std::size_t i = 0; i < project.steps.size(); ++i) {
-        const Step& step = project.steps[i];
         StepResult& sr = r.steps[i];
         sr.start = cur;
+        // A rated or timed end state: the same step with the duty that reaches it.
+        auto resolved = resolveTransferTarget(ct, project.steps[i], i, cur, Qcum, profiles);
+        if (!resolved) {
+            sr.error = resolved.error();
+            break;
+        }
+        const Step& step = *resolved ? **resolved : project.steps[i];
+        const Ctx& c = step.transfer || step.kind == StepKind::Hold ? ct : plain;
         Result<Outcome> out = makeError("");
         switch (step.kind) {
             case StepKind::Heat:
@@ -187,6 +196,7 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
             case StepKind::Compress:
             case StepKind::Expand:
             case StepKind::Throttle: out = pressureChange(c, step, i, cur, Qcum); break;
+            case StepKind::Hold: out = holdStep(c, step, i, cur, Qcum); break;
         }
         if (!out) {
             sr.error = out.error();
@@ -254,6 +264,10 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
         std::uint32_t flags = o.end.warnings;
         for (const auto& seg : sr.segments) flags |= seg.start.warnings | seg.end.warnings;
         if (flags) sr.warnings.insert(sr.warnings.begin(), describeWarnings(flags));
+        if (auto st = applyTransfer(c, step, i, sr, profiles); !st) {
+            sr.error = st.error();
+            break;
+        }
         sr.computed = true;
         cur = o.end;
         Qcum += sr.Q;
@@ -266,6 +280,8 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
         t.Sgen += sr.Sgen;
         t.exergyDestroyed += sr.exergyDestroyed;
         if (sr.Q > 0) t.heatingDuty += sr.Q; else t.coolingDuty -= sr.Q;
+        if (sr.transfer && sr.transfer->area) t.area = t.area.value_or(0.0) + *sr.transfer->area;
+        if (sr.batch) t.cycleTime = t.cycleTime.value_or(0.0) + sr.batch->duration;
     }
     if (r.start.warnings) r.warnings.push_back("start state: " + describeWarnings(r.start.warnings));
     r.totals.complete = std::all_of(r.steps.begin(), r.steps.end(), [](const StepResult& s) { return s.computed; });

@@ -65,6 +65,15 @@ Result<std::optional<double>> reservoirFor(const Ctx& c, const Step& step, std::
 Result<StepUtility> serveByUtility(const Ctx& c, const Step& step, std::size_t idx, const Outcome& o,
                                    const std::vector<Result<UtilityProfile>>& profiles, double Qcum);
 
+// transfer_solve.cpp: the hold step; the area or batch time of a computed
+// step (sr.transfer, sr.batch); and for a rated or timed step, the same step
+// with the duty that reaches the given area or time (none otherwise).
+Result<Outcome> holdStep(const Ctx& c, const Step& step, std::size_t idx, const State& a, double Qcum);
+Status applyTransfer(const Ctx& c, const Step& step, std::size_t idx, StepResult& sr,
+                     const std::vector<Result<UtilityProfile>>& profiles);
+Result<std::optional<Step>> resolveTransferTarget(const Ctx& c, const Step& step, std::size_t idx, const State& a,
+                                                  double Qcum, const std::vector<Result<UtilityProfile>>& profiles);
+
 // solver_exergy.cpp: exergy of every computed step and of the sequence.
 void exergyAccounts(const Project& project, const PropertyModel& model, SequenceResult& r);
 

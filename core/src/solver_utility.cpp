@@ -18,7 +18,7 @@ namespace heatchain {
 double UtilityProfile::massPerHeat() const {
     switch (kind) {
         case UtilityKind::Steam: return latentHeat > 0 ? 1.0 / latentHeat : 0.0;
-        case UtilityKind::Sensible: return 1.0 / (cp * std::fabs(Tin - Tout));
+        case UtilityKind::Sensible: return Tin != Tout ? 1.0 / (cp * std::fabs(Tin - Tout)) : 0.0;
         case UtilityKind::Fixed: return 0.0;
     }
     return 0.0;
@@ -55,6 +55,16 @@ Result<UtilityProfile> resolveUtility(const Utility& u, UnitSystem units, const 
             return p;
         }
         case UtilityKind::Sensible: {
+            if (u.Tin && u.flow && u.cp && !u.Tout) {
+                // A flow instead of an outlet: each step's exchange sets its outlet.
+                p.Tin = p.Tout = p.Tmean = u.Tin->si;
+                p.cp = u.cp->si;
+                p.flow = u.flow->si;
+                if (!(p.Tin > 0 && p.cp > 0 && *p.flow > 0))
+                    return makeError("in must be above absolute zero, cp and flow above zero", where);
+                if (u.density) p.density = u.density->si;
+                return p;
+            }
             if (!u.Tin || !u.Tout || !u.cp) return makeError("a sensible utility needs in, out and cp", where);
             p.Tin = u.Tin->si;
             p.Tout = u.Tout->si;
@@ -120,7 +130,21 @@ Result<StepUtility> serveByUtility(const Ctx& c, const Step& step, std::size_t i
     if (ui >= profiles.size()) return stepError(step, idx, "unknown utility \"" + *r.utility + "\"");
     if (!profiles[ui])
         return stepError(step, idx, "utility \"" + *r.utility + "\": " + profiles[ui].error().message);
-    const UtilityProfile& u = *profiles[ui];
+    UtilityProfile flowing;
+    if (profiles[ui]->flow) {
+        // Steady flow: the outlet follows from the step's duty, Q = ṁ c_p (T_in − T_out).
+        // A batch: the outlet changes through the step (transfer_solve.cpp);
+        // the material cannot pass the inlet, which is what is checked here.
+        flowing = *profiles[ui];
+        if (!c.closed) {
+            flowing.Tout = flowing.Tin - o.Q / (*flowing.flow * flowing.cp);
+            if (!(flowing.Tout > 0))
+                return stepError(step, idx, "utility \"" + flowing.id + "\" would leave below absolute zero: its flow is too small for this duty");
+            if (flowing.Tout != flowing.Tin)
+                flowing.Tmean = (flowing.Tin - flowing.Tout) / std::log(flowing.Tin / flowing.Tout);
+        }
+    }
+    const UtilityProfile& u = profiles[ui]->flow ? flowing : *profiles[ui];
     StepUtility su;
     su.id = u.id;
     su.kind = u.kind;
@@ -128,13 +152,13 @@ Result<StepUtility> serveByUtility(const Ctx& c, const Step& step, std::size_t i
     su.counterCurrent = u.kind == UtilityKind::Sensible;
     su.Tmean = u.Tmean;
     su.duty = std::fabs(o.Q);
-    su.mass = su.duty * u.massPerHeat();
+    su.mass = u.flow ? (c.closed ? 0.0 : *u.flow) : su.duty * u.massPerHeat();
     if (u.density) su.volume = su.mass / *u.density;
     if (o.Q > 0 && !asSource)
         return stepError(step, idx, "heat flows into the material in this step, so it needs a source, not a sink");
     if (o.Q < 0 && asSource)
         return stepError(step, idx, "heat leaves the material in this step, so it needs a sink, not a source");
-    if (u.kind == UtilityKind::Sensible) {
+    if (u.kind == UtilityKind::Sensible && !u.flow) {
         if (asSource && u.Tin < u.Tout)
             return stepError(step, idx, "utility \"" + u.id + "\" warms from " + c.T(u.Tin) + " to " + c.T(u.Tout) +
                                             ", so it can only take heat (a sink), not be a source");

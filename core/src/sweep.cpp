@@ -38,11 +38,17 @@ Result<InputPath> resolveInput(const Project& p, bool start, std::string input) 
     if (input == "to.ratio") return InputPath{{"to", "ratio"}, Dimension::Dimensionless, true};
     if (input == "efficiency" || input == "fraction" || input == "n")
         return InputPath{{input}, Dimension::Dimensionless, true};
+    // Heat transfer: the exchanger, jacket or coil, and a batch's times.
+    if (input == "transfer.U") return InputPath{{"transfer", "U"}, Dimension::HeatTransferCoefficient, false};
+    if (input == "transfer.area") return InputPath{{"transfer", "area"}, Dimension::Area, false};
+    if (input == "transfer.UA") return InputPath{{"transfer", "UA"}, Dimension::ThermalConductance, false};
+    if (input == "to.time") return InputPath{{"to", "time"}, Dimension::Time, false};
+    if (input == "duration") return InputPath{{"duration"}, Dimension::Time, false};
     if (input == "source.T") return InputPath{{"source", "T"}, Dimension::Temperature, false};
     if (input == "sink.T") return InputPath{{"sink", "T"}, Dimension::Temperature, false};
     return makeError("unknown input \"" + input +
-                         "\" of a step; valid ones are to.T, to.P, to.duty, to.quality, to.ratio, efficiency, "
-                         "fraction, n, source.T, sink.T",
+                         "\" of a step; valid ones are to.T, to.P, to.duty, to.quality, to.ratio, to.time, efficiency, "
+                         "fraction, n, source.T, sink.T, transfer.U, transfer.area, transfer.UA, duration",
                      "sweep --input");
 }
 
@@ -52,6 +58,10 @@ std::string_view siUnit(Dimension d) {
         case Dimension::Pressure: return "Pa";
         case Dimension::Energy: return "J";
         case Dimension::Power: return "W";
+        case Dimension::Area: return "m2";
+        case Dimension::HeatTransferCoefficient: return "W/(m2 K)";
+        case Dimension::ThermalConductance: return "W/K";
+        case Dimension::Time: return "s";
         default: return "";
     }
 }
@@ -64,7 +74,16 @@ void setInput(Json& node, const InputPath& in, const Json& value) {
         Json& parent = node[in.keys[0]];
         if (!parent.is_object()) parent = Json::object();
         if (in.keys[0] == "to")
-            for (const char* k : {"T", "P", "duty", "quality", "ratio"}) parent.erase(k);
+            for (const char* k : {"T", "P", "duty", "quality", "ratio", "rated", "time"}) parent.erase(k);
+        // U with area, or UA instead of both.
+        if (in.keys[0] == "transfer") {
+            if (in.keys[1] == "UA") {
+                parent.erase("U");
+                parent.erase("area");
+            } else {
+                parent.erase("UA");
+            }
+        }
         if (in.keys[0] == "source" || in.keys[0] == "sink") parent.erase("utility");
         parent[in.keys[1]] = value;
         return;
@@ -115,6 +134,10 @@ std::vector<OutputDef> outputDefs(const Project& p) {
     total("exergyDestroyed", "exergy destroyed", dE, [](const Totals& t) { return t.exergyDestroyed; });
     d.push_back({{"total.secondLawEfficiency", "second-law efficiency", Dimension::Dimensionless},
                  [](const SequenceResult& r) { return r.totals.secondLawEfficiency; }});
+    d.push_back({{"total.area", "total area", Dimension::Area}, [](const SequenceResult& r) { return r.totals.area; }});
+    if (closed)
+        d.push_back({{"total.cycleTime", "cycle time", Dimension::Time},
+                     [](const SequenceResult& r) { return r.totals.cycleTime; }});
     for (std::size_t i = 0; i < p.steps.size(); ++i) {
         const std::string id = p.steps[i].id;
         auto step = [&](const char* key, const char* label, Dimension dim, const std::function<double(const StepResult&)>& f) {
@@ -129,6 +152,17 @@ std::vector<OutputDef> outputDefs(const Project& p) {
         step("W", "W", dE, [](const StepResult& s) { return s.W; });
         step("Sgen", "S_gen", dS, [](const StepResult& s) { return s.Sgen; });
         step("exergyDestroyed", "exergy destroyed", dE, [](const StepResult& s) { return s.exergyDestroyed; });
+        d.push_back({{"step:" + id + ".area", id + " area", Dimension::Area},
+                     [i](const SequenceResult& r) -> std::optional<double> {
+                         if (i >= r.steps.size() || !r.steps[i].computed || !r.steps[i].transfer) return std::nullopt;
+                         return r.steps[i].transfer->area;
+                     }});
+        if (closed)
+            d.push_back({{"step:" + id + ".duration", id + " time", Dimension::Time},
+                         [i](const SequenceResult& r) -> std::optional<double> {
+                             if (i >= r.steps.size() || !r.steps[i].computed || !r.steps[i].batch) return std::nullopt;
+                             return r.steps[i].batch->duration;
+                         }});
         d.push_back({{"step:" + id + ".approach", id + " min approach", Dimension::TemperatureDifference},
                      [i](const SequenceResult& r) -> std::optional<double> {
                          if (i >= r.steps.size() || !r.steps[i].computed || !r.steps[i].utility) return std::nullopt;

@@ -174,6 +174,22 @@ constexpr std::array kUnits = std::to_array<UnitInfo>({
     {"L/s", D::VolumeFlow, kLitre_m3, 0.0, false},
     {"L/min", D::VolumeFlow, kLitre_m3 / kMinute_s, 0.0, false},
     {"ft3/min", D::VolumeFlow, kCubicFoot_m3 / kMinute_s, 0.0, false},
+
+    {"m2", D::Area, 1.0, 0.0, false},
+    {"cm2", D::Area, 1.0e-4, 0.0, false},
+    {"ft2", D::Area, kFoot_m * kFoot_m, 0.0, false},
+
+    {"W/(m2 K)", D::HeatTransferCoefficient, 1.0, 0.0, false},
+    {"kW/(m2 K)", D::HeatTransferCoefficient, 1.0e3, 0.0, false},
+    {"Btu/(h ft2 degF)", D::HeatTransferCoefficient, kBtu_J / kHour_s / (kFoot_m * kFoot_m) / kRankine_K, 0.0, false},
+
+    {"W/K", D::ThermalConductance, 1.0, 0.0, false},
+    {"kW/K", D::ThermalConductance, 1.0e3, 0.0, false},
+    {"Btu/(h degF)", D::ThermalConductance, kBtu_J / kHour_s / kRankine_K, 0.0, false},
+
+    {"s", D::Time, 1.0, 0.0, false},
+    {"min", D::Time, kMinute_s, 0.0, false},
+    {"h", D::Time, kHour_s, 0.0, false},
 });
 
 // Other spellings of a canonical unit. Looked up after normalising both sides
@@ -201,6 +217,8 @@ constexpr std::array kAliases = std::to_array<Alias>({
     {"°F", D::TemperatureDifference, "delta_degF"},
     {"F", D::TemperatureDifference, "delta_degF"},
     {"psi", D::Pressure, "psia"},
+    {"W/m2K", D::HeatTransferCoefficient, "W/(m2 K)"},
+    {"kW/m2K", D::HeatTransferCoefficient, "kW/(m2 K)"},
     // The written forms of absolute and gauge on data sheets and P&IDs. Spaces
     // are dropped before the lookup, so "bar g" reads as "barg" and
     // "bar(a)" as "bar(a)".
@@ -314,6 +332,10 @@ std::string_view example(Dimension d) {
         case D::SpecificVolume: return "0.001 m3/kg";
         case D::Density: return "1000 kg/m3";
         case D::VolumeFlow: return "10 m3/h";
+        case D::Area: return "12 m2";
+        case D::HeatTransferCoefficient: return "450 W/(m2 K)";
+        case D::ThermalConductance: return "2.4 kW/K";
+        case D::Time: return "45 min";
     }
     return "";
 }
@@ -341,7 +363,8 @@ bool mustNotBeNegative(Dimension d) {
     switch (d) {
         case D::Mass: case D::Amount: case D::MassFlow: case D::MolarFlow:
         case D::Volume: case D::SpecificVolume: case D::Density: case D::MolarMass:
-        case D::VolumeFlow:
+        case D::VolumeFlow: case D::Area: case D::HeatTransferCoefficient: case D::ThermalConductance:
+        case D::Time:
             return true;
         default:
             return false;
@@ -398,6 +421,10 @@ std::string_view dimensionName(Dimension d) {
         case D::SpecificVolume: return "specific volume";
         case D::Density: return "density";
         case D::VolumeFlow: return "volume flow";
+        case D::Area: return "area";
+        case D::HeatTransferCoefficient: return "overall coefficient";
+        case D::ThermalConductance: return "thermal conductance";
+        case D::Time: return "time";
     }
     return "unknown dimension";
 }
@@ -530,6 +557,10 @@ std::string_view displayUnit(Dimension d, UnitSystem system) {
         case D::SpecificVolume: return pick("m3/kg", "m3/kg", "ft3/lb");
         case D::Density: return pick("kg/m3", "kg/m3", "lb/ft3");
         case D::VolumeFlow: return pick("m3/s", "m3/h", "ft3/min");
+        case D::Area: return pick("m2", "m2", "ft2");
+        case D::HeatTransferCoefficient: return pick("W/(m2 K)", "W/(m2 K)", "Btu/(h ft2 degF)");
+        case D::ThermalConductance: return pick("kW/K", "kW/K", "Btu/(h degF)");
+        case D::Time: return pick("min", "min", "min");
     }
     return "";
 }
@@ -538,7 +569,7 @@ std::string unitLabel(std::string_view symbol) {
     // Typographic spellings for people; the ASCII symbols stay the ones parsed and saved.
     static constexpr std::pair<std::string_view, std::string_view> swaps[] = {
         {"delta_degF", "°F"}, {"degC", "°C"}, {"degF", "°F"}, {"degR", "°R"},
-        {"m3", "m³"}, {"(kg K)", "(kg·K)"}, {"(mol K)", "(mol·K)"}, {"(kmol K)", "(kmol·K)"},
+        {"m3", "m³"}, {"m2", "m²"}, {"ft2", "ft²"}, {"(kg K)", "(kg·K)"}, {"(m2 K)", "(m²·K)"}, {"(mol K)", "(mol·K)"}, {"(kmol K)", "(kmol·K)"},
         {"(lb degF)", "(lb·°F)"}, {"(lbmol degF)", "(lbmol·°F)"}, {"(h degR)", "(h·°R)"}, {"ft3", "ft³"},
     };
     std::string out(symbol);
@@ -553,7 +584,7 @@ double toDisplay(double si, Dimension d, UnitSystem system, const UnitContext& c
     // The display unit of every (dimension, system), looked up once: views
     // format thousands of numbers per edit, and a lookup by spelling
     // normalises every table entry. Every display unit is in the table (tested).
-    constexpr int kDims = static_cast<int>(Dimension::VolumeFlow) + 1;
+    constexpr int kDims = static_cast<int>(kLastDimension) + 1;
     constexpr int kSystems = static_cast<int>(UnitSystem::USCustomary) + 1;
     static const auto table = [] {
         std::array<std::array<const UnitInfo*, kSystems>, kDims> t{};

@@ -263,7 +263,7 @@ TEST(Units, TableIsConsistent) {
 }
 
 TEST(Units, DisplayUnitsExistForEveryDimensionAndSystem) {
-    for (int d = 0; d <= static_cast<int>(Dimension::VolumeFlow); ++d) {
+    for (int d = 0; d <= static_cast<int>(kLastDimension); ++d) {
         for (UnitSystem s : {UnitSystem::SI, UnitSystem::MetricEngineering, UnitSystem::USCustomary}) {
             const Dimension dim = static_cast<Dimension>(d);
             const std::string_view unit = displayUnit(dim, s);

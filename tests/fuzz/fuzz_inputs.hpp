@@ -57,7 +57,7 @@ inline std::optional<std::string> projectInput(const std::uint8_t* data, std::si
     return std::nullopt;
 }
 
-inline constexpr int kDimensionCount = static_cast<int>(Dimension::VolumeFlow) + 1;
+inline constexpr int kDimensionCount = static_cast<int>(kLastDimension) + 1;
 
 // Quantity text: byte 0 picks the Dimension, byte 1 the atmosphere gauge
 // units refer to (50–305 kPa), the rest is the text. A parsed value must be

@@ -119,6 +119,18 @@ const std::map<std::pair<D, std::string>, std::string>& pintNames() {
         {{D::VolumeFlow, "L/s"}, "liter/s"},
         {{D::VolumeFlow, "L/min"}, "liter/minute"},
         {{D::VolumeFlow, "ft3/min"}, "ft**3/minute"},
+        {{D::Area, "m2"}, "m**2"},
+        {{D::Area, "cm2"}, "cm**2"},
+        {{D::Area, "ft2"}, "ft**2"},
+        {{D::HeatTransferCoefficient, "W/(m2 K)"}, "W/m**2/kelvin"},
+        {{D::HeatTransferCoefficient, "kW/(m2 K)"}, "kW/m**2/kelvin"},
+        {{D::HeatTransferCoefficient, "Btu/(h ft2 degF)"}, "international_british_thermal_unit/hour/ft**2/delta_degF"},
+        {{D::ThermalConductance, "W/K"}, "W/kelvin"},
+        {{D::ThermalConductance, "kW/K"}, "kW/kelvin"},
+        {{D::ThermalConductance, "Btu/(h degF)"}, "international_british_thermal_unit/hour/delta_degF"},
+        {{D::Time, "s"}, "second"},
+        {{D::Time, "min"}, "minute"},
+        {{D::Time, "h"}, "hour"},
     };
     return m;
 }
@@ -146,6 +158,10 @@ std::string pintSI(D d) {
         case D::SpecificVolume: return "m**3/kg";
         case D::Density: return "kg/m**3";
         case D::VolumeFlow: return "m**3/s";
+        case D::Area: return "m**2";
+        case D::HeatTransferCoefficient: return "W/m**2/K";
+        case D::ThermalConductance: return "W/K";
+        case D::Time: return "s";
     }
     return "";
 }

@@ -215,6 +215,7 @@ QString stepKindTitle(StepKind k) {
     case StepKind::Compress: return QStringLiteral("Compress");
     case StepKind::Expand: return QStringLiteral("Expand");
     case StepKind::Throttle: return QStringLiteral("Throttle");
+    case StepKind::Hold: return QStringLiteral("Hold");
     }
     return {};
 }
@@ -232,6 +233,7 @@ QString stepKindMeaning(StepKind k) {
     case StepKind::Compress: return QStringLiteral("raise the pressure with work");
     case StepKind::Expand: return QStringLiteral("lower the pressure, taking work out");
     case StepKind::Throttle: return QStringLiteral("lower the pressure across a valve, no work");
+    case StepKind::Hold: return QStringLiteral("keep a batch at its temperature for a time");
     }
     return {};
 }

@@ -96,6 +96,12 @@ void drawStepIcon(QPainter& p, const QRectF& box, StepKind kind, const QColor& i
         p.drawPath(a);
         break;
     }
+    case StepKind::Hold:
+        // A clock face: the batch stays put for a time.
+        p.drawEllipse(QPointF(12, 12), 8.5, 8.5);
+        p.drawLine(QPointF(12, 12), QPointF(12, 6.5));
+        p.drawLine(QPointF(12, 12), QPointF(16, 14));
+        break;
     case StepKind::Throttle: {
         // A pipe pinched in the middle; the wide outlet side shows the drop.
         QPainterPath pipe;

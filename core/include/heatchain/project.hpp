@@ -44,6 +44,7 @@ std::string_view systemId(SystemKind s);  // "closed", "steady-flow"
 enum class StepKind {
     Heat, Cool, Melt, Freeze, Boil, Condense, Sublimate, Deposit,
     Compress, Expand, Throttle,
+    Hold,  // closed systems: stays at its state for a duration (heat loss made up)
 };
 std::string_view stepKindId(StepKind k);  // "heat", "cool", ...
 Result<StepKind> parseStepKind(std::string_view id);
@@ -68,6 +69,26 @@ struct StepTarget {
     std::optional<Quantity> duty;     // heat per kg·… as typed: energy (closed) or power (flow)
     std::optional<Number> quality;
     std::optional<Number> ratio;      // pressure ratio, > 1 (expand divides by it)
+    bool rated = false;               // "rated": true — the end state the given exchanger area reaches
+    std::optional<Quantity> time;     // closed systems: the end state after this time
+    Json extra = Json::object();
+};
+
+// Heat transfer through an exchanger, jacket or coil (transfer.hpp uses it):
+// an overall coefficient U — one value, or one per kind of zone — and the
+// area, or the product UA instead of both.
+struct HeatTransferSpec {
+    std::optional<Quantity> U;                                  // one value for every zone
+    std::vector<std::pair<std::string, Quantity>> zoneU;        // per zone: "liquid", "two-phase", ... (file order)
+    std::optional<Quantity> area;
+    std::optional<Quantity> UA;
+    Json extra = Json::object();      // unknown fields, kept
+    Json Uextra = Json::object();     // unknown keys of a per-zone U object, kept
+};
+
+// Heat lost to the surroundings' temperature by a batch: UA to ambient.
+struct HeatLossSpec {
+    Quantity UA;
     Json extra = Json::object();
 };
 
@@ -84,6 +105,9 @@ struct Step {
     std::optional<Reservoir> source;
     std::optional<Reservoir> sink;
     std::optional<std::string> note;
+    std::optional<HeatTransferSpec> transfer;  // heat, cool and phase-change kinds, hold
+    std::optional<Quantity> duration;     // hold
+    std::optional<HeatLossSpec> heatLoss; // closed systems: replaces the project's
     Json extra = Json::object();          // unknown fields, kept and written back
 };
 
@@ -106,6 +130,7 @@ struct Utility {
     std::optional<Quantity> cp;          // sensible, J/(kg K)
     std::optional<Quantity> density;     // sensible, optional, kg/m3
     std::optional<Quantity> T;           // fixed
+    std::optional<Quantity> flow;        // sensible, instead of out: kg/s through the exchanger
     Json extra = Json::object();         // unknown fields, kept
 };
 
@@ -154,6 +179,7 @@ struct Project {
     std::vector<Utility> utilities;
     bool hasUtilities = false;                // written back only if it was in the file (or set)
     std::optional<Quantity> minApproach;      // default kDefaultMinApproach
+    std::optional<HeatLossSpec> heatLoss;     // closed systems: UA to the surroundings
 
     static constexpr double kDefaultMinApproach = 10.0;  // K, a common first-estimate design value (from memory)
     double minApproachK() const { return minApproach ? minApproach->si : kDefaultMinApproach; }

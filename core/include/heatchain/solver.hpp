@@ -14,6 +14,7 @@
 #include "heatchain/property_model.hpp"
 #include "heatchain/result.hpp"
 #include "heatchain/state.hpp"
+#include "heatchain/transfer.hpp"
 
 namespace heatchain {
 
@@ -47,6 +48,7 @@ struct UtilityProfile {
     double P = 0;               // Pa, steam
     double latentHeat = 0;      // J/kg, steam (h_g − h_f at P, IAPWS-IF97)
     double cp = 0;              // J/(kg K), sensible
+    std::optional<double> flow; // kg/s, sensible with a flow instead of an outlet (Tout = Tin until a step sets it)
     std::optional<double> density;  // kg/m3, sensible
     // kg of utility per J of heat: 1/latent (steam), 1/(cp |T_in − T_out|)
     // (sensible), 0 (fixed: no stream to count).
@@ -131,6 +133,11 @@ struct StepResult {
     // why ("no source given"), and the sequence's exergy figures leave the
     // step out.
     std::optional<std::string> exergyNotCharged;
+
+    // Heat transfer (transfer.hpp): the area a steady-flow step needs, or
+    // the surface a batch step has; and a batch step's time and duty profile.
+    std::optional<StepTransfer> transfer;
+    std::optional<StepBatch> batch;
 };
 
 struct Totals {
@@ -143,6 +150,8 @@ struct Totals {
     // False when any step was not computed; the sums above then add only
     // the computed steps.
     bool complete = true;
+    std::optional<double> area;       // m2, over the steps with an area (sized or given)
+    std::optional<double> cycleTime;  // s, closed systems: over the steps with a time
 };
 
 struct SequenceResult {

@@ -35,7 +35,13 @@ enum class Dimension {
     SpecificVolume,          // m3/kg
     Density,                 // kg/m3
     VolumeFlow,              // m3/s
+    Area,                    // m2           (heat-transfer area)
+    HeatTransferCoefficient, // W/(m2 K)     (overall coefficient U)
+    ThermalConductance,      // W/K          (UA, of an exchanger or of a heat loss)
+    Time,                    // s
 };
+// The last Dimension, for tables indexed by dimension.
+inline constexpr Dimension kLastDimension = Dimension::Time;
 
 std::string_view dimensionName(Dimension d);  // "temperature", "pressure", ...
 
