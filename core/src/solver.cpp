@@ -280,7 +280,8 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
         t.Sgen += sr.Sgen;
         t.exergyDestroyed += sr.exergyDestroyed;
         if (sr.Q > 0) t.heatingDuty += sr.Q; else t.coolingDuty -= sr.Q;
-        if (sr.transfer && sr.transfer->area) t.area = t.area.value_or(0.0) + *sr.transfer->area;
+        // A batch's steps share one jacket or coil: only sized (steady-flow) areas add up.
+        if (sr.transfer && sr.transfer->area && !c.closed) t.area = t.area.value_or(0.0) + *sr.transfer->area;
         if (sr.batch) t.cycleTime = t.cycleTime.value_or(0.0) + sr.batch->duration;
     }
     if (r.start.warnings) r.warnings.push_back("start state: " + describeWarnings(r.start.warnings));

@@ -30,13 +30,13 @@ const char* kCycle[] = {
 };
 
 std::string worksheetText(int steps, bool sized) {
-    std::string t = R"({ "format": "heatchain-project", "version": 1,
+    std::string t = R"j({ "format": "heatchain-project", "version": 1,
   "meta": { "title": "benchmark cycle" }, "system": "steady-flow", "model": "reference",
   "substance": "water", "basis": { "massFlow": "4.2 t/h" },
   "start": { "T": "48 degC", "P": "1.4 bar" },
   "utilities": [ { "id": "cw", "kind": "sensible", "in": "20 degC", "out": "28 degC", "cp": "4.18 kJ/(kg K)" } ],
   "steps": [
-)";
+)j";
     for (int i = 0; i < steps; ++i) {
         std::string s = kCycle[i % 7];
         s.replace(s.find('%'), 1, std::to_string(i / 7));
