@@ -55,8 +55,9 @@ const VerbHelp kVerbs[] = {
      "quantities (\"80 degC ± 2 K\"): first order (linear, the default) or Monte Carlo.\n"},
     {"report", "  heatchain-cli report  PROJECT|- -o REPORT.pdf [--page A4|letter]\n",
      "Writes the PDF report (A4 unless --page letter).\n"},
-    {"chart", "  heatchain-cli chart   PROJECT|- --ts|--tq|--composite|--grand-composite [--dtmin Q] -o FILE.svg|FILE.png\n",
-     "Writes the T-s chart (--ts) or the T-Q chart (--tq) as SVG or PNG; or, for heat recovery, the\n"
+    {"chart", "  heatchain-cli chart   PROJECT|- --ts|--tq|--time|--composite|--grand-composite [--dtmin Q] -o FILE.svg|FILE.png\n",
+     "Writes the T-s chart (--ts), the T-Q chart (--tq) or a batch's temperature and duty against time\n"
+     "(--time) as SVG or PNG; or, for heat recovery, the\n"
      "hot and cold composite curves (--composite) or the grand composite curve with the utility\n"
      "levels (--grand-composite) of every stream at the minimum temperature difference Q (default:\n"
      "the worksheet's required minimum approach).\n"},
@@ -80,8 +81,9 @@ const VerbHelp kVerbs[] = {
     {"sweep",
      "  heatchain-cli sweep   PROJECT|- --step ID|start --input PATH --from Q --to Q --points N\n"
      "                        [--outputs KEY,KEY,...] [--json | --csv] [-o FILE|-]\n"
-     "      PATH of a step: to.T, to.P, to.duty, to.quality, to.ratio, efficiency, fraction, n,\n"
-     "      source.T, sink.T; of the start: T, P, quality, meltFraction.\n"
+     "      PATH of a step: to.T, to.P, to.duty, to.quality, to.ratio, to.time, efficiency, fraction, n,\n"
+     "      source.T, sink.T, transfer.U, transfer.area, transfer.UA, duration; of the start: T, P,\n"
+     "      quality, meltFraction.\n"
      "      --outputs list: heatchain-cli sweep PROJECT --list-outputs\n",
      "Varies one input linearly from --from to --to over N points and solves the worksheet at each;\n"
      "a point that cannot be computed is listed with its reason. Exit 4 only when no point could be\n"
@@ -342,19 +344,21 @@ int recoveryChart(const Args& a) {
 
 int chart(const Args& a) {
     if (a.options.count("--composite") || a.options.count("--grand-composite")) return recoveryChart(a);
-    if (a.positional.size() != 1 || !a.options.count("-o")) return usage("chart needs PROJECT, --ts or --tq, and -o FILE.svg|FILE.png");
+    if (a.positional.size() != 1 || !a.options.count("-o")) return usage("chart needs PROJECT, --ts, --tq or --time, and -o FILE.svg|FILE.png");
     for (const auto& [k, v] : a.options)
-        if (k != "-o" && k != "--ts" && k != "--tq") return usage("unknown option " + k);
-    const bool ts = a.options.count("--ts"), tq = a.options.count("--tq");
+        if (k != "-o" && k != "--ts" && k != "--tq" && k != "--time") return usage("unknown option " + k);
+    const bool ts = a.options.count("--ts"), tq = a.options.count("--tq"), time = a.options.count("--time");
     if (a.options.at("-o") == "-") return usage("chart writes an image file; -o - (standard output) is for text results");
-    if (ts == tq) return usage("chart needs exactly one of --ts (temperature-entropy) and --tq (temperature-duty)");
+    if (int(ts) + int(tq) + int(time) != 1)
+        return usage("chart needs exactly one of --ts (temperature-entropy), --tq (temperature-duty) and --time (batch time)");
 #ifdef HEATCHAIN_HAVE_REPORT
     const std::string out = a.options.at("-o");
     if (auto format = imageFormatFor(out); !format) return usage(format.error().text());
     std::optional<Project> project;
     std::optional<SequenceResult> result;
     if (auto rc = loadForDrawing(a.positional[0], project, result)) return *rc;
-    auto st = exportChart(*project, *result, ts ? ChartKind::TemperatureEntropy : ChartKind::TemperatureDuty, out);
+    auto st = exportChart(*project, *result,
+                          ts ? ChartKind::TemperatureEntropy : (time ? ChartKind::TemperatureTime : ChartKind::TemperatureDuty), out);
     if (!st) {
         std::cerr << "heatchain-cli: " << st.error().text() << "\n";
         return kCannotCompute;

@@ -13,6 +13,7 @@
 #include "heatchain/report.hpp"
 #include "heatchain/results_json.hpp"
 #include "heatchain_view/process_chart.hpp"
+#include "heatchain_view/time_chart.hpp"
 #include "report_layout.hpp"
 
 namespace heatchain {
@@ -25,11 +26,47 @@ Result<ImageFormat> imageFormatFor(const std::filesystem::path& file) {
     return makeError("the chart file name must end in .png or .svg", file.string());
 }
 
+namespace {
+
+// The time chart of a batch, drawn like the other charts (the view draws it).
+Result<std::string> renderTimeChart(const Project& project, const SequenceResult& result, ImageFormat format,
+                                    const ChartImageOptions& options) {
+    view::TimeChart chart;
+    chart.setData(project, result);
+    const QRectF rect(0, 0, options.width, options.height);
+    QBuffer buffer;
+    buffer.open(QIODevice::WriteOnly);
+    if (format == ImageFormat::Svg) {
+        QSvgGenerator svg;
+        svg.setOutputDevice(&buffer);
+        svg.setSize(QSize(options.width, options.height));
+        svg.setViewBox(rect);
+        svg.setTitle(QString::fromStdString(project.meta.title));
+        svg.setDescription(QStringLiteral("Temperature and duty against time"));
+        QPainter p;
+        if (!p.begin(&svg)) return makeError("cannot start drawing the SVG");
+        chart.paint(p, rect);
+        p.end();
+    } else {
+        QImage image(options.width, options.height, QImage::Format_ARGB32_Premultiplied);
+        image.fill(Qt::white);
+        QPainter p(&image);
+        chart.paint(p, rect);
+        p.end();
+        if (!image.save(&buffer, "PNG")) return makeError("cannot encode the PNG");
+    }
+    const QByteArray data = buffer.data();
+    return std::string(data.constData(), std::size_t(data.size()));
+}
+
+}  // namespace
+
 Result<std::string> renderChart(const Project& project, const SequenceResult& result, ChartKind kind,
                                 ImageFormat format, const ChartImageOptions& options) {
     if (auto st = report_detail::ensureGuiApplication(); !st) return st.error();
     if (options.width < 200 || options.height < 150 || options.width > 10000 || options.height > 10000)
         return makeError("chart size must be between 200 × 150 and 10000 × 10000");
+    if (kind == ChartKind::TemperatureTime) return renderTimeChart(project, result, format, options);
     const auto chartKind = kind == ChartKind::TemperatureEntropy ? view::ProcessChart::Kind::TemperatureEntropy
                                                                  : view::ProcessChart::Kind::TemperatureDuty;
     view::ProcessChart chart(chartKind);

@@ -24,6 +24,7 @@
 #include "heatchain_view/contribution_chart.hpp"
 #include "heatchain_view/exergy_chart.hpp"
 #include "heatchain_view/utility_text.hpp"
+#include "report_transfer.hpp"
 #include "report_layout.hpp"
 
 namespace heatchain {
@@ -496,6 +497,8 @@ void writeContent(Layout& L, const Content& c) {
                         L.font(8, true), view::ink::error());
         ++section;
     }
+
+    section = heatTransferSection(L, p, r, section);
 
     // ---- Exergy ---------------------------------------------------------------------
     if (r.exergyAvailable) {

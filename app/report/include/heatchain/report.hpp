@@ -35,7 +35,9 @@ Status writeReportPdf(const Project& project, const SequenceResult& result,
                       std::string_view projectFile, const std::filesystem::path& out,
                       const ReportOptions& options);
 
-enum class ChartKind { TemperatureEntropy, TemperatureDuty };
+// TemperatureTime: a batch's temperature and duty against time (closed
+// systems with batch times; otherwise a chart that says there are none).
+enum class ChartKind { TemperatureEntropy, TemperatureDuty, TemperatureTime };
 enum class ImageFormat { Png, Svg };
 
 struct ChartImageOptions {
