@@ -82,7 +82,7 @@ void TimeChart::paint(QPainter& p, const QRectF& rect) const {
     p.save();
     p.setRenderHint(QPainter::Antialiasing, true);
     const QFontMetricsF fm(p.font());
-    const QRectF plot = rect.adjusted(62, 14, -66, -42);
+    const QRectF plot = rect.adjusted(62, 14, -80, -42);
     auto map = [&](QPointF v) {
         return QPointF(plot.left() + v.x() / tmax_ * plot.width(),
                        plot.bottom() - (v.y() - ymin_) / (ymax_ - ymin_) * plot.height());
@@ -120,7 +120,7 @@ void TimeChart::paint(QPainter& p, const QRectF& rect) const {
     for (double d = 0; d <= dmax_ + 1e-9 * ds; d += ds) {
         const QPointF a = mapDuty({0, d});
         p.setPen(ink::muted());
-        p.drawText(QRectF(plot.right() + 5, a.y() - fm.height() / 2, 58, fm.height()),
+        p.drawText(QRectF(plot.right() + 5, a.y() - fm.height() / 2, 50, fm.height()),
                    Qt::AlignLeft | Qt::AlignVCenter, tickText(d, ds));
     }
     p.setPen(QPen(ink::axis(), 1));
@@ -136,7 +136,8 @@ void TimeChart::paint(QPainter& p, const QRectF& rect) const {
                QStringLiteral("temperature [%1]  (utility dashed)").arg(tUnit_));
     p.restore();
     p.save();
-    p.translate(plot.right() + 58, plot.center().y());
+    // Rotated a quarter turn, the title's line runs down the right edge.
+    p.translate(rect.right() - fm.height() - 2, plot.center().y());
     p.rotate(90);
     p.drawText(QRectF(-plot.height() / 2, -fm.height(), plot.height(), fm.height()), Qt::AlignHCenter,
                QStringLiteral("duty [%1]  (grey)").arg(dutyUnit_));
