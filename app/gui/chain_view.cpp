@@ -116,6 +116,11 @@ public:
                     qw << QStringLiteral("Q %1").arg(formatWithUnit(sr.Q, eD, u, ctx, 4));
                 if (std::fabs(sr.W) > 1e-9 * scale || isPressureChangeKind(s.kind))
                     qw << QStringLiteral("W %1").arg(formatWithUnit(sr.W, eD, u, ctx, 4));
+                // Heat transfer: a batch step's time, or the area a flowing step needs.
+                if (sr.batch)
+                    qw << QStringLiteral("t %1 min").arg(QString::number(sr.batch->duration / 60.0, 'f', 1));
+                else if (sr.transfer && sr.transfer->area)
+                    qw << QStringLiteral("A %1").arg(formatWithUnit(*sr.transfer->area, Dimension::Area, u, ctx, 3));
                 line3_ = qw.join(QStringLiteral("   "));
             } else if (!sr.error) {
                 line1_ = QStringLiteral("not computed (an earlier step failed)");

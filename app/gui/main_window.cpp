@@ -28,6 +28,7 @@
 #include <QLocale>
 
 #include "commands.hpp"
+#include "time_chart_widget.hpp"
 #include "compare_dialog.hpp"
 #include "contribution_widget.hpp"
 #include "heatchain/project_file.hpp"
@@ -282,6 +283,7 @@ void MainWindow::buildDocks() {
     charts->addWidget(tq_);
     exergy_ = new ExergyWidget(&doc_, this);
     charts->addWidget(exergy_);
+    charts->addWidget(new TimeChartWidget(&doc_, this));  // a batch's times; hidden for steady flow
     charts->setStretchFactor(0, 3);
     charts->setStretchFactor(1, 3);
     charts->setStretchFactor(2, 3);

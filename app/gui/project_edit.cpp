@@ -132,6 +132,9 @@ Step defaultStep(const Project& project, const SequenceResult& result, StepKind 
         step.hasTo = true;
         step.to.P = displayQuantity(P / 2.0, Dimension::Pressure, project);
         break;
+    case StepKind::Hold:
+        step.duration = Quantity{"1 h", 3600.0};  // a hold lasts a while; the user sets how long
+        break;
     default:
         break;  // phase changes: the whole change (fraction 1) unless told
     }

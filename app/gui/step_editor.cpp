@@ -1,4 +1,5 @@
 #include "step_editor.hpp"
+#include "transfer_fields.hpp"
 
 #include "heatchain/project_file.hpp"
 
@@ -102,6 +103,8 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
     formLayout_->addRow(tr("Efficiency"), efficiency_);
     formLayout_->addRow(tr("Source"), sourceRow);
     formLayout_->addRow(tr("Sink"), sinkRow);
+    transfer_ = new TransferFields(doc_, form_, formLayout_,
+                                   [this](const QString& name, const std::function<void(Step&)>& change) { apply(name, change); });
     formLayout_->addRow(tr("Comment"), note_);
     outer->addWidget(form_);
     // An invalid entry left by clicking elsewhere stays marked in its field
@@ -283,7 +286,7 @@ QuantityField* StepEditor::field(const QString& name) const {
     if (name == QLatin1String("n")) return n_;
     if (name == QLatin1String("efficiency")) return efficiency_;
     if (name == QLatin1String("note")) return note_;
-    return nullptr;
+    return transfer_->field(name);
 }
 
 const Step* StepEditor::step() const {
@@ -464,6 +467,7 @@ void StepEditor::refresh() {
     at_->setCurrentIndex(at_->findData(int(s->at.value_or(HeatingAt::ConstantPressure))));
     setRow(fraction_, isPhaseChangeKind(s->kind));
     fraction_->showValue(typedText(s->fraction));
+    transfer_->refresh(*s);
     setRow(path_, pressure);
     const PathKind path = s->path.value_or(PathKind::Isentropic);
     path_->setCurrentIndex(path_->findData(int(path)));

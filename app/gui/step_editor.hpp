@@ -72,6 +72,7 @@ private:
     QComboBox* sourceUtility_;
     QComboBox* sinkUtility_;
     QuantityField* note_;
+    class TransferFields* transfer_;
     QGroupBox* resultBox_;
     ResultTable* resultText_;
     QLabel* messages_;

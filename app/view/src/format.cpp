@@ -197,7 +197,7 @@ const std::vector<StepKind>& allStepKinds() {
     static const std::vector<StepKind> kinds = {
         StepKind::Heat,     StepKind::Cool,    StepKind::Melt,      StepKind::Freeze,
         StepKind::Boil,     StepKind::Condense, StepKind::Sublimate, StepKind::Deposit,
-        StepKind::Compress, StepKind::Expand,  StepKind::Throttle,
+        StepKind::Compress, StepKind::Expand,  StepKind::Throttle, StepKind::Hold,
     };
     return kinds;
 }
