@@ -1,5 +1,6 @@
 // heatchain-cli with heat transfer: the samples' areas and batch times in the
-// text ledger and in compute --json (the contract's keys), and chart --time.
+// text ledger and in compute --json (the contract's keys). chart --time needs
+// the Qt report library: tests/report/time_chart_test.cpp.
 #include <gtest/gtest.h>
 
 #include <cmath>
@@ -78,19 +79,4 @@ TEST(CliTransfer, BatchTimesAndCycleTime) {
     // The kettle's first stage runs 40 min by its target.
     auto j = nlohmann::json::parse(run("compute " + sample("dessert-base-cooldown") + " --json").out);
     EXPECT_NEAR(j["steps"][0]["duration_s"].get<double>(), 2400.0, 1e-6);
-}
-
-TEST(CliTransfer, TimeChart) {
-    const fs::path dir = fs::temp_directory_path() / ("hc-time-chart-" + std::to_string(::getpid()));
-    fs::create_directories(dir);
-    const fs::path svg = dir / "time.svg";
-    auto r = run("chart " + sample("melt-tank") + " --time -o " + svg.string());
-    ASSERT_EQ(r.exit, 0) << r.err;
-    std::ifstream in(svg);
-    std::stringstream ss;
-    ss << in.rdbuf();
-    EXPECT_CONTAINS(ss.str(), "<svg");
-    EXPECT_CONTAINS(ss.str(), "warm-solid");
-    EXPECT_EQ(run("chart " + sample("melt-tank") + " --time --tq -o " + svg.string()).exit, 2);
-    fs::remove_all(dir);
 }
