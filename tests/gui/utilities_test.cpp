@@ -224,6 +224,27 @@ private slots:
         QVERIFY(below > 0);  // the 40 K asked for is not kept everywhere: the flag must show
     }
 
+    // A typed source temperature is an ideal reservoir, not held to the
+    // required minimum approach (core's rule, rules.hpp): the chart does not
+    // flag it in red while core, rightly, warns of nothing. The melt tank's
+    // pouring step ends 7 K below its 85 °C source, under the default 10 K.
+    void typedSourceIsNotHeldToTheMinimumApproach() {
+        MainWindow w;
+        w.setInteractive(false);
+        const Project p = sample("melt-tank");
+        w.document()->reset(p);
+        const auto& chart = w.tqChart()->chart();
+        bool closerThanRequired = false;
+        for (const auto& a : chart.stepApproaches()) {
+            const StepResult& s = w.document()->result().steps[std::size_t(a.step)];
+            QVERIFY(!s.utility);  // only typed sources and sinks here
+            QVERIFY2(!a.belowMinimum, qPrintable(QString::number(a.dT)));
+            closerThanRequired = closerThanRequired || a.dT < p.minApproachK() - 1e-6;
+            for (const std::string& m : s.warnings) QVERIFY2(m.find("approach") == std::string::npos, m.c_str());
+        }
+        QVERIFY(closerThanRequired);  // the case this test is about is present
+    }
+
     void exergyBarsAreCoresNumbers() {
         MainWindow w;
         w.setInteractive(false);

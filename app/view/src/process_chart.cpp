@@ -7,6 +7,7 @@
 #include <cmath>
 #include <limits>
 
+#include "heatchain/rules.hpp"
 #include "heatchain_view/format.hpp"
 #include "heatchain_view/palette.hpp"
 #include "heatchain_view/utility_text.hpp"
@@ -206,7 +207,7 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
                     bestDT = dT;
                     best = Approach{int(i), X(c), Y(c.T), T,
                                     toDisplay(dT, Dimension::TemperatureDifference, units_, ctx_),
-                                    dT < minApproachK_ - 1e-6};
+                                    approachBelowRequired(dT, minApproachK_, st.Q, /*utility=*/false)};
                 }
             }
             if (best) {
