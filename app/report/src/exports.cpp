@@ -26,82 +26,33 @@ Result<ImageFormat> imageFormatFor(const std::filesystem::path& file) {
     return makeError("the chart file name must end in .png or .svg", file.string());
 }
 
-namespace {
-
-// The time chart of a batch, drawn like the other charts (the view draws it).
-Result<std::string> renderTimeChart(const Project& project, const SequenceResult& result, ImageFormat format,
-                                    const ChartImageOptions& options) {
-    view::TimeChart chart;
-    chart.setData(project, result);
-    const QRectF rect(0, 0, options.width, options.height);
-    QBuffer buffer;
-    buffer.open(QIODevice::WriteOnly);
-    if (format == ImageFormat::Svg) {
-        QSvgGenerator svg;
-        svg.setOutputDevice(&buffer);
-        svg.setSize(QSize(options.width, options.height));
-        svg.setViewBox(rect);
-        svg.setTitle(QString::fromStdString(project.meta.title));
-        svg.setDescription(QStringLiteral("Temperature and duty against time"));
-        QPainter p;
-        if (!p.begin(&svg)) return makeError("cannot start drawing the SVG");
-        chart.paint(p, rect);
-        p.end();
-    } else {
-        QImage image(options.width, options.height, QImage::Format_ARGB32_Premultiplied);
-        image.fill(Qt::white);
-        QPainter p(&image);
-        chart.paint(p, rect);
-        p.end();
-        if (!image.save(&buffer, "PNG")) return makeError("cannot encode the PNG");
-    }
-    const QByteArray data = buffer.data();
-    return std::string(data.constData(), std::size_t(data.size()));
-}
-
-}  // namespace
-
 Result<std::string> renderChart(const Project& project, const SequenceResult& result, ChartKind kind,
                                 ImageFormat format, const ChartImageOptions& options) {
     if (auto st = report_detail::ensureGuiApplication(); !st) return st.error();
-    if (options.width < 200 || options.height < 150 || options.width > 10000 || options.height > 10000)
-        return makeError("chart size must be between 200 × 150 and 10000 × 10000");
-    if (kind == ChartKind::TemperatureTime) return renderTimeChart(project, result, format, options);
+    const QString title = QString::fromStdString(project.meta.title);
+    if (kind == ChartKind::TemperatureTime) {
+        // The time chart of a batch, drawn like the other charts (the view draws it).
+        view::TimeChart chart;
+        chart.setData(project, result);
+        return report_detail::paintImage(format, options, title, QStringLiteral("Temperature and duty against time"),
+                                         [&](QPainter& p, const QRectF& rect) { chart.paint(p, rect); });
+    }
     const auto chartKind = kind == ChartKind::TemperatureEntropy ? view::ProcessChart::Kind::TemperatureEntropy
                                                                  : view::ProcessChart::Kind::TemperatureDuty;
     view::ProcessChart chart(chartKind);
     std::optional<DomeCurve> dome;
     if (kind == ChartKind::TemperatureEntropy && result.model) dome = saturationDome(*result.model);
     chart.setData(project, result, dome && !dome->liquidSide.empty() ? &*dome : nullptr);
-
-    const QRectF rect(0, 0, options.width, options.height);
     // Lay the chart out at a width where its 11-pixel labels read well, and
     // scale that to the requested size.
     const double logicalW = std::clamp(double(options.width), 640.0, 1000.0);
-    QBuffer buffer;
-    buffer.open(QIODevice::WriteOnly);
-    if (format == ImageFormat::Svg) {
-        QSvgGenerator svg;
-        svg.setOutputDevice(&buffer);
-        svg.setSize(QSize(options.width, options.height));
-        svg.setViewBox(rect);
-        svg.setTitle(QString::fromStdString(project.meta.title));
-        svg.setDescription(kind == ChartKind::TemperatureEntropy ? QStringLiteral("Temperature–entropy chart")
-                                                                 : QStringLiteral("Temperature–duty chart"));
-        QPainter p;
-        if (!p.begin(&svg)) return makeError("cannot start drawing the SVG");
-        report_detail::paintChartFigure(p, rect, chart, result, logicalW, options.legend);
-        p.end();
-    } else {
-        QImage image(options.width, options.height, QImage::Format_ARGB32_Premultiplied);
-        image.fill(Qt::white);
-        QPainter p(&image);
-        report_detail::paintChartFigure(p, rect, chart, result, logicalW, options.legend);
-        p.end();
-        if (!image.save(&buffer, "PNG")) return makeError("cannot encode the PNG");
-    }
-    const QByteArray data = buffer.data();
-    return std::string(data.constData(), std::size_t(data.size()));
+    return report_detail::paintImage(format, options, title,
+                                     kind == ChartKind::TemperatureEntropy ? QStringLiteral("Temperature–entropy chart")
+                                                                           : QStringLiteral("Temperature–duty chart"),
+                                     [&](QPainter& p, const QRectF& rect) {
+                                         report_detail::paintChartFigure(p, rect, chart, result, logicalW,
+                                                                         options.legend);
+                                     });
 }
 
 Status exportChart(const Project& project, const SequenceResult& result, ChartKind kind,
@@ -121,5 +72,41 @@ Status exportResultsJson(const Project& project, const SequenceResult& result,
                          const std::filesystem::path& out) {
     return writeFileAtomically(out, resultsToJson(project, result).dump(2) + "\n", /*keepBackup=*/false);
 }
+
+namespace report_detail {
+
+Result<std::string> paintImage(ImageFormat format, const ChartImageOptions& options, const QString& title,
+                               const QString& description,
+                               const std::function<void(QPainter&, const QRectF&)>& draw) {
+    if (auto st = ensureGuiApplication(); !st) return st.error();
+    if (options.width < 200 || options.height < 150 || options.width > 10000 || options.height > 10000)
+        return makeError("chart size must be between 200 × 150 and 10000 × 10000");
+    const QRectF rect(0, 0, options.width, options.height);
+    QBuffer buffer;
+    buffer.open(QIODevice::WriteOnly);
+    if (format == ImageFormat::Svg) {
+        QSvgGenerator svg;
+        svg.setOutputDevice(&buffer);
+        svg.setSize(QSize(options.width, options.height));
+        svg.setViewBox(rect);
+        svg.setTitle(title);
+        svg.setDescription(description);
+        QPainter p;
+        if (!p.begin(&svg)) return makeError("cannot start drawing the SVG");
+        draw(p, rect);
+        p.end();
+    } else {
+        QImage image(options.width, options.height, QImage::Format_ARGB32_Premultiplied);
+        image.fill(Qt::white);
+        QPainter p(&image);
+        draw(p, rect);
+        p.end();
+        if (!image.save(&buffer, "PNG")) return makeError("cannot encode the PNG");
+    }
+    const QByteArray data = buffer.data();
+    return std::string(data.constData(), std::size_t(data.size()));
+}
+
+}  // namespace report_detail
 
 }  // namespace heatchain
