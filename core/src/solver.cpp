@@ -261,8 +261,12 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
         sr.segments = std::move(o.segments);
         sr.warnings = std::move(o.warnings);
         sr.notes = std::move(o.notes);
+        // A step answers for the states it reaches, not for the one it
+        // inherits: the start's flags were said by the step before it (or as
+        // the sequence's start state). Each segment starts where the one
+        // before it ended, so the ends cover every state the step passes.
         std::uint32_t flags = o.end.warnings;
-        for (const auto& seg : sr.segments) flags |= seg.start.warnings | seg.end.warnings;
+        for (const auto& seg : sr.segments) flags |= seg.end.warnings;
         if (flags) sr.warnings.insert(sr.warnings.begin(), describeWarnings(flags));
         if (auto st = applyTransfer(c, step, i, sr, profiles); !st) {
             sr.error = st.error();

@@ -221,3 +221,26 @@ TEST(Messages, IncompleteTotals) {
     auto whole = solveText(project("water", kWater20, R"({ "id": "ok", "kind": "heat", "to": { "T": "60 degC" } })"));
     EXPECT_TRUE(whole.totals.complete);
 }
+
+// A step answers for the states it passes through, not for the one it
+// inherits. Toluene vapour at 1.2 bar and its boiling point (about 118 °C)
+// departs from the ideal gas by about 4 %: the second-virial estimate
+// Z = 1 + (B0 + ω·B1)·Pr/Tr with Abbott's B0 = 0.083 − 0.422/Tr^1.6 and
+// B1 = 0.139 − 0.172/Tr^4.2 (Smith, Van Ness & Abbott, Introduction to
+// Chemical Engineering Thermodynamics, 7th ed., eq. 3.65, 3.66), with
+// Tc 591.75 K, Pc 4.1263 MPa, ω 0.2657 (Lemmon & Span, J. Chem. Eng. Data
+// 51 (2006) 785), gives Tr 0.66, Pr 0.029, Z ≈ 0.96. So the
+// condense step, which starts as that vapour, warns; the subcool step after
+// it passes through liquid only and must not.
+TEST(Messages, StateWarningsBelongToTheStepThatReachesTheState) {
+    const std::string text = R"({ "format": "heatchain-project", "version": 1, "system": "steady-flow",
+        "model": "temperature-dependent-cp", "substance": "toluene", "basis": { "massFlow": "1 kg/s" },
+        "surroundings": { "T": "25 degC", "P": "1 atm" }, "start": { "T": "125 degC", "P": "1.2 bar" },
+        "steps": [ { "id": "condense", "kind": "condense" },
+                   { "id": "subcool", "kind": "cool", "to": { "T": "40 degC" } } ] })";
+    auto r = solveText(text);
+    ASSERT_TRUE(r.ok()) << r.firstError()->text();
+    ASSERT_EQ(r.steps.size(), 2u);
+    EXPECT_TRUE(anyContains(r.steps[0].warnings, "ideal-gas")) << joined(r.steps[0].warnings);
+    EXPECT_FALSE(anyContains(r.steps[1].warnings, "ideal-gas")) << joined(r.steps[1].warnings);
+}
