@@ -13,6 +13,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <optional>
 
 #include "gui_app.hpp"
 #include "heatchain/project_file.hpp"
@@ -397,6 +398,12 @@ void writeContent(Layout& L, const Content& c) {
                     L.font(7.5, false, true), view::ink::muted());
     }
 
+    // Propagated once: the charts draw its bands, its own section prints it.
+    std::optional<Result<UncertaintyResult>> propagated;
+    if (auto inputs = uncertainInputs(p); inputs && !inputs->empty() && r.ok())
+        propagated.emplace(propagateUncertainty(p, c.uncertainty));
+    const UncertaintyResult* bands = propagated && propagated->ok() ? &**propagated : nullptr;
+
     // ---- 5 Charts ----------------------------------------------------------------
     {
         L.newPage();
@@ -404,9 +411,15 @@ void writeContent(Layout& L, const Content& c) {
         std::optional<DomeCurve> dome;
         if (r.model) dome = saturationDome(*r.model);
         view::ProcessChart ts(view::ProcessChart::Kind::TemperatureEntropy);
+        ts.setUncertainty(bands);
         ts.setData(p, r, dome && !dome->liquidSide.empty() ? &*dome : nullptr);
         view::ProcessChart tq(view::ProcessChart::Kind::TemperatureDuty);
+        tq.setUncertainty(bands);
         tq.setData(p, r, nullptr);
+        if (bands)
+            L.paragraph(QStringLiteral("The shaded band around each path is ± one standard uncertainty of its "
+                                       "temperature, entropy and cumulative duty (see the Uncertainty section)."),
+                        small, view::ink::muted());
         const double logicalW = 760;
         const double chartH = std::min(L.mm(112), (L.remaining() - L.mm(22)) / 2);
         L.subheading(QStringLiteral("Temperature–entropy: the path of every step over the saturation dome"), chartH);
@@ -557,14 +570,13 @@ void writeContent(Layout& L, const Content& c) {
     }
 
     // ---- Uncertainty ----------------------------------------------------------------
-    if (auto inputs = uncertainInputs(p); inputs && !inputs->empty() && r.ok()) {
+    if (propagated) {
         L.heading(QString::number(section), QStringLiteral("Uncertainty"), L.mm(50));
-        auto propagated = propagateUncertainty(p, c.uncertainty);
-        if (!propagated) {
-            L.paragraph(QStringLiteral("The uncertainty could not be computed: %1").arg(qs(propagated.error().message)),
+        if (!*propagated) {
+            L.paragraph(QStringLiteral("The uncertainty could not be computed: %1").arg(qs(propagated->error().message)),
                         small, view::ink::error());
         } else {
-            const UncertaintyResult& u = *propagated;
+            const UncertaintyResult& u = **propagated;
             const bool mc = u.method == UncertaintyMethod::MonteCarlo;
             L.paragraph(mc ? QStringLiteral("Monte Carlo method (JCGM 101:2008): %1 of %2 draws computed, seed %3. "
                                             "± is one standard uncertainty; the 95 % interval runs from the 2.5th "
