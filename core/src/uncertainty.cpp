@@ -163,7 +163,26 @@ Result<std::vector<InputSlot>> collectInputs(const Project& p) {
             c.quantity(at + "source.T", s.source->T, D::Temperature, [i](Project& x) { return &*x.steps[i].source->T; });
         if (s.sink)
             c.quantity(at + "sink.T", s.sink->T, D::Temperature, [i](Project& x) { return &*x.steps[i].sink->T; });
+        c.quantity(at + "to.time", s.to.time, D::Time, [i](Project& x) { return &*x.steps[i].to.time; });
+        c.quantity(at + "duration", s.duration, D::Time, [i](Project& x) { return &*x.steps[i].duration; });
+        if (s.transfer) {
+            const HeatTransferSpec& t = *s.transfer;
+            c.quantity(at + "transfer.U", t.U, D::HeatTransferCoefficient,
+                       [i](Project& x) { return &*x.steps[i].transfer->U; });
+            for (std::size_t z = 0; z < t.zoneU.size(); ++z)
+                c.quantity(at + "transfer.U." + t.zoneU[z].first, std::optional<Quantity>(t.zoneU[z].second),
+                           D::HeatTransferCoefficient, [i, z](Project& x) { return &x.steps[i].transfer->zoneU[z].second; });
+            c.quantity(at + "transfer.area", t.area, D::Area, [i](Project& x) { return &*x.steps[i].transfer->area; });
+            c.quantity(at + "transfer.UA", t.UA, D::ThermalConductance,
+                       [i](Project& x) { return &*x.steps[i].transfer->UA; });
+        }
+        if (s.heatLoss)
+            c.quantity(at + "heatLoss.UA", std::optional<Quantity>(s.heatLoss->UA), D::ThermalConductance,
+                       [i](Project& x) { return &x.steps[i].heatLoss->UA; });
     }
+    if (p.heatLoss)
+        c.quantity("heatLoss.UA", std::optional<Quantity>(p.heatLoss->UA), D::ThermalConductance,
+                   [](Project& x) { return &x.heatLoss->UA; });
     for (std::size_t k = 0; k < p.utilities.size(); ++k) {
         const Utility& u = p.utilities[k];
         const std::string at = "utilities." + u.id + ".";
@@ -173,6 +192,7 @@ Result<std::vector<InputSlot>> collectInputs(const Project& p) {
         c.quantity(at + "cp", u.cp, D::SpecificEntropy, [k](Project& x) { return &*x.utilities[k].cp; });
         c.quantity(at + "density", u.density, D::Density, [k](Project& x) { return &*x.utilities[k].density; });
         c.quantity(at + "T", u.T, D::Temperature, [k](Project& x) { return &*x.utilities[k].T; });
+        c.quantity(at + "flow", u.flow, D::MassFlow, [k](Project& x) { return &*x.utilities[k].flow; });
     }
     if (c.error) return *c.error;
 
@@ -203,6 +223,9 @@ struct OutputDef {
     Dimension dimension;
     bool scalesWithModel;  // an energy or entropy change: scaled by the model's relative error
     std::function<std::optional<double>(const SequenceResult&)> get;
+    // Where only part of the output scales with the model (a total over
+    // steps of which some are inputs): that part; else all of it or none.
+    std::function<double(const SequenceResult&)> scaledPart = nullptr;
 };
 
 std::vector<OutputDef> outputDefs(const Project& p, const SequenceResult& nominal) {
@@ -239,6 +262,23 @@ std::vector<OutputDef> outputDefs(const Project& p, const SequenceResult& nomina
                          if (i >= r.steps.size() || !r.steps[i].computed) return std::nullopt;
                          return r.steps[i].end.s;
                      }});
+        // Heat transfer, where the step has it: the area a steady-flow step
+        // needs and a batch step's duration. Found ones are proportional to
+        // the duty between fixed temperatures, so the model's factor scales
+        // them; a given area, a time target or a hold's duration is an input.
+        const Step& spec = p.steps[i];
+        const bool areaGiven = spec.transfer && (spec.transfer->area || spec.transfer->UA);
+        const bool timeGiven = spec.to.time || spec.kind == StepKind::Hold;
+        if (nominal.steps[i].transfer && nominal.steps[i].transfer->area)
+            d.push_back({at + "area_m2", Dimension::Area, !areaGiven, [i](const SequenceResult& r) -> std::optional<double> {
+                             if (i >= r.steps.size() || !r.steps[i].computed || !r.steps[i].transfer) return std::nullopt;
+                             return r.steps[i].transfer->area;
+                         }});
+        if (nominal.steps[i].batch)
+            d.push_back({at + "duration_s", Dimension::Time, !timeGiven, [i](const SequenceResult& r) -> std::optional<double> {
+                             if (i >= r.steps.size() || !r.steps[i].computed || !r.steps[i].batch) return std::nullopt;
+                             return r.steps[i].batch->duration;
+                         }});
         d.push_back({at + "Qcumulative", dE, true, [i](const SequenceResult& r) -> std::optional<double> {
                          if (i >= r.steps.size() || !r.steps[i].computed) return std::nullopt;
                          double q = 0;
@@ -259,6 +299,33 @@ std::vector<OutputDef> outputDefs(const Project& p, const SequenceResult& nomina
     total("exergyDestroyed", dE, &Totals::exergyDestroyed);
     total("heatingDuty", dE, &Totals::heatingDuty);
     total("coolingDuty", dE, &Totals::coolingDuty);
+    // Totals of areas and times: the found ones scale with the model, the
+    // given ones do not (the same split as the steps' own outputs above).
+    std::vector<bool> areaFound(p.steps.size()), timeFound(p.steps.size());
+    for (std::size_t i = 0; i < p.steps.size(); ++i) {
+        const Step& s = p.steps[i];
+        areaFound[i] = !(s.transfer && (s.transfer->area || s.transfer->UA));
+        timeFound[i] = !(s.to.time || s.kind == StepKind::Hold);
+    }
+    if (nominal.totals.area)
+        d.push_back({"totals.area_m2", Dimension::Area, false,
+                     [](const SequenceResult& r) -> std::optional<double> { return r.totals.area; },
+                     [areaFound](const SequenceResult& r) {
+                         double found = 0;
+                         for (std::size_t i = 0; i < r.steps.size() && i < areaFound.size(); ++i)
+                             if (areaFound[i] && r.steps[i].transfer && r.steps[i].transfer->area && !r.steps[i].batch)
+                                 found += *r.steps[i].transfer->area;
+                         return found;
+                     }});
+    if (nominal.totals.cycleTime)
+        d.push_back({"totals.cycleTime_s", Dimension::Time, false,
+                     [](const SequenceResult& r) -> std::optional<double> { return r.totals.cycleTime; },
+                     [timeFound](const SequenceResult& r) {
+                         double found = 0;
+                         for (std::size_t i = 0; i < r.steps.size() && i < timeFound.size(); ++i)
+                             if (timeFound[i] && r.steps[i].batch) found += r.steps[i].batch->duration;
+                         return found;
+                     }});
     for (std::size_t k = 0; k < nominal.utilities.size(); ++k) {
         if (nominal.utilities[k].kind == UtilityKind::Fixed) continue;  // no stream to count
         d.push_back({"utilities." + nominal.utilities[k].id + ".mass", dM, true,
@@ -307,7 +374,8 @@ public:
                 e.failure = "no value for " + d.path;
                 return e;
             }
-            e.y.push_back(d.scalesWithModel ? *v * modelFactor : *v);
+            if (d.scaledPart) e.y.push_back(*v + (modelFactor - 1) * d.scaledPart(r));
+            else e.y.push_back(d.scalesWithModel ? *v * modelFactor : *v);
         }
         return e;
     }

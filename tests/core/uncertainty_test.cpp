@@ -297,3 +297,53 @@ TEST(Uncertainty, BandOutputsCarryTheCorrelationBetweenSteps) {
     EXPECT_NEAR(out(r, "steps.warm.end.s_J_per_kgK").u, 0.0, 1e-9);
     EXPECT_NEAR(out(r, "steps.hot.end.s_J_per_kgK").u, centred(353.15, 0.8), 1e-9);
 }
+
+// Heat transfer results carry their uncertainty too. A batch of 1000 kg
+// (cp 4.0 kJ/(kg K), test data) heated 300 → 340 K by a source at 380 K
+// through U·A = 400 W/(m2 K) ± 1 % × 5 m2 takes t = (m c_p / UA)
+// ln((Ts − T1)/(Ts − T2)) (Kern, Process Heat Transfer, 1950, ch. 18), so
+// ∂t/∂U = −t/U and the model's 1 % in c_p moves t by 1 % as well: u(t) =
+// t·√(0.01² + 0.01²) (JCGM 100:2008, eq. 10). The hold after it lasts
+// 30 min ± 1 min as typed: the model does not move a duration that is an
+// input, so the cycle time has u² = u²(t) + (60 s)².
+TEST(Uncertainty, BatchTimeAndCycleTime) {
+    const std::string text = std::string(R"({ "format": "heatchain-project", "version": 1, "system": "closed",
+        "model": "constant-cp", "substance": )") + kLiquid + R"(, "basis": { "mass": "1000 kg" },
+        "surroundings": { "T": "298.15 K", "P": "1 atm" }, "start": { "T": "300 K", "P": "1 atm" },
+        "steps": [ { "id": "h", "kind": "heat", "to": { "T": "340 K" }, "source": { "T": "380 K" },
+                     "transfer": { "U": "400 W/(m2 K) ± 1 %", "area": "5 m2" } },
+                   { "id": "keep", "kind": "hold", "duration": "30 min ± 1 min" } ],
+        "uncertainty": { "models": true } })";
+    const auto r = run(load(text), {});
+    const double t = 1000.0 * 4000.0 / 2000.0 * std::log(80.0 / 40.0);
+    const double ut = t * std::sqrt(2.0) * 0.01;
+    const auto& d = out(r, "steps.h.duration_s");
+    EXPECT_NEAR(d.value, t, 1e-6 * t);
+    // Central differences over ± u of 1/U differ from the derivative by u²: 1e-4.
+    EXPECT_NEAR(d.u, ut, 2e-4 * ut);
+    const auto& hold = out(r, "steps.keep.duration_s");
+    EXPECT_NEAR(hold.value, 1800.0, 1e-9);
+    EXPECT_NEAR(hold.u, 60.0, 1e-6);
+    const auto& cycle = out(r, "totals.cycleTime_s");
+    EXPECT_NEAR(cycle.value, t + 1800.0, 1e-6 * t);
+    const double uc = std::sqrt(ut * ut + 60.0 * 60.0);
+    EXPECT_NEAR(cycle.u, uc, 2e-4 * uc);
+}
+
+// A steady flow of 2 kg/s heated 300 → 340 K by a source at 380 K needs
+// A = Q / (U · LMTD), LMTD = (80 − 40) / ln 2 (Incropera & DeWitt,
+// Fundamentals of Heat and Mass Transfer, 6th ed., eq. 11.15): with U ± 1 %
+// and the model's 1 % in Q, u(A) = A·√(0.01² + 0.01²).
+TEST(Uncertainty, ExchangerArea) {
+    const auto r = run(load(project(kLiquid, "2 kg/s", R"({ "T": "300 K", "P": "1 atm" })",
+                                    R"({ "id": "h", "kind": "heat", "to": { "T": "340 K" }, "source": { "T": "380 K" },
+                                         "transfer": { "U": "400 W/(m2 K) ± 1 %" } })",
+                                    true)),
+                       {});
+    const double Q = 2.0 * 4000.0 * 40.0, A = Q / (400.0 * 40.0 / std::log(2.0));
+    const double uA = A * std::sqrt(2.0) * 0.01;
+    const auto& a = out(r, "steps.h.area_m2");
+    EXPECT_NEAR(a.value, A, 1e-9 * A);
+    EXPECT_NEAR(a.u, uA, 2e-4 * uA);
+    EXPECT_NEAR(out(r, "totals.area_m2").u, uA, 2e-4 * uA);
+}
