@@ -86,15 +86,16 @@ std::string uncertaintyText(const Project& project, const UncertaintyResult& r) 
                 sep = "; ";
             }
         if (const auto* T = r.find(at + "end.T_K")) t << sep << "end T " << value(*T);
+        // A batch's jacket or coil area is given: its time is the answer.
+        if (const auto* d = r.find(at + "duration_s")) t << "; time " << value(*d);
+        else if (const auto* A = r.find(at + "area_m2")) t << "; area " << value(*A);
         t << "\n";
     }
-    for (const char* key : {"heatingDuty", "coolingDuty", "W", "exergyDestroyed"}) {
+    for (const auto& [key, label] : {std::pair{"heatingDuty", "heating duty"}, std::pair{"coolingDuty", "cooling duty"},
+                                     std::pair{"W", "work"}, std::pair{"exergyDestroyed", "exergy destroyed"},
+                                     std::pair{"area_m2", "area"}, std::pair{"cycleTime_s", "cycle time"}}) {
         const auto* o = r.find(std::string("totals.") + key);
         if (!o || (o->value == 0 && o->u == 0)) continue;
-        const char* label = std::string(key) == "heatingDuty"   ? "heating duty"
-                            : std::string(key) == "coolingDuty" ? "cooling duty"
-                            : std::string(key) == "W"           ? "work"
-                                                                : "exergy destroyed";
         t << "  totals: " << label << " " << value(*o) << "\n";
     }
     t << "Contributions to the variance of " << r.contributionsOf << " (first order):\n";

@@ -111,3 +111,32 @@ TEST(UncertaintyCli, BadOptionsAreUsageErrors) {
     EXPECT_NE(none.err.find("no input carries a tolerance"), std::string::npos) << none.err;
     fs::remove(file);
 }
+
+// Heat transfer in the uncertainty: a tolerance on the melt tank's jacket
+// coefficient gives the melt's batch time and the cycle time a spread, in
+// the text and in the JSON; the steps whose coefficient is exact keep none.
+TEST(UncertaintyCli, JacketCoefficientSpreadsTheBatchTime) {
+    std::string text = heatchain::testing::readWholeFile(heatchain::testing::samplePath("melt-tank"));
+    const std::string from = R"j("solid-liquid": "95 W/(m2 K)")j";
+    const auto at = text.find(from);
+    ASSERT_NE(at, std::string::npos);
+    text.replace(at, from.size(), R"j("solid-liquid": "95 W/(m2 K) ± 15 %")j");
+    const fs::path p = fs::temp_directory_path() / ("heatchain-unc-melt-" + std::to_string(::getpid()) + ".hchain");
+    std::ofstream(p) << text;
+    auto r = run("compute " + p.string() + " --uncertainty");
+    ASSERT_EQ(r.exit, 0) << r.err;
+    const auto melt = r.out.find("\n  melt: ", r.out.find("\nUncertainty:"));
+    ASSERT_NE(melt, std::string::npos) << r.out;
+    EXPECT_NE(r.out.substr(melt, r.out.find('\n', melt + 1) - melt).find("; time "), std::string::npos) << r.out;
+    EXPECT_NE(r.out.find("totals: cycle time"), std::string::npos) << r.out;
+    auto j = run("compute " + p.string() + " --json --uncertainty");
+    ASSERT_EQ(j.exit, 0) << j.err;
+    const auto outs = nlohmann::json::parse(j.out)["uncertainty"]["outputs"];
+    const auto& t = outs["steps.melt.duration_s"];
+    ASSERT_TRUE(t.is_object()) << outs.dump(1);
+    // At least the 15 % of U itself: t ∝ 1/(U A ΔT − loss), so the loss only adds.
+    EXPECT_GE(t["u"].get<double>(), 0.15 * t["value"].get<double>());
+    EXPECT_EQ(outs["steps.warm-solid.duration_s"]["u"].get<double>(), 0.0);
+    EXPECT_GE(outs["totals.cycleTime_s"]["u"].get<double>(), t["u"].get<double>() * 0.999);
+    fs::remove(p);
+}

@@ -630,6 +630,18 @@ void writeContent(Layout& L, const Content& c) {
                              TableRow::Style::Total});
             orows.push_back({{QString(), QStringLiteral("Work"), QString(), pm("totals.W", E), QString()},
                              TableRow::Style::Total});
+            // Heat transfer's totals, where the worksheet has them (units in the cell).
+            auto withUnit = [&](const std::string& path, Dimension d) {
+                return pm(path, d) + QStringLiteral(" ") + unitSymbol(d, us);
+            };
+            if (u.find("totals.area_m2"))
+                orows.push_back({{QString(), QStringLiteral("Area"), withUnit("totals.area_m2", Dimension::Area),
+                                  QString(), QString()},
+                                 TableRow::Style::Total});
+            if (u.find("totals.cycleTime_s"))
+                orows.push_back({{QString(), QStringLiteral("Cycle time"), withUnit("totals.cycleTime_s", Dimension::Time),
+                                  QString(), QString()},
+                                 TableRow::Style::Total});
             L.subheading(QStringLiteral("Results with their standard uncertainty"), L.mm(15));
             L.table(ocol, orows, 7.5, QStringLiteral("Results with their standard uncertainty, continued"));
             for (const std::string& n : u.notes) L.paragraph(QStringLiteral("Note: %1").arg(qs(n)), small, view::ink::muted());
