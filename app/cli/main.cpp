@@ -248,9 +248,22 @@ int compute(const Args& a, bool checkOnly) {
     }
     std::string text;
     if (json) {
-        Json j = resultsWithRecoveryToJson(*project, result);
-        if (unc) j["uncertainty"] = uncertaintyJson(*unc);
-        text = j.dump(2) + "\n";
+        // Written a step at a time: a long worksheet's whole tree would
+        // cost several times the memory of its solve.
+        Json more = Json::object();
+        more["recovery"] = recoveryMemberJson(*project, result);
+        if (unc) more["uncertainty"] = uncertaintyJson(*unc);
+        if (!out || *out == "-") {
+            writeResultsJson(std::cout, *project, result, more);
+            std::cout << "\n";
+            std::cout.flush();
+            if (!std::cout) return kCannotCompute;
+        } else {
+            std::ostringstream s;
+            writeResultsJson(s, *project, result, more);
+            s << "\n";
+            text = std::move(s).str();
+        }
     } else if (csv) {
         text = resultsToCsv(*project, result);
     } else {

@@ -173,7 +173,7 @@ Result<Recovery> recoveryTargets(std::span<const RecoveryStream> streams, double
     return r;
 }
 
-Result<Recovery> worksheetRecovery(const StreamSet& set, const std::vector<SequenceResult>& results,
+Result<Recovery> worksheetRecovery(const StreamSet& set, std::span<const SequenceResult> results,
                                    std::optional<double> dTmin) {
     std::vector<RecoveryStream> streams;
     streams.reserve(set.streams.size());
@@ -209,12 +209,17 @@ Json worksheetResultsToJson(const StreamSet& set, const std::vector<SequenceResu
     return j;
 }
 
-Json resultsWithRecoveryToJson(const Project& project, const SequenceResult& result) {
+Json recoveryMemberJson(const Project& project, const SequenceResult& result) {
     const StreamSet set = streamSetOf(project);
-    const std::vector<SequenceResult> results{result};
+    // The caller's result itself, not a copy: a long worksheet's curves
+    // would otherwise double the memory of `compute --json`.
+    const auto recovery = worksheetRecovery(set, std::span<const SequenceResult>(&result, 1));
+    return recovery ? recoveryToJson(*recovery) : Json(nullptr);
+}
+
+Json resultsWithRecoveryToJson(const Project& project, const SequenceResult& result) {
     Json j = resultsToJson(project, result);
-    const auto recovery = worksheetRecovery(set, results);
-    j["recovery"] = recovery ? recoveryToJson(*recovery) : Json(nullptr);
+    j["recovery"] = recoveryMemberJson(project, result);
     return j;
 }
 

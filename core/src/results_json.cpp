@@ -90,7 +90,47 @@ Json stateToJson(const State& s) {
     return j;
 }
 
-Json resultsToJson(const Project& project, const SequenceResult& r) {
+namespace {
+
+// One step of `compute --json`'s "steps" list.
+Json stepResultToJson(const Project& project, const SequenceResult& r, const StepResult& s) {
+    Json st = Json::object();
+    st["id"] = s.id;
+    st["kind"] = std::string(stepKindId(s.kind));
+    if (s.computed) {
+        st["start"] = stateToJson(s.start);
+        st["end"] = stateToJson(s.end);
+        st["Q"] = s.Q;
+        st["W"] = s.W;
+        st["dH"] = s.dH;
+        st["dU"] = s.dU;
+        st["dS"] = s.dS;
+        st["Sgen"] = s.Sgen;
+        st["exergyDestroyed"] = s.exergyNotCharged ? Json(nullptr) : Json(s.exergyDestroyed);
+        Json segs = Json::array();
+        for (const auto& g : s.segments) {
+            segs.push_back({{"label", g.label}, {"start", stateToJson(g.start)},
+                            {"end", stateToJson(g.end)}, {"Q", g.Q}});
+        }
+        st["segments"] = segs;
+        if (s.utility) st["utility"] = utilityStepJson(*s.utility, project.minApproachK(), s.segments);
+        st["exergy"] = r.exergyAvailable ? stepExergyJson(s) : Json(nullptr);
+        if (s.transfer) st["transfer"] = transferJson(*s.transfer);
+        if (s.batch) batchJson(st, *s.batch);
+    } else {
+        for (const char* k : {"start", "end", "Q", "W", "dH", "dU", "dS", "Sgen", "exergyDestroyed"})
+            st[k] = nullptr;
+        st["segments"] = Json::array();
+    }
+    st["warnings"] = s.warnings;
+    st["notes"] = s.notes;
+    if (s.error) st["error"] = s.error->text();
+    return st;
+}
+
+// Every member of the results but the steps, which stay an empty list in
+// their place (so the members keep their order).
+Json resultsHead(const Project& project, const SequenceResult& r) {
     const bool closed = project.system == SystemKind::Closed;
     Json j = Json::object();
     j["title"] = project.meta.title;
@@ -105,42 +145,7 @@ Json resultsToJson(const Project& project, const SequenceResult& r) {
                   {"utilityVolume", closed ? "m3" : "m3/s"}};
     j["massBasis"] = r.massBasis;
     j["start"] = r.startError ? Json(nullptr) : stateToJson(r.start);
-    Json steps = Json::array();
-    for (const auto& s : r.steps) {
-        Json st = Json::object();
-        st["id"] = s.id;
-        st["kind"] = std::string(stepKindId(s.kind));
-        if (s.computed) {
-            st["start"] = stateToJson(s.start);
-            st["end"] = stateToJson(s.end);
-            st["Q"] = s.Q;
-            st["W"] = s.W;
-            st["dH"] = s.dH;
-            st["dU"] = s.dU;
-            st["dS"] = s.dS;
-            st["Sgen"] = s.Sgen;
-            st["exergyDestroyed"] = s.exergyNotCharged ? Json(nullptr) : Json(s.exergyDestroyed);
-            Json segs = Json::array();
-            for (const auto& g : s.segments) {
-                segs.push_back({{"label", g.label}, {"start", stateToJson(g.start)},
-                                {"end", stateToJson(g.end)}, {"Q", g.Q}});
-            }
-            st["segments"] = segs;
-            if (s.utility) st["utility"] = utilityStepJson(*s.utility, project.minApproachK(), s.segments);
-            st["exergy"] = r.exergyAvailable ? stepExergyJson(s) : Json(nullptr);
-            if (s.transfer) st["transfer"] = transferJson(*s.transfer);
-            if (s.batch) batchJson(st, *s.batch);
-        } else {
-            for (const char* k : {"start", "end", "Q", "W", "dH", "dU", "dS", "Sgen", "exergyDestroyed"})
-                st[k] = nullptr;
-            st["segments"] = Json::array();
-        }
-        st["warnings"] = s.warnings;
-        st["notes"] = s.notes;
-        if (s.error) st["error"] = s.error->text();
-        steps.push_back(std::move(st));
-    }
-    j["steps"] = steps;
+    j["steps"] = Json::array();  // kept in its place; filled by the callers below
     const auto& t = r.totals;
     j["totals"] = {{"Q", t.Q},       {"W", t.W},       {"dH", t.dH},
                    {"dU", t.dU},     {"dS", t.dS},     {"Sgen", t.Sgen},
@@ -195,6 +200,55 @@ Json resultsToJson(const Project& project, const SequenceResult& r) {
     }
     if (const Error* e = r.firstError()) j["error"] = e->text();
     return j;
+}
+
+}  // namespace
+
+Json resultsToJson(const Project& project, const SequenceResult& r) {
+    Json j = resultsHead(project, r);
+    Json& steps = j["steps"];
+    for (const auto& s : r.steps) steps.push_back(stepResultToJson(project, r, s));
+    return j;
+}
+
+namespace {
+
+// `value` as Json::dump(2) writes it when it sits `depth` levels deep: its
+// lines after the first carry the indentation of that depth. (A newline
+// inside a string is escaped in JSON, so every raw newline is structure.)
+void writeNested(std::ostream& out, const Json& value, int depth) {
+    const std::string text = value.dump(2);
+    const std::string pad(static_cast<std::size_t>(depth) * 2, ' ');
+    std::size_t from = 0;
+    for (std::size_t nl; (nl = text.find('\n', from)) != std::string::npos; from = nl + 1) {
+        out.write(text.data() + from, static_cast<std::streamsize>(nl + 1 - from));
+        out << pad;
+    }
+    out.write(text.data() + from, static_cast<std::streamsize>(text.size() - from));
+}
+
+}  // namespace
+
+void writeResultsJson(std::ostream& out, const Project& project, const SequenceResult& r, const Json& more) {
+    Json head = resultsHead(project, r);
+    for (auto it = more.begin(); it != more.end(); ++it) head[it.key()] = it.value();
+    out << '{';
+    bool first = true;
+    for (auto it = head.begin(); it != head.end(); ++it) {
+        out << (first ? "\n  " : ",\n  ") << Json(it.key()).dump() << ": ";
+        first = false;
+        if (it.key() != "steps" || r.steps.empty()) {
+            writeNested(out, it.value(), 1);
+            continue;
+        }
+        out << '[';
+        for (std::size_t i = 0; i < r.steps.size(); ++i) {
+            out << (i == 0 ? "\n    " : ",\n    ");
+            writeNested(out, stepResultToJson(project, r, r.steps[i]), 2);
+        }
+        out << "\n  ]";
+    }
+    out << "\n}";
 }
 
 std::string resultsToCsv(const Project& project, const SequenceResult& r) {

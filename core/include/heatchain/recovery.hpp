@@ -166,7 +166,7 @@ Result<Recovery> recoveryTargets(std::span<const RecoveryStream> streams, double
 // The targets of a whole worksheet: every stream (with its ΔTmin
 // contribution), at `dTmin` or else the worksheet's required minimum
 // approach, with the worksheet's utilities placed as levels.
-Result<Recovery> worksheetRecovery(const StreamSet& set, const std::vector<SequenceResult>& results,
+Result<Recovery> worksheetRecovery(const StreamSet& set, std::span<const SequenceResult> results,
                                    std::optional<double> dTmin = std::nullopt);
 
 // `compute --json` of a worksheet: version 1, today's object plus
@@ -178,6 +178,9 @@ Json worksheetResultsToJson(const StreamSet& set, const std::vector<SequenceResu
 
 // `compute --json` of a one-stream worksheet: resultsToJson plus "recovery".
 Json resultsWithRecoveryToJson(const Project& project, const SequenceResult& result);
+// That "recovery" member alone (null where the worksheet has none), for
+// writeResultsJson.
+Json recoveryMemberJson(const Project& project, const SequenceResult& result);
 
 // The fixed-key `recovery` object (project-format.md, "Additions, second round").
 Json recoveryToJson(const Recovery& r);

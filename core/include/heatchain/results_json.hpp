@@ -1,6 +1,7 @@
 #pragma once
 // The machine-readable results of `heatchain-cli compute --json` (fixed keys,
 // SI numbers), and the CSV ledger. Shared by the CLI and the GUI's exports.
+#include <iosfwd>
 #include <string>
 
 #include "heatchain/project.hpp"
@@ -10,6 +11,10 @@ namespace heatchain {
 
 Json stateToJson(const State& s);
 Json resultsToJson(const Project& project, const SequenceResult& result);
+// The same text as resultsToJson(...) with `more`'s members appended, dumped
+// with an indent of 2, written one step at a time: memory stays that of one
+// step's tree, not the whole document's (for long worksheets).
+void writeResultsJson(std::ostream& out, const Project& project, const SequenceResult& result, const Json& more);
 // Ledger as CSV: one row per step and per segment, units in the header row.
 std::string resultsToCsv(const Project& project, const SequenceResult& result);
 
