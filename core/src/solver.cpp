@@ -233,6 +233,22 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
         sr.dH = c.m * (o.end.h - cur.h);
         sr.dU = c.m * (o.end.u - cur.u);
         sr.dS = c.m * (o.end.s - cur.s);
+        sr.segments = std::move(o.segments);
+        sr.warnings = std::move(o.warnings);
+        sr.notes = std::move(o.notes);
+        // A step answers for the states it reaches, not for the one it
+        // inherits: the start's flags were said by the step before it (or as
+        // the sequence's start state). Each segment starts where the one
+        // before it ended, so the ends cover every state the step passes.
+        std::uint32_t flags = o.end.warnings;
+        for (const auto& seg : sr.segments) flags |= seg.end.warnings;
+        if (flags) sr.warnings.insert(sr.warnings.begin(), describeWarnings(flags));
+        if (auto st = applyTransfer(c, step, i, sr, profiles); !st) {
+            sr.error = st.error();
+            break;
+        }
+        // S_gen after the heat transfer: a batch's flowing utility gives its heat
+        // at the mean temperature its own entropy change sets (applyTransfer).
         if (o.adiabatic) {
             sr.Sgen = sr.dS;
         } else if (sr.reservoirT) {
@@ -258,20 +274,6 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
         }
         if (sr.Sgen < 0) sr.Sgen = 0;  // round-off
         sr.exergyDestroyed = r.T0 * sr.Sgen;
-        sr.segments = std::move(o.segments);
-        sr.warnings = std::move(o.warnings);
-        sr.notes = std::move(o.notes);
-        // A step answers for the states it reaches, not for the one it
-        // inherits: the start's flags were said by the step before it (or as
-        // the sequence's start state). Each segment starts where the one
-        // before it ended, so the ends cover every state the step passes.
-        std::uint32_t flags = o.end.warnings;
-        for (const auto& seg : sr.segments) flags |= seg.end.warnings;
-        if (flags) sr.warnings.insert(sr.warnings.begin(), describeWarnings(flags));
-        if (auto st = applyTransfer(c, step, i, sr, profiles); !st) {
-            sr.error = st.error();
-            break;
-        }
         sr.computed = true;
         cur = o.end;
         Qcum += sr.Q;

@@ -69,6 +69,34 @@ double sideT(const TransferSide& side, double Q) {
 // The points a segment's area and time are summed over: its sampled curve.
 std::vector<CurvePoint> pointsOf(const SegmentResult& g) { return g.curve; }
 
+// Entropy change of a flowing sensible utility over one piece of a batch
+// step, ∫ ṁ c_p g(T) dt with g = ln(T_out/T_in) and its outlet
+// T_out = T_in − ε (T_in − T) following the material's T (the
+// capacity-ratio-zero exchanger above). Over the piece T and the heat are
+// linear in s ∈ [0, 1], and dt = ΔQ ds / q(T(s)), q = α − β T the net rate,
+// which vanishes at T* = α/β. Taking g(T*) out,
+//   ∫ g dt = g(T*) Δt + ΔQ ∫₀¹ (g(T) − g(T*)) / q(T) ds,
+// leaves a smooth integrand even where the piece ends close to T*, and
+// five-point Gauss–Legendre quadrature is exact to round-off on it (nodes
+// and weights: Abramowitz & Stegun, Handbook of Mathematical Functions,
+// table 25.4).
+double flowingUtilityEntropy(const TransferSide& side, double eff, double alpha, double beta, double T1, double T2,
+                             double dQ, double dt) {
+    static constexpr double kNode[5] = {0.0, 0.5384693101056831, -0.5384693101056831, 0.9061798459386640,
+                                        -0.9061798459386640};
+    static constexpr double kWeight[5] = {0.5688888888888889, 0.4786286704993665, 0.4786286704993665,
+                                          0.2369268850561891, 0.2369268850561891};
+    if (!(beta > 0) || eff == 0) return 0.0;  // no exchange: the utility passes unchanged
+    auto g = [&](double T) { return std::log((side.T - eff * (side.T - T)) / side.T); };
+    const double Tsettle = alpha / beta, gSettle = g(Tsettle);
+    double sum = 0;
+    for (int k = 0; k < 5; ++k) {
+        const double T = T1 + (T2 - T1) * 0.5 * (1.0 + kNode[k]);
+        sum += kWeight[k] * 0.5 * (g(T) - gSettle) / (alpha - beta * T);
+    }
+    return side.flowCp * (gSettle * dt + dQ * sum);
+}
+
 }  // namespace
 
 std::string zoneKeyOf(Phase start, Phase end) {
@@ -157,12 +185,12 @@ Result<StepBatch> batchTime(const HeatTransferSpec& spec, const StepResult& step
         }
         // Heat rate into the material through the surface, less the loss,
         // as α − β T (both rates are linear in the material's T).
-        double alpha = 0, beta = 0;
+        double alpha = 0, beta = 0, eff = 1.0;
         if (side.constantTemperature) {
             alpha = UA * side.T;
             beta = UA;
         } else {
-            const double eff = 1.0 - std::exp(-UA / side.flowCp);
+            eff = 1.0 - std::exp(-UA / side.flowCp);
             alpha = side.flowCp * eff * side.T;
             beta = side.flowCp * eff;
         }
@@ -205,6 +233,9 @@ Result<StepBatch> batchTime(const HeatTransferSpec& spec, const StepResult& step
             // terms of the net rate q, so ∫ loss dt = K Δt − (λ/β) ΔQ.
             const double lost = beta > 0 ? (lossUA * alpha / beta - lossUA * T0) * dt - (lossUA / beta) * dQ
                                          : lossUA * (pts[i].T - T0) * dt;
+            if (pts[i + 1].T != pts[i].T) b.timeConstants += std::log(q1 / q2);
+            if (!side.constantTemperature)
+                b.utilityEntropy += flowingUtilityEntropy(side, eff, alpha, beta, pts[i].T, pts[i + 1].T, dQ, dt);
             b.duration += dt;
             b.heatLost += lost;
             b.utilityHeat += dQ + lost;

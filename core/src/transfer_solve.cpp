@@ -61,6 +61,10 @@ Result<TransferSide> sideOf(const Ctx& c, const Step& step, std::size_t idx, con
     return side;
 }
 
+// A batch step past this many time constants ends on the tail of its
+// approach: the driving difference left is e^(−30) ≈ 1e-13 of the first.
+constexpr double kTailTimeConstants = 30.0;
+
 double lossUAOf(const Ctx& c, const Step& step) {
     if (!c.closed) return 0.0;
     if (step.heatLoss) return step.heatLoss->UA.si;
@@ -115,6 +119,44 @@ Status applyTransfer(const Ctx& c, const Step& step, std::size_t idx, StepResult
             const UtilityProfile* u = profileOf(c, *reservoirOf(step), profiles);
             sr.utility->mass = *u->flow * sr.batch->duration;
             if (u->density) sr.utility->volume = sr.utility->mass / *u->density;
+            // Its outlet follows the batch, so it is no reservoir at its inlet
+            // temperature: it gives its heat at the mean temperature its own
+            // entropy change sets, T = Q_utility / −ΔS_utility, and then
+            // S_gen = ΔS − Q/T is ΔS + ΔS_utility (the heat lost to the
+            // surroundings lies outside the step, as for every batch step).
+            if (sr.reservoirT && sr.batch->utilityEntropy != 0 && sr.batch->utilityHeat != 0) {
+                sr.utility->Tmean = -sr.batch->utilityHeat / sr.batch->utilityEntropy;
+                sr.reservoirT = sr.utility->Tmean;
+            }
+        }
+        // A timed step that asks for longer than the tail can be told apart
+        // from the settled state ends where its duty can no longer grow.
+        const bool timedPastTail = step.to.time && sr.batch->duration < step.to.time->si * (1 - 1e-6);
+        if (timedPastTail) {
+            // The rest of the time asked for the batch stays settled, the
+            // utility making up what the surroundings take.
+            StepBatch& b = *sr.batch;
+            const BatchPoint last = b.profile.back();
+            const double extra = step.to.time->si - b.duration;
+            const double loss = last.Qdot;  // the net rate is nil there: the utility's rate is the loss
+            b.duration += extra;
+            b.utilityHeat += loss * extra;
+            b.heatLost += loss * extra;
+            b.meanDuty = std::fabs(b.utilityHeat) / b.duration;
+            b.profile.push_back({b.duration, last.T, last.Qdot, last.Tutility});
+            if (sr.utility && side->flowCp > 0) {
+                const UtilityProfile* u = profileOf(c, *reservoirOf(step), profiles);
+                sr.utility->mass = *u->flow * b.duration;
+            }
+        }
+        if (sr.batch->timeConstants > kTailTimeConstants || timedPastTail) {
+            sr.warnings.push_back(
+                "step \"" + step.id + "\" runs for " +
+                (sr.batch->timeConstants > kTailTimeConstants ? num(sr.batch->timeConstants, 3) : "more than " + num(kTailTimeConstants, 2)) +
+                " time constants of its jacket or coil: it ends on the tail of its approach, where the batch "
+                "hardly moves, so the time (or a timed step's end state) is decided by that tail; check the end "
+                "temperature or the time asked for, the utility's temperature, the UA "
+                "and the heat loss");
         }
         return Ok{};
     }

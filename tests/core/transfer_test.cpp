@@ -419,3 +419,129 @@ TEST(TransferFields, SweepOverAreaGivesKernTimes) {
         EXPECT_NEAR(*pt.values[2], pt.x, 1e-12 * pt.x) << pt.text;
     }
 }
+
+// ---- Entropy generation against a flowing utility --------------------------
+
+namespace {
+
+// Dilogarithm Li2(x) = Σ x^k / k² for |x| < 1 (Abramowitz & Stegun, Handbook
+// of Mathematical Functions, eq. 27.7.1), d Li2/dx = −ln(1 − x)/x.
+double dilog(double x) {
+    double sum = 0, term = x;
+    for (int k = 1; k < 200; ++k) {
+        sum += term / (double(k) * k);
+        term *= x;
+    }
+    return sum;
+}
+
+}  // namespace
+
+// Balanced counterflow, C = ṁ c_p = 8000 W/K on both sides: the material
+// 300 → 340 K, the oil in at 340 + a, out at 300 + a. The entropy generated
+// is the two streams' own entropy changes,
+//   S_gen = C ln(340/300) + C ln((300 + a)/(340 + a))
+// (Bejan, Advanced Engineering Thermodynamics, 3rd ed., ch. 3, entropy
+// generation in a counterflow heat exchanger), ≥ 0, and it vanishes with the
+// approach a; exergy destroyed is T0 S_gen (Gouy–Stodola).
+TEST(TransferEntropy, BalancedCounterflowVanishesWithTheApproach) {
+    const double C = 2.0 * 4000.0;
+    double first = 0, last = 0, before = 1e300;
+    for (double a : {5.0, 1.0, 0.1, 0.001}) {
+        char oil[200];
+        std::snprintf(oil, sizeof oil,
+                      R"j([{ "id": "oil", "kind": "sensible", "in": "%.17g K", "flow": "4 kg/s", "cp": "2.0 kJ/(kg K)" }])j",
+                      340.0 + a);
+        auto r = solveText(projectText("steady-flow", kFlow, kLiquid300,
+                                       R"j({ "id": "h", "kind": "heat", "to": { "T": "340 K" },
+                                            "source": { "utility": "oil" }, "transfer": { "U": "300 W/(m2 K)" } })j",
+                                       oil));
+        ASSERT_TRUE(r.ok()) << r.firstError()->text();
+        const auto& s = r.steps[0];
+        const double Sgen = C * std::log(340.0 / 300.0) + C * std::log((300.0 + a) / (340.0 + a));
+        EXPECT_NEAR(s.Sgen, Sgen, 1e-9 * C) << a;
+        EXPECT_GE(s.Sgen, 0.0) << a;
+        EXPECT_LT(s.Sgen, before) << a;
+        EXPECT_NEAR(s.exergyDestroyed, 290.0 * s.Sgen, 1e-9 * 290.0 * C) << a;
+        before = s.Sgen;
+        if (first == 0) first = s.Sgen;
+        last = s.Sgen;
+    }
+    EXPECT_LT(last, 1e-3 * first);
+}
+
+// A batch heated through a coil by oil flowing at w c = 6270 W/K, inlet
+// t1 = 360 K, UA = 3 kW/K: the oil leaves at t1 − ε (t1 − T),
+// ε = 1 − exp(−UA/(w c)) (Kern, Process Heat Transfer, 1950, ch. 18), so its
+// own entropy change over the heat-up is
+//   ΔS_oil = ∫ w c ln(T_out/t1) dt = (M C/ε) [Li2(x2) − Li2(x1)],
+//   x = ε (t1 − T)/t1,
+// with dt = M C dT / (w c ε (t1 − T)), worked out here; the batch's is
+// M C ln(T2/T1). S_gen is their sum (Bejan, Advanced Engineering
+// Thermodynamics, 3rd ed., ch. 3: the entropy generated is the entropy
+// change of everything that took part), less than the figure that would
+// treat the oil as a reservoir held at its inlet temperature.
+TEST(TransferEntropy, BatchAgainstFlowingUtilityUsesItsOwnEntropyChange) {
+    auto r = solveText(projectText(
+        "closed", R"j({ "mass": "1000 kg" })j", kLiquid300,
+        R"j({ "id": "h", "kind": "heat", "to": { "T": "340 K" }, "source": { "utility": "oil" },
+             "transfer": { "UA": "3 kW/K" } })j",
+        R"j([{ "id": "oil", "kind": "sensible", "in": "360 K", "flow": "1.5 kg/s", "cp": "4.18 kJ/(kg K)" }])j"));
+    ASSERT_TRUE(r.ok()) << r.firstError()->text();
+    const double MC = 1000.0 * 4000.0, wc = 1.5 * 4180.0, t1 = 360.0;
+    const double eps = 1.0 - std::exp(-3000.0 / wc);
+    const double x1 = eps * (t1 - 300.0) / t1, x2 = eps * (t1 - 340.0) / t1;
+    const double dSoil = MC / eps * (dilog(x2) - dilog(x1));
+    const double dSbatch = MC * std::log(340.0 / 300.0);
+    const double Sgen = dSbatch + dSoil;
+    const auto& s = r.steps[0];
+    EXPECT_NEAR(s.batch->utilityEntropy, dSoil, 1e-9 * std::fabs(dSoil));
+    EXPECT_NEAR(s.Sgen, Sgen, 1e-7 * Sgen);
+    EXPECT_GT(s.Sgen, 0.0);
+    EXPECT_LT(s.Sgen, dSbatch - MC * 40.0 / t1);  // the reservoir-at-inlet figure overstates it
+    EXPECT_NEAR(s.exergyDestroyed, 290.0 * s.Sgen, 1e-9 * 290.0 * Sgen);
+    EXPECT_NEAR(r.totals.Sgen, s.Sgen, 1e-12 * Sgen);
+}
+
+// ---- A batch on the tail of its approach -------------------------------------
+
+// Against a constant-temperature source the step spans t/τ = ln((Ts − T1)/(Ts − T2))
+// time constants, τ = M c_p / UA (Kern, ch. 18): ln 2 for 300 → 340 K at 380 K,
+// and no warning.
+TEST(BatchTail, TimeConstantsOfAnIsothermalHeatUp) {
+    auto r = solveText(projectText("closed", R"j({ "mass": "1000 kg" })j", kLiquid300,
+                                   R"j({ "id": "h", "kind": "heat", "to": { "T": "340 K" }, "source": { "T": "380 K" },
+                                        "transfer": { "UA": "2 kW/K" } })j"));
+    ASSERT_TRUE(r.ok()) << r.firstError()->text();
+    EXPECT_NEAR(r.steps[0].batch->timeConstants, std::log(2.0), 1e-9);
+    EXPECT_TRUE(r.steps[0].warnings.empty());
+}
+
+// Forty time constants (τ = M c_p / UA = 2000 s, the liquid held below its
+// boiling point by a source at 340 K) asked for: the batch has settled at the
+// source's temperature long before, the time is all tail, and the step says so
+// as a warning naming itself; the time asked for is still the step's time.
+TEST(BatchTail, FortyTimeConstantsWarn) {
+    auto r = solveText(projectText("closed", R"j({ "mass": "1000 kg" })j", kLiquid300,
+                                   R"j({ "id": "soak", "kind": "heat", "to": { "time": "80000 s" },
+                                        "source": { "T": "340 K" }, "transfer": { "UA": "2 kW/K" } })j"));
+    ASSERT_TRUE(r.ok()) << r.firstError()->text();
+    const auto& s = r.steps[0];
+    EXPECT_NEAR(s.end.T, 340.0, 1e-6);
+    EXPECT_NEAR(s.batch->duration, 80000.0, 1e-9);
+    bool warned = false;
+    for (const Message& m : s.messages())
+        if (m.level == MessageLevel::Warning && m.text.find("time constants") != std::string::npos) {
+            warned = true;
+            EXPECT_CONTAINS(m.text, "step \"soak\"");
+            EXPECT_CONTAINS(m.text, "check");
+        }
+    EXPECT_TRUE(warned);
+    // Ten time constants: no warning.
+    auto ten = solveText(projectText("closed", R"j({ "mass": "1000 kg" })j", kLiquid300,
+                                     R"j({ "id": "soak", "kind": "heat", "to": { "time": "20000 s" },
+                                          "source": { "T": "340 K" }, "transfer": { "UA": "2 kW/K" } })j"));
+    ASSERT_TRUE(ten.ok()) << ten.firstError()->text();
+    EXPECT_NEAR(ten.steps[0].batch->timeConstants, 10.0, 1e-6);
+    EXPECT_TRUE(ten.steps[0].warnings.empty());
+}

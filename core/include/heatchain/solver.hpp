@@ -73,7 +73,11 @@ struct StepUtility {
     UtilityKind kind = UtilityKind::Fixed;
     bool asSource = true;        // source (heats the material) or sink (cools it)
     bool counterCurrent = false; // sensible utilities
-    double Tmean = 0;            // K, used for S_gen and exergy
+    // K, the temperature the utility gives or takes its heat at, used for
+    // S_gen and exergy: the entropic mean (T_in − T_out)/ln(T_in/T_out) of a
+    // sensible one (so −Q/Tmean is its own entropy change); for a batch's
+    // flowing utility, its heat over its entropy change along the step.
+    double Tmean = 0;
     double duty = 0;             // |Q|, W or J
     double mass = 0;             // utility used: kg/s (steady flow) or kg (closed); 0 for fixed
     std::optional<double> volume;  // m3/s or m3, sensible with density
@@ -150,7 +154,10 @@ struct Totals {
     // False when any step was not computed; the sums above then add only
     // the computed steps.
     bool complete = true;
-    std::optional<double> area;       // m2, over the steps with an area (sized or given)
+    // m2, the sizes of the steady-flow steps with a transfer added up (each
+    // step its own exchanger); a batch's steps share one jacket or coil, so
+    // their surface is not added up and this stays empty for a closed system.
+    std::optional<double> area;
     std::optional<double> cycleTime;  // s, closed systems: over the steps with a time
 };
 

@@ -60,8 +60,8 @@ struct TransferZone {
 struct StepTransfer {
     double UA = 0;          // W/K
     std::optional<double> area;   // m2 (none when only UA was given)
-    double meanDeltaT = 0;  // K: |Q| / UA (steady flow), mean |Q̇| / UA (batch)
-    std::vector<TransferZone> zones;  // steady flow sizing
+    double meanDeltaT = 0;  // K: |Q| / UA (steady flow); mean |Q̇| over the time-weighted UA (batch)
+    std::vector<TransferZone> zones;  // sized zones (steady flow); each zone's time-mean difference (batch)
 };
 
 struct BatchPoint {
@@ -77,6 +77,14 @@ struct StepBatch {
     double meanDuty = 0;   // W, |heat from the utility| / duration
     double utilityHeat = 0;  // J, heat the utility gave the material (negative when it took heat)
     double heatLost = 0;   // J, to the surroundings over the step
+    // J/K, the entropy change of a flowing sensible utility over the step,
+    // ∫ ṁ c_p ln(T_out/T_in) dt (0 for a constant-temperature one).
+    double utilityEntropy = 0;
+    // How many of the batch's time constants the step spans: Σ ln(q1/q2) of
+    // the net heat rate over its sensible stretches (t/τ, τ = m c_p / UA,
+    // for one constant-c_p stretch). Past a few tens the end lies on the
+    // exponential's tail: the driving difference left is e^(−N) of the first.
+    double timeConstants = 0;
     std::vector<BatchPoint> profile;
 };
 
