@@ -93,7 +93,25 @@ std::string batchText(bool jacket) {
     return s;
 }
 
+// The same heat-up through a coil fed by hot water at a given flow: its
+// outlet follows the batch, and its own entropy change is integrated along
+// the step as well.
+std::string flowingText(bool coil) {
+    std::string s = kBatch;
+    const std::string plain = R"("source": { "T": "120 degC" })";
+    s.replace(s.find(plain), plain.size(), R"j("source": { "utility": "hw" })j");
+    s.replace(s.find(R"("steps")"), 0,
+              R"j("utilities": [ { "id": "hw", "kind": "sensible", "in": "120 degC", "flow": "2 kg/s", "cp": "4.25 kJ/(kg K)" } ],
+  )j");
+    s.replace(s.find("@J"), 2, coil ? R"j(, "transfer": { "U": "450 W/(m2 K)", "area": "6 m2" })j" : "");
+    return s;
+}
+
 void BatchStep(benchmark::State& st) { solveLoop(st, load(batchText(true))); }
+void BatchStepFlowing(benchmark::State& st) { solveLoop(st, load(flowingText(true))); }
+void BatchStepFlowingWithoutCoil(benchmark::State& st) { solveLoop(st, load(flowingText(false))); }
+BENCHMARK(BatchStepFlowing)->Unit(benchmark::kMicrosecond);
+BENCHMARK(BatchStepFlowingWithoutCoil)->Unit(benchmark::kMicrosecond);
 void BatchStepWithoutJacket(benchmark::State& st) { solveLoop(st, load(batchText(false))); }
 BENCHMARK(BatchStep)->Unit(benchmark::kMicrosecond);
 BENCHMARK(BatchStepWithoutJacket)->Unit(benchmark::kMicrosecond);
