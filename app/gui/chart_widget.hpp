@@ -16,7 +16,7 @@ public:
     ChartWidget(ProjectDocument* doc, view::ProcessChart::Kind kind, QWidget* parent = nullptr);
     const view::ProcessChart& chart() const { return chart_; }
     QSize sizeHint() const override { return {460, 320}; }
-    QSize minimumSizeHint() const override { return {240, 180}; }
+    QSize minimumSizeHint() const override { return {240, 150}; }
 
 public slots:
     void refresh();

@@ -58,6 +58,18 @@ void LedgerModel::refresh() {
     emit headerDataChanged(Qt::Horizontal, 0, ColumnCount - 1);
 }
 
+bool LedgerModel::showsArea() const {
+    const auto& steps = doc_->result().steps;
+    return std::any_of(steps.begin(), steps.end(), [](const StepResult& s) {
+        return s.computed && s.transfer && s.transfer->area;
+    });
+}
+
+bool LedgerModel::showsTime() const {
+    const auto& steps = doc_->result().steps;
+    return std::any_of(steps.begin(), steps.end(), [](const StepResult& s) { return s.computed && s.batch; });
+}
+
 int LedgerModel::rowCount(const QModelIndex& parent) const {
     return parent.isValid() ? 0 : int(rows_.size());
 }
@@ -97,6 +109,8 @@ Dimension LedgerModel::dimensionOf(int column) const {
     case ColPin: case ColPout: return Dimension::Pressure;
     case ColQ: case ColW: case ColdH: case ColdU: case ColExd: return energyDimension(sys);
     case ColdS: case ColSgen: return entropyDimension(sys);
+    case ColArea: return Dimension::Area;
+    case ColTime: return Dimension::Time;
     default: return Dimension::Dimensionless;
     }
 }
@@ -144,6 +158,8 @@ QVariant LedgerModel::siValue(const Row& row, int c) const {
         case ColdS: return s.dS;
         case ColSgen: return s.Sgen;
         case ColExd: return s.exergyDestroyed;
+        case ColArea: return s.transfer && s.transfer->area ? QVariant(*s.transfer->area) : QVariant();
+        case ColTime: return s.batch ? QVariant(s.batch->duration) : QVariant();
         default: return {};
         }
     }
@@ -164,6 +180,10 @@ QVariant LedgerModel::siValue(const Row& row, int c) const {
         case ColdS: return r.totals.dS;
         case ColSgen: return r.totals.Sgen;
         case ColExd: return r.totals.exergyDestroyed;
+        // Steady flow: the exchangers added up; a batch: the cycle time
+        // (its steps share one jacket, so their areas are not added).
+        case ColArea: return r.totals.area ? QVariant(*r.totals.area) : QVariant();
+        case ColTime: return r.totals.cycleTime ? QVariant(*r.totals.cycleTime) : QVariant();
         default: return {};
         }
     case RowKind::HeatingDuty:
@@ -225,7 +245,7 @@ QString LedgerModel::text(const Row& row, int c) const {
         return noSourceText();
     const QVariant v = siValue(row, c);
     if (!v.isValid()) return {};
-    if (c >= ColQ && c != ColdS && c != ColSgen) {
+    if (c >= ColQ && c <= ColExd && c != ColdS && c != ColSgen) {
         // Round-off of a balance (ΔH of a throttle: 8e−13 kW) reads as a
         // number; below a billionth of the row's largest energy it shows as 0.
         // The full value stays in the copied text and in SiRole.
@@ -318,6 +338,8 @@ QVariant LedgerModel::headerData(int section, Qt::Orientation o, int role) const
     case ColdS: return h(tr("ΔS"));
     case ColSgen: return h(tr("S_gen"));
     case ColExd: return h(tr("Exergy destroyed"));
+    case ColArea: return h(tr("Area"));
+    case ColTime: return h(tr("Time"));
     default: return {};
     }
 }

@@ -18,7 +18,7 @@ class LedgerModel : public QAbstractTableModel {
 public:
     enum Column {
         ColStep, ColWhat, ColTin, ColTout, ColUTout, ColPin, ColPout, ColPhase,
-        ColQ, ColUQ, ColW, ColUW, ColdH, ColdU, ColdS, ColSgen, ColExd, ColumnCount
+        ColQ, ColUQ, ColW, ColUW, ColdH, ColdU, ColdS, ColSgen, ColExd, ColArea, ColTime, ColumnCount
     };
     enum class RowKind { Start, Step, Segment, Total, HeatingDuty, CoolingDuty };
     // Qt::UserRole gives the SI value of a numeric cell (the core's number),
@@ -35,6 +35,11 @@ public:
     // while the document shows uncertainty; the view hides them otherwise.
     static bool isUncertaintyColumn(int column) { return column == ColUTout || column == ColUQ || column == ColUW; }
     bool showsUncertainty() const { return doc_->uncertainty() != nullptr; }
+    // Area (an exchanger's, or the jacket's a batch step goes through) and a
+    // batch step's time hold values only when some step has them; the view
+    // hides a column that would be empty.
+    bool showsArea() const;
+    bool showsTime() const;
     QVariant data(const QModelIndex& index, int role) const override;
     QVariant headerData(int section, Qt::Orientation o, int role) const override;
 

@@ -18,9 +18,13 @@
 #include <QSettings>
 #include <QSplitter>
 #include <QStatusBar>
+#include <QTabBar>
+#include <QTabWidget>
 #include <QToolBar>
 #include <QToolButton>
 #include <QVBoxLayout>
+#include <memory>
+#include <optional>
 
 #include <QDateTime>
 #include <QDir>
@@ -96,6 +100,7 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     chain_ = new ChainView(&doc_, this);
     ledger_ = new LedgerModel(&doc_, this);
     ledgerView_ = new QTableView(this);
+    ledgerView_->setObjectName(QStringLiteral("ledger"));
     ledgerView_->setModel(ledger_);
     ledgerView_->setSortingEnabled(false);  // sequence order is the process; see LedgerModel
     ledgerView_->setSelectionBehavior(QAbstractItemView::SelectRows);
@@ -126,6 +131,21 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     };
     connect(&doc_, &ProjectDocument::changed, this, showUncertaintyColumns);
     showUncertaintyColumns();
+    // Area and time show while some step has an exchanger or a batch time,
+    // right after the phase: they are what a sized or timed step is for, and
+    // at the end of sixteen columns they would sit past the window's edge.
+    {
+        QHeaderView* header = ledgerView_->horizontalHeader();
+        const int after = header->visualIndex(LedgerModel::ColPhase);
+        header->moveSection(header->visualIndex(LedgerModel::ColArea), after + 1);
+        header->moveSection(header->visualIndex(LedgerModel::ColTime), after + 2);
+    }
+    auto showTransferColumns = [this] {
+        ledgerView_->setColumnHidden(LedgerModel::ColArea, !ledger_->showsArea());
+        ledgerView_->setColumnHidden(LedgerModel::ColTime, !ledger_->showsTime());
+    };
+    connect(&doc_, &ProjectDocument::changed, this, showTransferColumns);
+    showTransferColumns();
     // A click on "▸ n parts" opens a step's segments, another folds them.
     connect(ledgerView_, &QTableView::clicked, this, [this](const QModelIndex& index) {
         if (index.column() != LedgerModel::ColWhat) return;
@@ -282,11 +302,30 @@ void MainWindow::buildDocks() {
     charts->addWidget(ts_);
     charts->addWidget(tq_);
     exergy_ = new ExergyWidget(&doc_, this);
-    charts->addWidget(exergy_);
-    charts->addWidget(new TimeChartWidget(&doc_, this));  // a batch's times; hidden for steady flow
+    // The exergy bars and, for a batch, the time chart share the third
+    // place as two tabs: four charts stacked would leave each too short to
+    // read and squeeze the ledger below them. A worksheet that becomes a
+    // batch opens on its time chart; steady flow has no times and no tab.
+    auto* lower = new QTabWidget(this);
+    lower->setObjectName(QStringLiteral("lowerCharts"));
+    lower->setDocumentMode(true);
+    lower->addTab(exergy_, tr("Exergy destroyed"));
+    auto* timeChart = new TimeChartWidget(&doc_, this);
+    const int timeTab = lower->addTab(timeChart, tr("Time"));
+    auto showTimeTab = [this, lower, timeTab, closed = std::make_shared<std::optional<bool>>()] {
+        const bool batch = doc_.project().system == SystemKind::Closed;
+        if (*closed == batch) return;
+        *closed = batch;
+        lower->setTabVisible(timeTab, batch);
+        lower->tabBar()->setVisible(batch);  // one tab needs no bar
+        lower->setCurrentIndex(batch ? timeTab : 0);
+    };
+    connect(&doc_, &ProjectDocument::changed, lower, showTimeTab);
+    showTimeTab();
+    charts->addWidget(lower);
     charts->setStretchFactor(0, 3);
     charts->setStretchFactor(1, 3);
-    charts->setStretchFactor(2, 3);
+    charts->setStretchFactor(2, 4);
     auto* chartDock = new QDockWidget(tr("Charts"), this);
     chartDock->setObjectName(QStringLiteral("chartDock"));
     chartDock->setWidget(charts);
@@ -894,7 +933,18 @@ void MainWindow::showAbout() {
 void MainWindow::startUp(const QStringList& arguments) {
     QSettings s;
     restoreGeometry(s.value(QStringLiteral("window/geometry")).toByteArray());
-    restoreState(s.value(QStringLiteral("window/state")).toByteArray());
+    const QByteArray state = s.value(QStringLiteral("window/state")).toByteArray();
+    restoreState(state);
+    if (state.isEmpty()) {
+        // No layout kept: once the window has its size, give the ledger room
+        // for a dozen rows and the messages a few lines (before it is shown
+        // the docks have no height to share).
+        QTimer::singleShot(0, this, [this] {
+            auto* ledger = findChild<QDockWidget*>(QStringLiteral("ledgerDock"));
+            auto* messages = findChild<QDockWidget*>(QStringLiteral("messagesDock"));
+            if (ledger && messages) resizeDocks({ledger, messages}, {300, 90}, Qt::Vertical);
+        });
+    }
     const bool first = !s.value(QStringLiteral("started")).toBool();
     s.setValue(QStringLiteral("started"), true);
     // Once the window is up, offer what a session that did not close

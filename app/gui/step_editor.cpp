@@ -53,6 +53,7 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
     for (StepKind k : allStepKinds())
         kind_->addItem(stepIcon(k), stepKindTitle(k), int(k));
     targetKind_ = new QComboBox(form_);
+    targetKind_->setObjectName(QStringLiteral("targetKind"));
     target_ = new QuantityField(form_);
     auto* targetRow = new QWidget(form_);
     auto* tl = new QHBoxLayout(targetRow);
@@ -165,6 +166,11 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
     connect(target_, &QuantityField::committed, this, &StepEditor::applyTarget);
     connect(targetKind_, &QComboBox::activated, this, [this] {
         // A new kind of target: keep the text if it fits, else ask for a value.
+        // "rated" takes no value: the exchanger's area is its target.
+        if (currentTarget() == Target::Rated) {
+            applyTarget(QString());
+            return;
+        }
         const QString reason = checkTarget(target_->text(), currentTarget());
         if (reason.isEmpty()) applyTarget(target_->text());
         else target_->commit();
@@ -301,6 +307,7 @@ StepEditor::Target StepEditor::currentTarget() const {
 
 QString StepEditor::checkTarget(const QString& text, Target t) const {
     const Project& p = doc_->project();
+    if (t == Target::Rated) return {};
     if (text.isEmpty()) return tr("this step needs a target value");
     const std::string s = text.toStdString();
     switch (t) {
@@ -324,6 +331,12 @@ QString StepEditor::checkTarget(const QString& text, Target t) const {
         auto n = parseTypedNumber(s, 1, 1e6, "the pressure ratio", true);
         return n ? QString() : qs(n.error().message);
     }
+    case Target::Time: {
+        auto q = parseTypedQuantity(s, Dimension::Time, p);
+        if (!q) return qs(q.error().message);
+        return q->si > 0 ? QString() : tr("must be greater than zero");
+    }
+    case Target::Rated:
     case Target::None:
         return {};
     }
@@ -342,6 +355,8 @@ void StepEditor::applyTarget(const QString& text) {
     case Target::Duty: if (auto q = parseTypedQuantity(s, dutyDimension(p), p)) to.duty = *q; else return; break;
     case Target::Quality: if (auto n = parseTypedNumber(s, 0, 1, "quality")) to.quality = *n; else return; break;
     case Target::Ratio: if (auto n = parseTypedNumber(s, 1, 1e6, "ratio", true)) to.ratio = *n; else return; break;
+    case Target::Time: if (auto q = parseTypedQuantity(s, Dimension::Time, p)) to.time = *q; else return; break;
+    case Target::Rated: to.rated = true; break;
     case Target::None: return;
     }
     apply(tr("target"), [&](Step& st) {
@@ -367,6 +382,10 @@ void StepEditor::fillTargetChoices(StepKind k, Target current) {
         targetKind_->addItem(tr("to temperature"), int(Target::Temperature));
         targetKind_->addItem(tr("duty"), int(Target::Duty));
         targetKind_->addItem(tr("to quality x"), int(Target::Quality));
+        // From an exchanger (its transfer's U and area): what it reaches,
+        // or for a batch, where it is after a time.
+        targetKind_->addItem(tr("rated: what the exchanger reaches"), int(Target::Rated));
+        if (doc_->project().system == SystemKind::Closed) targetKind_->addItem(tr("after a time"), int(Target::Time));
         break;
     case StepKind::Compress:
     case StepKind::Expand:
@@ -458,8 +477,12 @@ void StepEditor::refresh() {
     else if (s->to.duty) { t = Target::Duty; targetText = typedText(s->to.duty); }
     else if (s->to.quality) { t = Target::Quality; targetText = typedText(s->to.quality); }
     else if (s->to.ratio) { t = Target::Ratio; targetText = typedText(s->to.ratio); }
+    else if (s->to.time) { t = Target::Time; targetText = typedText(s->to.time); }
+    else if (s->to.rated) t = Target::Rated;
     fillTargetChoices(s->kind, t);
     target_->showValue(targetText);
+    target_->setEnabled(t != Target::Rated);
+    target_->setPlaceholder(t == Target::Rated ? tr("the area given below") : QString());
     const bool heatCool = s->kind == StepKind::Heat || s->kind == StepKind::Cool;
     const bool pressure = s->kind == StepKind::Compress || s->kind == StepKind::Expand;
     setRow(targetKind_->parentWidget(), targetKind_->count() > 0);

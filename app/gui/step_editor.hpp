@@ -42,7 +42,7 @@ signals:
     void rejected(const QString& what);
 
 private:
-    enum class Target { None, Temperature, Duty, Quality, Pressure, Ratio };
+    enum class Target { None, Temperature, Duty, Quality, Pressure, Ratio, Rated, Time };
     QString checkTarget(const QString& text, Target t) const;
     Target currentTarget() const;
     void applyTarget(const QString& text);

@@ -14,8 +14,8 @@ TimeChartWidget::TimeChartWidget(ProjectDocument* doc, QWidget* parent) : QWidge
 }
 
 void TimeChartWidget::refresh() {
-    // Only a batch has times: the chart shows for closed systems.
-    setVisible(doc_->project().system == SystemKind::Closed);
+    // Only a batch has times: the main window shows the chart's tab for
+    // closed systems.
     chart_.setStepColours(doc_->stepColours());
     chart_.setData(doc_->project(), doc_->result());
     update();

@@ -14,8 +14,8 @@ class TimeChartWidget : public QWidget {
 public:
     explicit TimeChartWidget(ProjectDocument* doc, QWidget* parent = nullptr);
     const view::TimeChart& chart() const { return chart_; }
-    QSize sizeHint() const override { return {460, 260}; }
-    QSize minimumSizeHint() const override { return {240, 160}; }
+    QSize sizeHint() const override { return {460, 300}; }
+    QSize minimumSizeHint() const override { return {240, 200}; }
 
 public slots:
     void refresh();

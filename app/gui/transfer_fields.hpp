@@ -1,10 +1,14 @@
 #pragma once
-// The step panel's heat-transfer rows: the overall coefficient U, the area,
-// UA instead of both, and a hold step's duration. Each edit is one undoable
-// change of the step, made through the panel's own apply().
+// The step panel's heat-transfer rows: the overall coefficient U, one U per
+// kind of zone the step passes through (liquid, vapour, two-phase, solid,
+// and the melting and sublimation lines), the area, UA instead of both, and a
+// hold step's duration. Each edit is one undoable change of the step, made
+// through the panel's own apply().
 #include <QFormLayout>
 #include <QObject>
 #include <functional>
+#include <string>
+#include <vector>
 
 #include "document.hpp"
 #include "quantity_field.hpp"
@@ -27,6 +31,11 @@ private:
     QuantityField* area_;
     QuantityField* UA_;
     QuantityField* duration_;
+    // One field per zone key of the file format, in the order a heat-up
+    // meets them; a row shows while the step passes through that zone (or
+    // gives its U) and has more than one zone.
+    std::vector<std::pair<std::string, QuantityField*>> zoneFields_;
+    std::vector<std::string> zonesShown_;  // the zones of the step last shown
 };
 
 }  // namespace heatchain::gui

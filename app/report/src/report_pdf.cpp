@@ -363,6 +363,19 @@ void writeContent(Layout& L, const Content& c) {
             {QStringLiteral("S_gen"), su, 1.1, Qt::AlignRight},
             {QStringLiteral("Exergy destroyed"), eu, 1.5, Qt::AlignRight},
         };
+        // Area and time as the ledger shows them: only when some step has them.
+        const bool anyArea = std::any_of(r.steps.begin(), r.steps.end(), [](const StepResult& s) {
+            return s.computed && s.transfer && s.transfer->area;
+        });
+        const bool anyTime =
+            std::any_of(r.steps.begin(), r.steps.end(), [](const StepResult& s) { return s.computed && s.batch; });
+        if (anyArea) cols.push_back({QStringLiteral("Area"), unitSymbol(Dimension::Area, us), 1.0, Qt::AlignRight});
+        if (anyTime) cols.push_back({QStringLiteral("Time"), unitSymbol(Dimension::Time, us), 1.0, Qt::AlignRight});
+        const QString dash = QStringLiteral("–");
+        auto transferCells = [&](QStringList& cells, std::optional<double> area, std::optional<double> time) {
+            if (anyArea) cells << (area ? fmt(*area, Dimension::Area) : dash);
+            if (anyTime) cells << (time ? fmt(*time, Dimension::Time) : dash);
+        };
         std::vector<TableRow> rows;
         for (std::size_t i = 0; i < r.steps.size(); ++i) {
             const StepResult& s = r.steps[i];
@@ -374,18 +387,23 @@ void writeContent(Layout& L, const Content& c) {
                              view::phaseShort(s.end), fmt(s.Q, E), fmt(s.W, E), fmt(s.dH, E), fmt(s.dS, S),
                              fmt(s.Sgen, S), view::noSourceGiven(s) ? view::noSourceText() : fmt(s.exergyDestroyed, E)};
                 if (!s.warnings.empty()) row.cells[1] += QStringLiteral(" ⚠");
+                transferCells(row.cells, s.transfer ? s.transfer->area : std::nullopt,
+                              s.batch ? std::optional<double>(s.batch->duration) : std::nullopt);
             } else {
-                const QString dash = QStringLiteral("–");
                 row.cells = {QString::number(i + 1), qs(s.id), view::stepKindTitle(s.kind), dash, dash,
                              s.error ? QStringLiteral("not computed (error)") : QStringLiteral("not computed"),
                              dash, dash, dash, dash, dash, dash};
+                transferCells(row.cells, std::nullopt, std::nullopt);
             }
             rows.push_back(std::move(row));
         }
         const Totals& t = r.totals;
-        rows.push_back({{QString(), QStringLiteral("Total"), QString(), QString(), QString(), QString(), fmt(t.Q, E),
-                         fmt(t.W, E), fmt(t.dH, E), fmt(t.dS, S), fmt(t.Sgen, S), fmt(t.exergyDestroyed, E)},
-                        TableRow::Style::Total});
+        QStringList totalCells = {QString(), QStringLiteral("Total"), QString(), QString(), QString(), QString(),
+                                  fmt(t.Q, E), fmt(t.W, E), fmt(t.dH, E), fmt(t.dS, S), fmt(t.Sgen, S),
+                                  fmt(t.exergyDestroyed, E)};
+        // Steady flow adds up its exchangers; a batch's total time is its cycle.
+        transferCells(totalCells, t.area, t.cycleTime);
+        rows.push_back({totalCells, TableRow::Style::Total});
         rows.push_back({{QString(), QStringLiteral("Heating duty"), QString(), QString(),
                          QString(), QString(), fmt(t.heatingDuty, E)},
                         TableRow::Style::Normal});
@@ -393,8 +411,14 @@ void writeContent(Layout& L, const Content& c) {
                          QString(), QString(), fmt(t.coolingDuty, E)},
                         TableRow::Style::Normal});
         L.table(cols, rows, 7.5, QStringLiteral("All steps, continued"));
-        L.paragraph(QStringLiteral("Heating duty: the sum of Q over the steps with Q > 0; cooling duty: the sum of |Q| "
-                                   "over the steps with Q < 0. ⚠ the step carries a warning (see its section)."),
+        QString legend = QStringLiteral("Heating duty: the sum of Q over the steps with Q > 0; cooling duty: the sum of "
+                                        "|Q| over the steps with Q < 0. ⚠ the step carries a warning (see its section).");
+        if (anyArea)
+            legend += r.system == SystemKind::Closed
+                          ? QStringLiteral(" Area: the jacket or coil each batch step goes through.")
+                          : QStringLiteral(" Area: the exchanger each step needs (or has, when rated).");
+        if (anyTime) legend += QStringLiteral(" Time: how long each batch step takes; its total is the cycle time.");
+        L.paragraph(legend,
                     L.font(7.5, false, true), view::ink::muted());
     }
 

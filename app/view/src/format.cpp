@@ -268,6 +268,8 @@ QString stepSpecSummary(const Step& step, SystemKind) {
         if (step.to.duty) parts << QStringLiteral("duty %1").arg(typed(*step.to.duty));
         if (step.to.quality) parts << QStringLiteral("to x = %1").arg(typed(*step.to.quality));
         if (step.to.ratio) parts << QStringLiteral("ratio %1").arg(typed(*step.to.ratio));
+        if (step.to.rated) parts << QStringLiteral("rated: what its exchanger reaches");
+        if (step.to.time) parts << QStringLiteral("for %1").arg(typed(*step.to.time));
     }
     if (step.fraction) parts << QStringLiteral("fraction %1").arg(typed(*step.fraction));
     if (step.at == HeatingAt::ConstantVolume) parts << QStringLiteral("const. V");
