@@ -136,7 +136,16 @@ TEST(Report, EverySampleHasItsStepsTotalsAndCautions) {
         ASSERT_GE(total.size(), 6u) << s << ": " << lineStarting(layout, "Total");
         expectShown(total[0], display(json["totals"]["Q"]), std::string(s) + " total Q");
         expectShown(total[1], display(json["totals"]["W"]), std::string(s) + " total W");
-        expectShown(total.back(), display(json["totals"]["exergyDestroyed"]), std::string(s) + " exergy destroyed");
+        expectShown(total[5], display(json["totals"]["exergyDestroyed"]), std::string(s) + " exergy destroyed");
+        // Then, where some step has them, the steady-flow area (m2) and a
+        // batch's cycle time (min).
+        const auto& area = json["totals"]["area_m2"];
+        const auto& cycle = json["totals"]["cycleTime_s"];
+        if (area.is_number()) {
+            ASSERT_GE(total.size(), 7u) << s;
+            expectShown(total[6], area.get<double>(), std::string(s) + " total area");
+        }
+        if (cycle.is_number()) expectShown(total.back(), cycle.get<double>() / 60.0, std::string(s) + " cycle time");
         // The labels may wrap in the narrow step column ("Heating" / "duty").
         const auto heating = numbersIn(lineStarting(layout, "Heating"));
         const auto cooling = numbersIn(lineStarting(layout, "Cooling"));
