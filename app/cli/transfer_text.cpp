@@ -23,6 +23,23 @@ std::string timeText(double s) {
     return buf;
 }
 
+// "116.95 °C, liquid + vapour x = 0.768": where a rated or timed step ends.
+std::string endText(const State& e, const Project& p) {
+    char buf[48];
+    std::snprintf(buf, sizeof buf, "%.2f ", toDisplay(e.T, Dimension::Temperature, p.displayUnits, p.unitContext()));
+    std::string t = buf + unitLabel(displayUnit(Dimension::Temperature, p.displayUnits)) + ", " +
+                    std::string(phaseLabel(e.phase));
+    if (e.quality && (e.phase == Phase::LiquidVapor || e.phase == Phase::SolidVapor)) {
+        std::snprintf(buf, sizeof buf, " x = %.3f", *e.quality);
+        t += buf;
+    }
+    if (e.meltFraction && e.phase == Phase::SolidLiquid) {
+        std::snprintf(buf, sizeof buf, ", %.1f %% liquid", 100.0 * *e.meltFraction);
+        t += buf;
+    }
+    return t;
+}
+
 }  // namespace
 
 std::string transferText(const Project& p, const SequenceResult& r) {
@@ -33,9 +50,16 @@ std::string transferText(const Project& p, const SequenceResult& r) {
     std::ostringstream o;
     o << "\nheat transfer (" << (closed ? "batch time through the jacket or coil" : "exchanger area, zone by zone")
       << "):\n";
-    for (const auto& s : r.steps) {
+    for (std::size_t i = 0; i < r.steps.size(); ++i) {
+        const auto& s = r.steps[i];
         if (!s.computed || (!s.transfer && !s.batch)) continue;
         o << "  " << s.id << ":";
+        // A rated or timed step's answer is its end state: say it first.
+        if (i < p.steps.size() && p.steps[i].to.rated)
+            o << " rated, the exchanger given reaches " << endText(s.end, p) << " with "
+              << shown(std::fabs(s.Q), closed ? Dimension::Energy : Dimension::Power, p) << ";";
+        else if (i < p.steps.size() && p.steps[i].to.time)
+            o << " after " << p.steps[i].to.time->text << " it is at " << endText(s.end, p) << ";";
         if (s.batch) {
             o << " time " << timeText(s.batch->duration) << ", peak duty " << shown(s.batch->peakDuty, Dimension::Power, p)
               << ", mean duty " << shown(s.batch->meanDuty, Dimension::Power, p);

@@ -4,6 +4,7 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <cstdio>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
@@ -55,6 +56,31 @@ TEST(CliTransfer, EvaporatorAreaInTextAndJson) {
     ASSERT_GE(evap.size(), 1u);
     EXPECT_EQ(evap.back()["label"], "boiling");
     EXPECT_EQ(evap.back()["U_W_per_m2K"], 900.0);
+}
+
+// What the evaporator the plant has gives instead of the one the sizing asks
+// for: rated, its area is the one given, and since the sizing needs more
+// than that for the whole evaporation, the feed leaves part-evaporated; the
+// text says where it ends, as compute --json has it.
+TEST(CliTransfer, ExistingEvaporatorRated) {
+    auto sized = run("compute " + sample("solvent-recovery") + " --json");
+    ASSERT_EQ(sized.exit, 0) << sized.err;
+    const double needed = nlohmann::json::parse(sized.out)["steps"][1]["transfer"]["area_m2"].get<double>();
+    auto json = run("compute " + sample("solvent-recovery-existing") + " --json");
+    ASSERT_EQ(json.exit, 0) << json.err;
+    const auto j = nlohmann::json::parse(json.out);
+    const auto& evap = j["steps"][1];
+    EXPECT_NEAR(evap["transfer"]["area_m2"].get<double>(), 6.5, 1e-6);
+    ASSERT_GT(needed, 6.5);
+    const double x = evap["end"]["quality"].get<double>();
+    EXPECT_GT(x, 0.0);
+    EXPECT_LT(x, 1.0);
+    auto text = run("compute " + sample("solvent-recovery-existing"));
+    ASSERT_EQ(text.exit, 0) << text.err;
+    char quality[32];
+    std::snprintf(quality, sizeof quality, "x = %.3f", x);
+    EXPECT_CONTAINS(text.out, "existing-evaporator: rated, the exchanger given reaches");
+    EXPECT_CONTAINS(text.out, quality);
 }
 
 TEST(CliTransfer, BatchTimesAndCycleTime) {

@@ -81,6 +81,24 @@ int heatTransferSection(Layout& L, const Project& p, const SequenceResult& r, in
     if (closed) total.cells << (r.totals.cycleTime ? timeText(*r.totals.cycleTime) : QStringLiteral("–")) << QString() << QString();
     rows.push_back(std::move(total));
     L.table(cols, rows, 7.5, QStringLiteral("Heat transfer, continued"));
+    // A rated or timed step's answer is where it ends: said in words.
+    for (std::size_t i = 0; i < r.steps.size() && i < p.steps.size(); ++i) {
+        const StepResult& s = r.steps[i];
+        const Step& step = p.steps[i];
+        if (!s.computed || (!step.to.rated && !step.to.time)) continue;
+        const QString end = QStringLiteral("%1, %2").arg(view::formatWithUnit(s.end.T, Dimension::Temperature, us, ctx),
+                                                         view::phaseText(s.end));
+        L.paragraph(step.to.rated
+                        ? QStringLiteral("%1 is rated: the exchanger given (%2) reaches %3, taking %4.")
+                              .arg(qs(s.id),
+                                   step.transfer && step.transfer->area ? qs(step.transfer->area->text)
+                                   : step.transfer && step.transfer->UA ? qs(step.transfer->UA->text)
+                                                                        : QStringLiteral("its UA"),
+                                   end, view::formatWithUnit(std::fabs(s.Q), E, us, ctx))
+                        : QStringLiteral("%1 runs for the time asked, %2: it ends at %3.")
+                              .arg(qs(s.id), qs(step.to.time->text), end),
+                    small, view::ink::text());
+    }
 
     // The zones of every sized step.
     if (!closed) {
