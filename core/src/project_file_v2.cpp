@@ -19,26 +19,21 @@
 #include "heatchain/project_file.hpp"
 #include "heatchain/streams.hpp"
 #include "json_locations.hpp"
+#include "project_file_parts.hpp"
 
 namespace heatchain {
 
 namespace {
 
-constexpr int kMaxDepth = 64;  // as the version-1 reader
-constexpr std::uintmax_t kMaxFileBytes = std::uintmax_t{64} * 1024 * 1024;
+constexpr int kMaxDepth = detail::kMaxJsonDepth;  // as the version-1 reader
 
 // Shared fields in the order they are written; then the stream's own.
 constexpr std::array<std::string_view, 6> kSharedKeys{"meta", "display", "atmosphere", "surroundings",
                                                       "minApproach", "utilities"};
 constexpr std::array<std::string_view, 6> kStreamKeys{"system", "model", "substance", "basis", "start", "steps"};
 
-const Json* member(const Json& object, std::string_view key) {
-    if (!object.is_object()) return nullptr;
-    const auto it = object.find(std::string(key));
-    return it == object.end() ? nullptr : &*it;
-}
-
-std::string inQuotes(std::string_view s) { return "\"" + std::string(s) + "\""; }
+using detail::inQuotes;
+using detail::member;
 
 // The byte just past the JSON value starting at `at` (the text is valid JSON).
 std::size_t valueEnd(std::string_view text, std::size_t at) {
@@ -356,19 +351,9 @@ Result<StreamSet> parseStreamSet(std::string_view text, std::string_view fileNam
 }
 
 Result<StreamSet> loadStreamSet(const std::filesystem::path& file) {
-    std::error_code ec;
-    const std::string name = file.string();
-    if (std::filesystem::is_directory(file, ec)) return makeError("this is a folder, not a project file", name);
-    const std::uintmax_t size = std::filesystem::file_size(file, ec);
-    if (ec) return makeError("cannot open: " + ec.message(), name);
-    if (size > kMaxFileBytes) return makeError("the file is larger than a Heatchain project can be (limit 64 MiB)", name);
-    std::ifstream in(file, std::ios::binary);
-    if (!in) return makeError("cannot open the file", name);
-    std::string text(static_cast<std::size_t>(size), '\0');
-    in.read(text.data(), static_cast<std::streamsize>(size));
-    text.resize(static_cast<std::size_t>(in.gcount()));
-    if (in.bad()) return makeError("cannot read the file", name);
-    return parseStreamSet(text, name);
+    auto text = detail::readProjectText(file);
+    if (!text) return text.error();
+    return parseStreamSet(*text, file.string());
 }
 
 std::string writeStreamSet(const StreamSet& set) {

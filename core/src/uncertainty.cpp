@@ -1,3 +1,5 @@
+// Just over 600 lines: the two propagation methods (first-order sensitivities
+// and Monte Carlo) share the input collection and the result summaries here.
 // Propagation of the inputs' uncertainties through the solver; see
 // uncertainty.hpp for the methods and their sources.
 #include "heatchain/uncertainty.hpp"

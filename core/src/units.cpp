@@ -1,3 +1,8 @@
+// Longer than most files (about 650 lines) on purpose: more than half of it
+// is the one table of units and aliases (kUnits, kAliases) with the source of
+// each factor beside it; parsing and formatting read that table and belong
+// beside it.
+//
 // Units at the edges: text in, SI out; SI in, display text out.
 //
 // Decisions (the header leaves them open; they are fixed here):

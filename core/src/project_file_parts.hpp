@@ -1,0 +1,37 @@
+#pragma once
+// The pieces of the project file's reader and writer (format version 1):
+// project_file.cpp reads the file's frame and its top-level sections,
+// project_file_steps.cpp the steps, utilities and heat-transfer fields,
+// project_writer.cpp writes it all back in the same order.
+#include <filesystem>
+#include <set>
+#include <string>
+#include <string_view>
+#include <utility>
+#include <vector>
+
+#include "heatchain/project.hpp"
+#include "json_reader.hpp"
+
+namespace heatchain::detail {
+
+inline constexpr std::string_view kProjectFormatName = "heatchain-project";
+// Deeper nesting than this is refused before any parser sees it; a project
+// file needs about 8 levels (a custom substance's cp table is the deepest).
+inline constexpr int kMaxJsonDepth = 64;
+
+// The bytes of a project file of either format version, refused with a
+// reason when it is a folder, unreadable or larger than a project can be.
+Result<std::string> readProjectText(const std::filesystem::path& file);
+
+// One step of "steps"; `ids` and `firstSeen` find a repeated step id.
+Step readStep(const JsonReader& r, const Json& v, long index, const Project& p, std::set<std::string>& ids,
+              std::vector<std::pair<std::string, long>>& firstSeen);
+// "minApproach" and "utilities".
+void readUtilities(const JsonReader& r, const Json& root, Project& p);
+// A step's source or sink naming a utility must name one of the list.
+void checkUtilityReferences(const JsonReader& r, const Project& p);
+// "heatLoss" of a closed system.
+HeatLossSpec readHeatLoss(const JsonReader& r, const Json& v, const JsonPath& path, const Project& p);
+
+}  // namespace heatchain::detail
