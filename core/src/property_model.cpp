@@ -83,40 +83,38 @@ Result<State> PropertyModel::solveTemperatureInBracket(const std::function<Resul
                                                        double value, double Ta, double Tb, const State& sa,
                                                        const State& sb, double bracketTol, double stepTol,
                                                        std::string_view what, double P) {
-    double fa = propertyOf(sa, which) - value, fb = propertyOf(sb, which) - value;
+    const double fa = propertyOf(sa, which) - value, fb = propertyOf(sb, which) - value;
     if (fa == 0) return sa;
     if (fb == 0) return sb;
-    double T = Ta - fa * (Tb - Ta) / (fb - fa);
+    // Newton with dh/dT = cp and ds/dT = cp/T, or the secant through the last
+    // point where the model gives no slope (u, v), from the secant start.
     double lastT = Ta, lastF = fa;
-    for (int it = 0; it < 100; ++it) {
-        if (!(T > Ta && T < Tb)) T = 0.5 * (Ta + Tb);
+    std::optional<State> last;
+    std::optional<Error> failed;
+    auto probe = [&](double T) {
         auto st = at(T);
-        if (!st) return st.error();
-        const double f = propertyOf(*st, which) - value;
-        if (f == 0 || (Tb - Ta) < bracketTol * Tb) return *st;
-        if ((f < 0) == (fa < 0)) {
-            Ta = T;
-            fa = f;
-        } else {
-            Tb = T;
-            fb = f;
+        if (!st) {
+            failed = st.error();
+            return detail::NewtonProbe{};
         }
+        last = *st;
+        const double f = propertyOf(*st, which) - value;
         double slope = std::numeric_limits<double>::quiet_NaN();
         if (which == Property::Enthalpy) slope = st->cp;
         else if (which == Property::Entropy) slope = st->cp / T;
         if (!(slope > 0) || !std::isfinite(slope)) slope = (f - lastF) / (T - lastT);
-        double next = T - f / slope;
-        if (std::abs(next - T) < stepTol * T) {
-            if (next > Ta && next < Tb) {
-                auto fin = at(next);
-                if (fin) return fin;
-            }
-            return *st;
-        }
-        if (!(next > Ta && next < Tb)) next = 0.5 * (Ta + Tb);
         lastT = T;
         lastF = f;
-        T = next;
+        return detail::NewtonProbe{f, slope};
+    };
+    const auto root = detail::safeguardedNewton(probe, Ta - fa * (Tb - Ta) / (fb - fa), Ta, Tb, /*rising=*/fa < 0,
+                                                {stepTol, bracketTol, 0.0, 100});
+    if (failed) return *failed;
+    if (root && root->converged() && last) {
+        if (root->probed) return *last;
+        if (root->x > Ta && root->x < Tb)
+            if (auto fin = at(root->x)) return fin;
+        return *last;
     }
     return makeError("the " + std::string(what) + " state at P = " + numberText(P) + " Pa did not converge");
 }

@@ -18,6 +18,7 @@
 #include "models/ammonia_saturation.hpp"
 #include "models/fluid_with_solid.hpp"
 #include "models/number_text.hpp"
+#include "numerics/root.hpp"
 
 namespace heatchain {
 
@@ -296,24 +297,25 @@ Result<double> AmmoniaModel::boilingTemperature(double P) const {
         return makeError("no boiling below the triple-point pressure " + numberText(Ptp_) + " Pa of ammonia; the solid "
                          "sublimates instead");
     if (P <= Ptp_) return Ttp_;
-    double lo = Ttp_, hi = eq::Tc;
-    double T = std::clamp(ancillary().TAt(std::log(P)), lo, hi * (1 - 1e-9));
+    const double lo = Ttp_, hi = eq::Tc;
     const double lnP = std::log(P);
-    for (int it = 0; it < 100; ++it) {
+    std::optional<Error> failed;
+    auto probe = [&](double T) {
         auto s = saturation(T);
-        if (!s) return s.error();
-        const double g = std::log(s->P) - lnP;
-        if (g == 0) return T;
-        if (g > 0) hi = T; else lo = T;
+        if (!s) {
+            failed = s.error();
+            return detail::NewtonProbe{};
+        }
         // Clapeyron: d ln Psat/dT = (h_v - h_l) / (T (v_v - v_l) Psat).
         const Fluid fl = fluidAt(T, s->dl), fv = fluidAt(T, s->dv);
-        const double slope = (fv.h - fl.h) / (T * (fv.v - fl.v) * s->P);
-        double next = slope > 0 ? T - g / slope : -1;
-        if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-        if (std::abs(next - T) <= 1e-13 * T || hi - lo <= 1e-13 * hi) return next;
-        T = next;
-    }
-    return makeError("the boiling temperature of ammonia at " + numberText(P) + " Pa did not converge");
+        return detail::NewtonProbe{std::log(s->P) - lnP, (fv.h - fl.h) / (T * (fv.v - fl.v) * s->P)};
+    };
+    const auto T = detail::safeguardedNewton(probe, std::clamp(ancillary().TAt(lnP), lo, hi * (1 - 1e-9)), lo, hi,
+                                             /*rising=*/true, {1e-13, 1e-13, 0.0, 100});
+    if (failed) return *failed;
+    if (!T || !T->converged())
+        return makeError("the boiling temperature of ammonia at " + numberText(P) + " Pa did not converge");
+    return T->x;
 }
 
 Result<double> AmmoniaModel::boilingPressure(double T) const {

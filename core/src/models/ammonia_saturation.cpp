@@ -6,35 +6,28 @@
 #include <cmath>
 #include <limits>
 
+#include "numerics/root.hpp"
+
 namespace heatchain::detail::nh3 {
 
 std::optional<double> solveDelta(const TauPowers& tp, double pi, Branch b, double lo, double hi, double start) {
-    double d = std::clamp(start, lo, hi);
-    if (!(d > lo && d < hi)) d = 0.5 * (lo + hi);
-    for (int it = 0; it < 300; ++it) {
+    double f = 0, dJ = 0;  // at the last density probed
+    auto probe = [&](double d) {
         const Residual r = residual(d, tp);
-        const double J = reducedPressure(d, r);
-        const double dJ = reducedPressureSlope(d, r);
-        const double f = J - pi;
-        double next;
-        if (!(dJ > 0)) {
-            if (b == Branch::Liquid) lo = d; else hi = d;
-            next = 0.5 * (lo + hi);
-        } else {
-            if (f == 0) return d;
-            if (f < 0) lo = d; else hi = d;
-            next = d - f / dJ;
-            if (std::abs(next - d) <= 1e-15 * d) return next;
-            if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-        }
-        if (hi - lo <= 4e-16 * hi) {
-            // The bracket closed. It closed on a root only if the pressure
-            // matches there; otherwise on a spinodal.
-            if (dJ > 0 && std::abs(f) <= 1e-12 * pi) return d;
-            return std::nullopt;
-        }
-        d = next;
-    }
+        f = reducedPressure(d, r) - pi;
+        dJ = reducedPressureSlope(d, r);
+        // Inside the spinodal the pressure falls with density: the branch's
+        // root lies on the side the branch comes from.
+        if (!(dJ > 0)) return b == Branch::Liquid ? NewtonProbe::rootAbove() : NewtonProbe::rootBelow();
+        return NewtonProbe{f, dJ};
+    };
+    const auto d = safeguardedNewton(probe, std::clamp(start, lo, hi), lo, hi, /*rising=*/true,
+                                     {1e-15, 4e-16, 0.0, 300});
+    if (!d || !d->converged()) return std::nullopt;
+    if (d->end != NewtonRoot::End::Bracket) return d->x;
+    // The bracket closed. It closed on a root only if the pressure matches
+    // there; otherwise on a spinodal.
+    if (dJ > 0 && std::abs(f) <= 1e-12 * pi) return d->x;
     return std::nullopt;
 }
 

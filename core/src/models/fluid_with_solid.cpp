@@ -3,6 +3,7 @@
 #include "models/fluid_with_solid.hpp"
 
 #include "models/number_text.hpp"
+#include "numerics/root.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -125,31 +126,27 @@ Result<double> FluidWithSolidModel::sublimationTemperature(double P) const {
     if (!gs0) return gs0.error();
     const auto gv0 = vapourGibbs(Ttp_, Ptp_);
     const double dh0 = gv0 ? gv0->h - gs0->h : dhFus_;
-    double T = 1.0 / (1.0 / Ttp_ - Rs_ / dh0 * std::log(P / Ptp_));
-    double lo = std::max(1.0, 0.05 * Ttp_), hi = Ttp_;
-    for (int it = 0; it < 200; ++it) {
-        T = std::clamp(T, lo, hi);
+    std::optional<Error> failed;
+    auto probe = [&](double T) {
         const auto gv = vapourGibbs(T, P);
-        double next = -1;
-        if (!gv) {
-            lo = T;  // no vapour root: too cold for vapour at this P
-        } else {
-            const auto gs = solidGibbs(T, P);
-            if (!gs) return gs.error();
-            const double f = (gv->g - gs->g) / (Rs_ * T);  // falls with T
-            if (f > 0) lo = T; else hi = T;
-            // d[(g_v - g_s)/(R T)]/dT = -(h_v - h_s)/(R T^2) (Gibbs–Helmholtz).
-            const double df = -(gv->h - gs->h) / (Rs_ * T * T);
-            if (df < 0) {
-                next = T - f / df;
-                if (std::abs(f / df) < lineTolerance_ * T) return next;
-            }
+        // No vapour root: too cold for vapour at this P.
+        if (!gv) return detail::NewtonProbe::rootAbove();
+        const auto gs = solidGibbs(T, P);
+        if (!gs) {
+            failed = gs.error();
+            return detail::NewtonProbe{};
         }
-        if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-        if (hi - lo < 1e-13 * hi) return T;
-        T = next;
-    }
-    return makeError("the sublimation temperature of " + who() + " at " + numberText(P) + " Pa did not converge");
+        // f = (g_v - g_s)/(R T) falls with T; its slope is
+        // -(h_v - h_s)/(R T^2) (Gibbs–Helmholtz).
+        return detail::NewtonProbe{(gv->g - gs->g) / (Rs_ * T), -(gv->h - gs->h) / (Rs_ * T * T)};
+    };
+    const double T0 = 1.0 / (1.0 / Ttp_ - Rs_ / dh0 * std::log(P / Ptp_));
+    const auto T = detail::safeguardedNewton(probe, T0, std::max(1.0, 0.05 * Ttp_), Ttp_, /*rising=*/false,
+                                             {lineTolerance_, 1e-13, 0.0, 200});
+    if (failed) return *failed;
+    if (!T || !T->converged())
+        return makeError("the sublimation temperature of " + who() + " at " + numberText(P) + " Pa did not converge");
+    return T->x;
 }
 
 Result<double> FluidWithSolidModel::transitionTemperature(Transition t, double P) const {

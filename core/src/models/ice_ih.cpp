@@ -8,6 +8,7 @@
 #include <limits>
 
 #include "heatchain/models/if97.hpp"
+#include "numerics/root.hpp"
 
 namespace heatchain::ice {
 namespace {
@@ -121,18 +122,15 @@ double meltingTemperature(double P) {
     const double nan = std::numeric_limits<double>::quiet_NaN();
     if (!(P >= kPt * (1 - 1e-12)) || P > meltingPressureMax() * (1 + 1e-12)) return nan;
     // p(T) falls steeply and smoothly with T; Newton on a bisection bracket.
-    double lo = kMeltTmin, hi = kTt, T = kTt - (P - kPt) / 13.5e6;
-    for (int it = 0; it < 100; ++it) {
-        if (!(T > lo && T < hi)) T = 0.5 * (lo + hi);
-        const double f = meltingPressure(T) - P;
-        if (f > 0) lo = T; else hi = T;
+    auto probe = [P](double T) {
         const double h = 1e-6;
-        const double d = (meltingPressure(T + h) - meltingPressure(T - h)) / (2 * h);
-        const double next = T - f / d;
-        if (std::fabs(next - T) < 1e-12 * T) return std::clamp(next, kMeltTmin, kTt);
-        T = next;
-    }
-    return nan;
+        return detail::NewtonProbe{meltingPressure(T) - P,
+                                   (meltingPressure(T + h) - meltingPressure(T - h)) / (2 * h)};
+    };
+    const auto T = detail::safeguardedNewton(probe, kTt - (P - kPt) / 13.5e6, kMeltTmin, kTt, /*rising=*/false,
+                                             {1e-12, 0.0, 0.0, 100});
+    if (!T || !T->converged()) return nan;
+    return std::clamp(T->x, kMeltTmin, kTt);
 }
 
 double sublimationTemperature(double P) {
@@ -140,18 +138,14 @@ double sublimationTemperature(double P) {
     if (!(P > 0) || P > kPt * (1 + 1e-12) || P < sublimationPressure(kSublTmin)) return nan;
     // Newton on ln p(T), which is close to linear in 1/T.
     const double lnP = std::log(P);
-    double lo = kSublTmin, hi = kTt, T = 250.0;
-    for (int it = 0; it < 100; ++it) {
-        if (!(T > lo && T < hi)) T = 0.5 * (lo + hi);
-        const double f = std::log(sublimationPressure(T)) - lnP;
-        if (f > 0) hi = T; else lo = T;
+    auto probe = [lnP](double T) {
         const double h = 1e-6 * T;
-        const double d = (std::log(sublimationPressure(T + h)) - std::log(sublimationPressure(T - h))) / (2 * h);
-        const double next = T - f / d;
-        if (std::fabs(next - T) < 1e-12 * T) return std::clamp(next, kSublTmin, kTt);
-        T = next;
-    }
-    return nan;
+        return detail::NewtonProbe{std::log(sublimationPressure(T)) - lnP,
+                                   (std::log(sublimationPressure(T + h)) - std::log(sublimationPressure(T - h))) / (2 * h)};
+    };
+    const auto T = detail::safeguardedNewton(probe, 250.0, kSublTmin, kTt, /*rising=*/true, {1e-12, 0.0, 0.0, 100});
+    if (!T || !T->converged()) return nan;
+    return std::clamp(T->x, kSublTmin, kTt);
 }
 
 }  // namespace heatchain::ice

@@ -120,14 +120,7 @@ constexpr Term k2cS[30] = {
     {7, 3, -0.20874278181886e-10}, {7, 4, 0.10162166825089e-9}, {7, 5, -0.16429828281347e-9},
 };
 
-template <int LoI, int HiI, int LoJ, int HiJ, std::size_t N>
-double series(const Term (&terms)[N], double x, double y) {
-    const detail::PowTable<LoI, HiI> px(x);
-    const detail::PowTable<LoJ, HiJ> py(y);
-    double sum = 0;
-    for (const Term& t : terms) sum += t.n * px[t.I] * py[t.J];
-    return sum;
-}
+using detail::series;
 
 // Subregion boundaries of region 2: p = 4 MPa between 2a and 2b for
 // T(p,h) (Sec. 5.2.1), s = 5.85 kJ/(kg K) between 2a and 2b for T(p,s).

@@ -73,6 +73,17 @@ struct Term {
     double n;
 };
 
+// Σ n x^I y^J over a table (the backward equations), with power tables
+// spanning the exponents: [LoI, HiI] for x, [LoJ, HiJ] for y.
+template <int LoI, int HiI, int LoJ, int HiJ, std::size_t N>
+double series(const Term (&terms)[N], double x, double y) {
+    const PowTable<LoI, HiI> px(x);
+    const PowTable<LoJ, HiJ> py(y);
+    double sum = 0;
+    for (const Term& t : terms) sum += t.n * px[t.I] * py[t.J];
+    return sum;
+}
+
 // The sums over the terms of Σ n x^I y^J from which gamma and its first and
 // second derivatives follow: Σ w v with v = n x^I y^J and w = 1, I, I(I−1),
 // J, J(J−1), I J. Unrolled at compile time over a constexpr table, in the
@@ -104,6 +115,23 @@ inline SeriesSums seriesSumsOf(const PX& px, const PY& py, std::index_sequence<K
 template <const auto& Terms, class PX, class PY>
 inline SeriesSums seriesSums(const PX& px, const PY& py) {
     return seriesSumsOf<Terms>(px, py, std::make_index_sequence<std::size(Terms)>{});
+}
+
+// The same sums by a plain loop over the table, for the tables where the
+// loop runs faster than the unrolled form (region 3) or is as fast (region 5).
+template <class Terms, class PX, class PY>
+inline SeriesSums seriesSumsLoop(const Terms& terms, const PX& px, const PY& py) {
+    SeriesSums m;
+    for (const Term& t : terms) {
+        const double v = t.n * px[t.I] * py[t.J];
+        m.S += v;
+        m.SI += t.I * v;
+        m.SII += t.I * (t.I - 1) * v;
+        m.SJ += t.J * v;
+        m.SJJ += t.J * (t.J - 1) * v;
+        m.SIJ += t.I * t.J * v;
+    }
+    return m;
 }
 
 // Only the sums h and s need: Σ v and Σ J v, the same values as above.

@@ -38,16 +38,7 @@ struct Phi {
 Phi phi(double delta, double tau) {
     const detail::PowTable<0, 11> pd(delta);
     const detail::PowTable<0, 26> pt(tau);
-    double S = 0, SI = 0, SII = 0, SJ = 0, SJJ = 0, SIJ = 0;
-    for (const Term& t : kRegion3) {
-        const double v = t.n * pd[t.I] * pt[t.J];
-        S += v;
-        SI += t.I * v;
-        SII += t.I * (t.I - 1) * v;
-        SJ += t.J * v;
-        SJJ += t.J * (t.J - 1) * v;
-        SIJ += t.I * t.J * v;
-    }
+    const auto [S, SI, SII, SJ, SJJ, SIJ] = detail::seriesSumsLoop(kRegion3, pd, pt);
     Phi p;
     p.f = kN1 * std::log(delta) + S;
     p.fd = kN1 / delta + SI / delta;

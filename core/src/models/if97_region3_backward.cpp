@@ -155,15 +155,7 @@ constexpr Term kPsatS[10] = {
     {32, 18, 0.110649277244882e37},
 };
 
-// sum n x^I y^J over a table, with power tables spanning the exponents.
-template <int LoI, int HiI, int LoJ, int HiJ, std::size_t N>
-double series(const Term (&terms)[N], double x, double y) {
-    const detail::PowTable<LoI, HiI> px(x);
-    const detail::PowTable<LoJ, HiJ> py(y);
-    double sum = 0;
-    for (const Term& t : terms) sum += t.n * px[t.I] * py[t.J];
-    return sum;
-}
+using detail::series;
 
 }  // namespace
 

@@ -40,16 +40,7 @@ Props region5(double T, double P) {
         g0t += t.n * t.J * pt[t.J - 1];
         g0tt += t.n * t.J * (t.J - 1) * pt[t.J - 2];
     }
-    double S = 0, SI = 0, SII = 0, SJ = 0, SJJ = 0, SIJ = 0;
-    for (const Term& t : kResidual) {
-        const double v = t.n * pp[t.I] * pt[t.J];
-        S += v;
-        SI += t.I * v;
-        SII += t.I * (t.I - 1) * v;
-        SJ += t.J * v;
-        SJJ += t.J * (t.J - 1) * v;
-        SIJ += t.I * t.J * v;
-    }
+    const auto [S, SI, SII, SJ, SJJ, SIJ] = detail::seriesSumsLoop(kResidual, pp, pt);
     G.g = g0 + S;
     G.gp = (1.0 + SI) / pi;
     G.gpp = (-1.0 + SII) / (pi * pi);

@@ -16,6 +16,7 @@
 #include "models/cubic.hpp"
 #include "models/fluid_with_solid.hpp"
 #include "models/number_text.hpp"
+#include "numerics/root.hpp"
 
 namespace heatchain {
 
@@ -422,27 +423,28 @@ Result<double> PengRobinsonModel::boilingTemperature(double P) const {
     if (hasLowerLimit_ && P < Ptp_)
         return makeError("no boiling below the triple-point pressure " + numberText(Ptp_) + " Pa of " + who() +
                          "; the solid sublimates instead");
-    double lo = hasLowerLimit_ ? Ttp_ : 0.2 * Tc_, hi = Tc_;
+    const double lo = hasLowerLimit_ ? Ttp_ : 0.2 * Tc_, hi = Tc_;
     // Start: Wilson's correlation inverted.
-    double T = Tc_ / (1.0 - std::log(P / Pc_) / (5.373 * (1.0 + omega_)));
-    T = std::clamp(T, lo, hi * (1 - 1e-9));
-    double pGuess = P;
-    for (int it = 0; it < 100; ++it) {
+    const double T0 = std::clamp(Tc_ / (1.0 - std::log(P / Pc_) / (5.373 * (1.0 + omega_))), lo, hi * (1 - 1e-9));
+    double pGuess = P;  // each saturation starts from the last one's pressure
+    std::optional<Error> failed;
+    auto probe = [&](double T) {
         auto sat = saturation(T, pGuess);
-        if (!sat) return sat.error();
-        const double g = std::log(sat->P / P);
-        if (std::abs(g) < 1e-12) return T;
-        if (g > 0) hi = T; else lo = T;
+        if (!sat) {
+            failed = sat.error();
+            return detail::NewtonProbe{};
+        }
+        pGuess = sat->P;
         // Clapeyron: dlnPsat/dT = Δh/(R T^2 ΔZ).
         const double dZ = sat->vapor.Z - sat->liquid.Z;
         const double slope = (sat->vapor.hRes - sat->liquid.hRes) / (kR * T * T * dZ);
-        double next = (dZ > 0 && slope > 0) ? T - g / slope : -1;
-        if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-        if (std::abs(next - T) < 1e-12 * T) return next;
-        pGuess = sat->P;
-        T = next;
-    }
-    return makeError("the boiling temperature of " + who() + " at " + numberText(P) + " Pa did not converge");
+        return detail::NewtonProbe{std::log(sat->P / P), dZ > 0 ? slope : std::numeric_limits<double>::quiet_NaN()};
+    };
+    const auto T = detail::safeguardedNewton(probe, T0, lo, hi, /*rising=*/true, {1e-12, 0.0, 1e-12, 100});
+    if (failed) return *failed;
+    if (!T || !T->converged())
+        return makeError("the boiling temperature of " + who() + " at " + numberText(P) + " Pa did not converge");
+    return T->x;
 }
 
 Result<double> PengRobinsonModel::boilingPressure(double T) const {

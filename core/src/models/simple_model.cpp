@@ -1,3 +1,8 @@
+// The simple models (ideal gas with incompressible condensed phases, and the
+// generalised-virial variant): one class whose parts share its private phase
+// tables and anchors. About 700 lines on purpose: building the anchors,
+// each phase's state, the phase-change lines and the isobar cache all read the
+// same private state, and splitting the class across files would expose it.
 #include "heatchain/models/simple_model.hpp"
 
 #include <algorithm>
@@ -12,6 +17,7 @@
 #include "heatchain/constants.hpp"
 #include "heatchain/latent_heat.hpp"
 #include "models/generalized_virial.hpp"
+#include "numerics/root.hpp"
 
 namespace heatchain {
 namespace {
@@ -348,22 +354,16 @@ SimpleModel::LineT SimpleModel::lineTemperature(int lower, int upper, double P, 
     if (Fb < 0) return {LineOutcome::PressureAboveLine, b};
     if (Fa == 0) return {LineOutcome::Found, a};
     if (Fb == 0) return {LineOutcome::Found, b};
-    double T = a + (b - a) * Fa / (Fa - Fb);
-    for (int i = 0; i < kMaxIterations; ++i) {
+    auto probe = [&](double T) {
         // F and its slope from one evaluation of each phase's h and s
         // (G = H - T S as in G(), so F is the same number F(T) gives).
         const double sl = S(lower, T, P), su = S(upper, T, P);
-        const double f = (H(lower, T, P) - T * sl) - (H(upper, T, P) - T * su);
-        if (f == 0) return {LineOutcome::Found, T};
-        if (f < 0) a = T;
-        else b = T;
-        const double dF = su - sl;
-        double next = T - f / dF;
-        if (!(next > a && next < b)) next = 0.5 * (a + b);  // bisect when Newton leaves the bracket
-        if (std::abs(next - T) <= 1e-14 * T || b - a <= 1e-14 * T) return {LineOutcome::Found, next};
-        T = next;
-    }
-    return {LineOutcome::Found, T};  // bracket shrunk a hundred times: converged to well below 1e-12 K
+        return detail::NewtonProbe{(H(lower, T, P) - T * sl) - (H(upper, T, P) - T * su), su - sl};
+    };
+    const auto T = detail::safeguardedNewton(probe, a + (b - a) * Fa / (Fa - Fb), a, b, /*rising=*/true,
+                                             {1e-14, 1e-14, 0.0, kMaxIterations});
+    // Unconverged after a hundred steps the bracket has shrunk to well below 1e-12 K.
+    return {LineOutcome::Found, T ? T->x : 0.5 * (a + b)};
 }
 
 Result<double> SimpleModel::vapourLinePressure(int lower, double T) const {

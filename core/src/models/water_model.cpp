@@ -1,3 +1,8 @@
+// Somewhat over 600 lines on purpose: the (P, h) and (P, s) inversion of
+// IF97 (the direct region paths and the isobar spans of regions 1 to 5 and
+// ice) depends on the region boundaries and backward equations that only
+// this model has; the equations themselves live in if97_*.cpp and ice_ih.cpp.
+//
 // The reference model of water. IF97 regions by (T, P) for the fluid, ice Ih
 // below the melting and sublimation curves, region 4 on the boiling line.
 // (P, h) and (P, s) start from IF97's backward equations (R7-97 for regions
@@ -19,6 +24,7 @@
 #include "heatchain/models/ice_ih.hpp"
 #include "heatchain/models/if97.hpp"
 #include "models/number_text.hpp"
+#include "numerics/root.hpp"
 
 namespace heatchain {
 namespace {
@@ -481,23 +487,25 @@ Result<State> solveSpan(const Span& sp, Property which, double value, double fa,
         T = lo + (hi - lo) * f;
     }
     const double tol = 1e-13 * std::max(std::fabs(value), which == Property::Entropy ? 1.0 : 1e3);
-    std::optional<State> best;
-    for (int it = 0; it < 60; ++it) {
-        auto s = sp.at(T);
-        if (!s) return s.error();
-        const double x = which == Property::Enthalpy ? s->h : s->s;
-        const double f = x - value;
-        if (std::fabs(f) <= tol) return *s;
-        if (f > 0) hi = T; else lo = T;
-        const double d = which == Property::Enthalpy ? s->cp : s->cp / T;
-        double next = (d > 0 && std::isfinite(d)) ? T - f / d : 0.5 * (lo + hi);
-        if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-        best = *s;
-        if (hi - lo <= 1e-14 * hi || next == T) return *s;
-        T = next;
-    }
-    if (best) return *best;
-    return makeError("no convergence");
+    std::optional<State> last;
+    std::optional<Error> failed;
+    auto probe = [&](double t) {
+        auto s = sp.at(t);
+        if (!s) {
+            failed = s.error();
+            return detail::NewtonProbe{};
+        }
+        last = *s;
+        const bool H = which == Property::Enthalpy;
+        return detail::NewtonProbe{(H ? s->h : s->s) - value, H ? s->cp : s->cp / t};
+    };
+    // Converged when h or s is reproduced to `tol`, the bracket has closed,
+    // or Newton stands still; after 60 steps the last state is the answer.
+    const auto root = detail::safeguardedNewton(probe, T, lo, hi, /*rising=*/true, {0.0, 1e-14, tol, 60});
+    if (failed) return *failed;
+    if (!root || !last) return makeError("no convergence");
+    if (root->probed) return *last;
+    return sp.at(root->x);
 }
 
 Result<State> WaterReferenceModel::fluidOnIsobar(double P, Property which, double value, double Tlow) const {

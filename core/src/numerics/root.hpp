@@ -1,8 +1,14 @@
 #pragma once
-// Bracketed one-dimensional root finding, shared by every inversion in core.
-// Brent's method (Brent 1973, "Algorithms for Minimization without
-// Derivatives", ch. 4): never leaves the bracket, bounded iterations.
+// Bracketed one-dimensional root finding, shared by every inversion in core:
+//  - brent: Brent's method (Brent 1973, "Algorithms for Minimization without
+//    Derivatives", ch. 4) when only f is known;
+//  - safeguardedNewton: Newton steps when the model gives f and its slope
+//    from one evaluation (dh/dT = cp, Clapeyron, Gibbs–Helmholtz), kept
+//    inside a bracket that shrinks on the sign of f, with a bisection
+//    wherever Newton would leave the bracket or has no usable slope.
+// Both never leave the bracket and stop after a bounded number of steps.
 #include <cmath>
+#include <limits>
 #include <optional>
 #include <utility>
 
@@ -69,6 +75,82 @@ std::optional<double> brent(F&& f, double a, double b, double fa, double fb,
         if (!std::isfinite(fb)) return std::nullopt;
     }
     return b;  // best estimate after the iteration bound
+}
+
+// One evaluation for safeguardedNewton at x.
+struct NewtonProbe {
+    double f = std::numeric_limits<double>::quiet_NaN();      // residual; NaN: not defined at x
+    double slope = std::numeric_limits<double>::quiet_NaN();  // df/dx; NaN or the wrong sign: bisect
+    // Where f is not defined (a phase has no root there, a line ends): +1
+    // when the root lies above x, -1 when below; 0 gives up.
+    int rootSide = 0;
+
+    NewtonProbe() = default;  // nothing known: give up
+    NewtonProbe(double residual, double derivative) : f(residual), slope(derivative) {}
+    static NewtonProbe rootAbove() {
+        NewtonProbe p;
+        p.rootSide = +1;
+        return p;
+    }
+    static NewtonProbe rootBelow() {
+        NewtonProbe p;
+        p.rootSide = -1;
+        return p;
+    }
+};
+
+struct NewtonOptions {
+    double stepTolerance = 1e-12;     // converged when |step| <= stepTolerance * |x|
+    double bracketTolerance = 1e-13;  // converged when hi - lo <= bracketTolerance * |hi|
+    double residualTolerance = 0;     // converged when |f| <= residualTolerance
+    int maxIterations = 100;
+};
+
+struct NewtonRoot {
+    enum class End {
+        Residual,    // |f| within the residual tolerance at x
+        Step,        // the Newton step from the last point probed was small; x is where it leads
+        Bracket,     // the bracket closed around x
+        Iterations,  // the iteration bound was reached; x is the last point probed
+    };
+    double x;
+    End end;
+    bool probed;  // x is the last point probed (its state is the caller's last one)
+    bool converged() const { return end != End::Iterations; }
+};
+
+// Root of f in (lo, hi) from the start x, for an f that rises with x
+// (`rising`) or falls. Converged by the residual or a closed bracket at the
+// last point probed, by a small Newton step at the point it leads to.
+// Nothing when a probe gives no residual and no side, or the start bracket
+// is empty.
+template <class Probe>
+std::optional<NewtonRoot> safeguardedNewton(Probe&& probe, double x, double lo, double hi, bool rising,
+                                            const NewtonOptions& opt = {}) {
+    if (!(hi > lo)) return std::nullopt;
+    double last = x;
+    for (int it = 0; it < opt.maxIterations; ++it) {
+        if (!(x > lo && x < hi)) x = 0.5 * (lo + hi);
+        const NewtonProbe p = probe(x);
+        last = x;
+        double next;
+        if (!std::isfinite(p.f)) {
+            if (p.rootSide == 0) return std::nullopt;
+            if (p.rootSide > 0) lo = x; else hi = x;
+            next = 0.5 * (lo + hi);
+        } else {
+            if (std::fabs(p.f) <= opt.residualTolerance) return NewtonRoot{x, NewtonRoot::End::Residual, true};
+            if ((p.f > 0) == rising) hi = x; else lo = x;
+            const bool usable = std::isfinite(p.slope) && (rising ? p.slope > 0 : p.slope < 0);
+            next = usable ? x - p.f / p.slope : 0.5 * (lo + hi);
+            if (usable && std::fabs(next - x) <= opt.stepTolerance * std::fabs(x))
+                return NewtonRoot{next, NewtonRoot::End::Step, next == x};
+            if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+        }
+        if (hi - lo <= opt.bracketTolerance * std::fabs(hi)) return NewtonRoot{x, NewtonRoot::End::Bracket, true};
+        x = next;
+    }
+    return NewtonRoot{last, NewtonRoot::End::Iterations, true};
 }
 
 }  // namespace heatchain::detail
