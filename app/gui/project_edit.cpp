@@ -157,8 +157,8 @@ Result<Quantity> parseTypedQuantity(std::string_view text, Dimension d, const Pr
     return Quantity{t, *si};
 }
 
-Result<Number> parseTypedNumber(std::string_view text, double min, double max,
-                                std::string_view what, bool aboveMin) {
+Result<Number> parseTypedNumber(std::string_view text, BoundedField field, std::string_view what) {
+    const NumberRange range = rangeOf(field);
     std::string t(text);
     while (!t.empty() && std::isspace(static_cast<unsigned char>(t.back()))) t.pop_back();
     while (!t.empty() && std::isspace(static_cast<unsigned char>(t.front()))) t.erase(t.begin());
@@ -173,7 +173,7 @@ Result<Number> parseTypedNumber(std::string_view text, double min, double max,
         // A fraction may be typed as a percentage ("50 %"); it is kept as the
         // fraction it means (0.5), the way the file holds it.
         bool percent = false;
-        if (max <= 1.0 && !t.empty() && t.back() == '%') {
+        if (range.hi <= 1.0 && !t.empty() && t.back() == '%') {
             percent = true;
             t.pop_back();
             while (!t.empty() && std::isspace(static_cast<unsigned char>(t.back()))) t.pop_back();
@@ -181,7 +181,7 @@ Result<Number> parseTypedNumber(std::string_view text, double min, double max,
         Json raw = Json::parse(t, nullptr, /*allow_exceptions=*/false);
         if (raw.is_discarded() || !raw.is_number())
             return makeError("\"" + std::string(text) + "\" is not a number; " + std::string(what) +
-                             (max <= 1.0 ? " is a plain number, a percentage or a number ± its tolerance"
+                             (range.hi <= 1.0 ? " is a plain number, a percentage or a number ± its tolerance"
                                          : " is a plain number or a number ± its tolerance"));
         if (percent) {
             raw = Json::parse(plain(raw.get<double>() / 100.0));
@@ -189,11 +189,17 @@ Result<Number> parseTypedNumber(std::string_view text, double min, double max,
         }
         n = Number{raw, raw.get<double>(), {}};
     }
-    const double v = n.value;
-    if (!std::isfinite(v) || v < min || v > max || (aboveMin && v == min))
-        return makeError(std::string(what) + (aboveMin ? " must be above " + plain(min) + " and at most "
-                                                       : " must lie between " + plain(min) + " and ") +
-                         plain(max) + ", not " + t);
+    if (!range.contains(n.value)) {
+        // Core's range (rules.hpp), said the way the step panel says it.
+        std::string bounds;
+        if (std::isinf(range.hi))
+            bounds = (range.loOpen ? " must be above " : " must be at least ") + plain(range.lo);
+        else if (range.loOpen)
+            bounds = " must be above " + plain(range.lo) + (range.hiOpen ? " and below " : " and at most ") + plain(range.hi);
+        else
+            bounds = " must lie between " + plain(range.lo) + " and " + plain(range.hi);
+        return makeError(std::string(what) + bounds + ", not " + t);
+    }
     return n;
 }
 
@@ -296,11 +302,11 @@ Result<Step> parseQuickAdd(std::string_view line, const Project& project, std::o
             if (!d) return d.error();
             step.hasTo = true; step.to.duty = *d;
         } else if (key == "ratio") {
-            auto r = parseTypedNumber(v, 1, 1e6, "pressure ratio", true);
+            auto r = parseTypedNumber(v, BoundedField::Ratio, "pressure ratio");
             if (!r) return r.error();
             step.hasTo = true; step.to.ratio = *r;
         } else if (key == "x" || key == "quality") {
-            auto q = parseTypedNumber(v, 0, 1, "quality");
+            auto q = parseTypedNumber(v, BoundedField::Quality, "quality");
             if (!q) return q.error();
             step.hasTo = true; step.to.quality = *q;
         } else if (key == "source" || key == "from") {
@@ -312,17 +318,17 @@ Result<Step> parseQuickAdd(std::string_view line, const Project& project, std::o
             if (!t) return t.error();
             step.sink = Reservoir{*t, std::nullopt, Json::object()};
         } else if (key == "eff" || key == "efficiency") {
-            auto e = parseTypedNumber(v, 0, 1, "isentropic efficiency", true);
+            auto e = parseTypedNumber(v, BoundedField::Efficiency, "isentropic efficiency");
             if (!e) return e.error();
             step.efficiency = *e;
             if (!step.path) step.path = PathKind::Adiabatic;
         } else if (key == "n") {
-            auto n = parseTypedNumber(v, 1e-6, 100, "polytropic exponent n");
+            auto n = parseTypedNumber(v, BoundedField::PolytropicExponent, "polytropic exponent n");
             if (!n) return n.error();
             step.n = *n;
             step.path = PathKind::Polytropic;
         } else if (key == "fraction") {
-            auto f = parseTypedNumber(v, 0, 1, "fraction", true);
+            auto f = parseTypedNumber(v, BoundedField::Fraction, "fraction");
             if (!f) return f.error();
             step.fraction = *f;
         } else if (key == "id") {
@@ -335,10 +341,6 @@ Result<Step> parseQuickAdd(std::string_view line, const Project& project, std::o
     if (isPressureChangeKind(step.kind) && step.kind != StepKind::Throttle && !step.path)
         step.path = PathKind::Isentropic;
     return step;
-}
-
-Result<Project> normalised(const Project& project) {
-    return parseProject(writeProject(project), "worksheet");
 }
 
 }  // namespace heatchain::gui

@@ -10,6 +10,7 @@
 
 #include "heatchain/project.hpp"
 #include "heatchain/result.hpp"
+#include "heatchain/rules.hpp"
 #include "heatchain/solver.hpp"
 
 namespace heatchain::gui {
@@ -34,11 +35,10 @@ Dimension dutyDimension(const Project& project);
 
 // A typed quantity ("6 barg") checked by core's parser.
 Result<Quantity> parseTypedQuantity(std::string_view text, Dimension d, const Project& project);
-// A typed dimensionless number ("0.72"), kept as the JSON number it was.
-// With `aboveMin` the lower bound is excluded (a fraction above 0, a pressure
-// ratio above 1), as the file's reader has it.
-Result<Number> parseTypedNumber(std::string_view text, double min, double max,
-                                std::string_view what, bool aboveMin = false);
+// A typed dimensionless number ("0.72"), kept as the JSON number it was,
+// within core's range for its field (rangeOf in rules.hpp, which the file's
+// reader applies too); `what` names it in the message.
+Result<Number> parseTypedNumber(std::string_view text, BoundedField field, std::string_view what);
 
 // "heat to 180 degC", "cool to 40 degC sink 15 degC", "compress to 6 barg eff 0.72",
 // "expand ratio 3 isentropic", "boil", "heat to x 0.4", "heat duty 250 kW".
@@ -46,10 +46,5 @@ Result<Number> parseTypedNumber(std::string_view text, double min, double max,
 // temperature where the step starts (`beforeT`, K).
 Result<Step> parseQuickAdd(std::string_view line, const Project& project,
                            std::optional<double> beforeT = std::nullopt);
-
-// Re-reads the project through core's writer and parser so every derived
-// value (SI numbers after an atmosphere change, the resolved substance) is
-// core's own; the error names the field when the settings are inconsistent.
-Result<Project> normalised(const Project& project);
 
 }  // namespace heatchain::gui

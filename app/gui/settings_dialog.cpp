@@ -18,7 +18,7 @@ QString numText(const std::optional<Number>& n) { return n ? qs(n->typed()) : QS
 }  // namespace
 
 ProjectSettingsDialog::ProjectSettingsDialog(const Project& project, QWidget* parent)
-    : QDialog(parent), base_(project) {
+    : WorksheetDialog(project, parent) {
     setWindowTitle(tr("Worksheet settings"));
     auto* outer = new QVBoxLayout(this);
     auto* columns = new QHBoxLayout;
@@ -94,20 +94,20 @@ ProjectSettingsDialog::ProjectSettingsDialog(const Project& project, QWidget* pa
         });
         return f;
     };
-    auto number = [](QWidget* parent, const std::optional<Number>& n, const char* what) {
+    auto number = [](QWidget* parent, const std::optional<Number>& n, BoundedField field, const char* what) {
         auto* f = new QuantityField(parent);
         f->showValue(numText(n));
-        f->setCheck([what](const QString& t) -> QString {
+        f->setCheck([field, what](const QString& t) -> QString {
             if (t.isEmpty()) return {};
-            auto r = parseTypedNumber(t.toStdString(), 0, 1, what);
+            auto r = parseTypedNumber(t.toStdString(), field, what);
             return r ? QString() : qs(r.error().message);
         });
         return f;
     };
     startT_ = quantity(material, project.start.T, Dimension::Temperature, true);
     startP_ = quantity(material, project.start.P, Dimension::Pressure, true);
-    startX_ = number(material, project.start.quality, "the quality");
-    startMelt_ = number(material, project.start.meltFraction, "the liquid fraction");
+    startX_ = number(material, project.start.quality, BoundedField::Quality, "the quality");
+    startMelt_ = number(material, project.start.meltFraction, BoundedField::MeltFraction, "the liquid fraction");
     startX_->setPlaceholder(tr("only on the saturation line"));
     startMelt_->setPlaceholder(tr("only on the melting line"));
     mf->addRow(tr("Start T"), startT_);
@@ -127,15 +127,7 @@ ProjectSettingsDialog::ProjectSettingsDialog(const Project& project, QWidget* pa
         return r ? QString() : qs(r.error().message);
     });
 
-    problem_ = new QLabel(this);
-    problem_->setWordWrap(true);
-    problem_->setStyleSheet(QStringLiteral("color: #b42318;"));
-    problem_->hide();
-    outer->addWidget(problem_);
-    auto* buttons = new QDialogButtonBox(QDialogButtonBox::Ok | QDialogButtonBox::Cancel, this);
-    connect(buttons, &QDialogButtonBox::accepted, this, &ProjectSettingsDialog::accept);
-    connect(buttons, &QDialogButtonBox::rejected, this, &QDialog::reject);
-    outer->addWidget(buttons);
+    finishLayout(outer);
 }
 
 Dimension ProjectSettingsDialog::basisDimension() const {
@@ -148,12 +140,11 @@ Dimension ProjectSettingsDialog::basisDimension() const {
     return Dimension::MassFlow;
 }
 
-QString ProjectSettingsDialog::tryBuild() {
+QString ProjectSettingsDialog::build(Project& p) {
     for (QuantityField* f : {basis_, startT_, startP_, startX_, startMelt_, surrT_, surrP_, atm_}) {
         f->commit();
         if (f->hasError()) return tr("Correct the marked field: %1").arg(f->errorText());
     }
-    Project p = base_;
     p.meta.title = title_->text().toStdString();
     p.meta.author = author_->text().toStdString();
     p.meta.revision = revision_->text().toStdString();
@@ -177,13 +168,13 @@ QString ProjectSettingsDialog::tryBuild() {
     };
     p.start.T = typed(startT_);
     p.start.P = typed(startP_);
-    auto num = [](QuantityField* f) -> std::optional<Number> {
+    auto num = [](QuantityField* f, BoundedField field) -> std::optional<Number> {
         if (f->text().isEmpty()) return std::nullopt;
-        auto n = parseTypedNumber(f->text().toStdString(), 0, 1, "value");
+        auto n = parseTypedNumber(f->text().toStdString(), field, "value");
         return n ? std::optional<Number>(*n) : std::nullopt;
     };
-    p.start.quality = num(startX_);
-    p.start.meltFraction = num(startMelt_);
+    p.start.quality = num(startX_, BoundedField::Quality);
+    p.start.meltFraction = num(startMelt_, BoundedField::MeltFraction);
     if (surrT_->text().toStdString() != base_.surroundingsT.text ||
         surrP_->text().toStdString() != base_.surroundingsP.text)
         p.hasSurroundings = true;
@@ -191,22 +182,7 @@ QString ProjectSettingsDialog::tryBuild() {
     p.surroundingsP.text = surrP_->text().toStdString();
     if (atm_->text().toStdString() != base_.atmosphere.text) p.hasAtmosphere = true;
     p.atmosphere.text = atm_->text().toStdString();
-    // Core's parser recomputes every SI value (gauge pressures follow a new
-    // atmosphere) and checks the whole worksheet, steps included.
-    auto checked = normalised(p);
-    if (!checked) return qs(checked.error().text());
-    edited_ = std::move(checked.value());
     return {};
-}
-
-void ProjectSettingsDialog::accept() {
-    const QString reason = tryBuild();
-    if (!reason.isEmpty()) {
-        problem_->setText(reason);
-        problem_->show();
-        return;
-    }
-    QDialog::accept();
 }
 
 }  // namespace heatchain::gui

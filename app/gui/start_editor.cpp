@@ -5,6 +5,7 @@
 #include <QVBoxLayout>
 
 #include "commands.hpp"
+#include "heatchain/project_file.hpp"
 #include "heatchain/substance.hpp"
 #include "heatchain_view/format.hpp"
 #include "project_edit.hpp"
@@ -107,15 +108,15 @@ StartEditor::StartEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent
     };
     T_->setCheck(quantityCheck(Dimension::Temperature));
     P_->setCheck(quantityCheck(Dimension::Pressure));
-    auto fractionCheck = [](const char* what) {
-        return [what](const QString& t) -> QString {
+    auto fractionCheck = [](BoundedField field, const char* what) {
+        return [field, what](const QString& t) -> QString {
             if (t.isEmpty()) return {};
-            auto n = parseTypedNumber(t.toStdString(), 0, 1, what);
+            auto n = parseTypedNumber(t.toStdString(), field, what);
             return n ? QString() : qs(n.error().message);
         };
     };
-    quality_->setCheck(fractionCheck("the quality"));
-    melt_->setCheck(fractionCheck("the liquid fraction"));
+    quality_->setCheck(fractionCheck(BoundedField::Quality, "the quality"));
+    melt_->setCheck(fractionCheck(BoundedField::MeltFraction, "the liquid fraction"));
     basis_->setCheck([this](const QString& t) -> QString {
         if (t.isEmpty()) return tr("the basis needs an amount");
         auto q = parseTypedQuantity(t.toStdString(), basisDimension(Basis::Kind(basisKind_->currentData().toInt())),
@@ -127,9 +128,9 @@ StartEditor::StartEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent
         if (t.isEmpty()) return std::nullopt;
         return Quantity{t.toStdString(), 0};
     };
-    auto typedFraction = [](const QString& t) -> std::optional<Number> {
+    auto typedFraction = [](const QString& t, BoundedField field) -> std::optional<Number> {
         if (t.isEmpty()) return std::nullopt;
-        auto n = parseTypedNumber(t.toStdString(), 0, 1, "value");
+        auto n = parseTypedNumber(t.toStdString(), field, "value");
         return n ? std::optional<Number>(*n) : std::nullopt;
     };
     connect(T_, &QuantityField::committed, this, [=, this](const QString& t) {
@@ -139,10 +140,10 @@ StartEditor::StartEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent
         apply(tr("start pressure"), [&](Project& p) { p.start.P = typedQuantity(t); });
     });
     connect(quality_, &QuantityField::committed, this, [=, this](const QString& t) {
-        apply(tr("start quality"), [&](Project& p) { p.start.quality = typedFraction(t); });
+        apply(tr("start quality"), [&](Project& p) { p.start.quality = typedFraction(t, BoundedField::Quality); });
     });
     connect(melt_, &QuantityField::committed, this, [=, this](const QString& t) {
-        apply(tr("start liquid fraction"), [&](Project& p) { p.start.meltFraction = typedFraction(t); });
+        apply(tr("start liquid fraction"), [&](Project& p) { p.start.meltFraction = typedFraction(t, BoundedField::MeltFraction); });
     });
     connect(basis_, &QuantityField::committed, this, [this](const QString& t) {
         apply(tr("basis"), [&](Project& p) {
@@ -191,7 +192,7 @@ QString StartEditor::apply(const QString& what, const std::function<void(Project
     if (filling_) return {};
     Project p = doc_->project();
     change(p);
-    auto checked = normalised(p);
+    auto checked = resolveProject(p);
     if (!checked) {
         const QString reason = qs(checked.error().text());
         problem_->setText(tr("Not applied (%1): %2").arg(what, reason));

@@ -147,17 +147,17 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
     };
     source_->setCheck(tempCheck);
     sink_->setCheck(tempCheck);
-    auto numberCheck = [](double lo, double hi, const char* what, bool above = false) {
-        return [lo, hi, what, above](const QString& t) -> QString {
+    auto numberCheck = [](BoundedField field, const char* what) {
+        return [field, what](const QString& t) -> QString {
             if (t.isEmpty()) return {};
-            auto n = parseTypedNumber(t.toStdString(), lo, hi, what, above);
+            auto n = parseTypedNumber(t.toStdString(), field, what);
             return n ? QString() : qs(n.error().message);
         };
     };
-    // The bounds the file's reader has: a fraction and an efficiency above 0.
-    fraction_->setCheck(numberCheck(0, 1, "the fraction", true));
-    n_->setCheck(numberCheck(1e-6, 100, "the polytropic exponent n"));
-    efficiency_->setCheck(numberCheck(0, 1, "the isentropic efficiency", true));
+    // The bounds the file's reader has (core's rangeOf).
+    fraction_->setCheck(numberCheck(BoundedField::Fraction, "the fraction"));
+    n_->setCheck(numberCheck(BoundedField::PolytropicExponent, "the polytropic exponent n"));
+    efficiency_->setCheck(numberCheck(BoundedField::Efficiency, "the isentropic efficiency"));
 
     // --- commits: one undoable command each -----------------------------
     connect(id_, &QuantityField::committed, this, [this](const QString& t) {
@@ -207,24 +207,24 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
             else if (!s.efficiency) s.efficiency = Number{Json(0.75), 0.75};
         });
     });
-    // The field's check has passed; the bounds here only let a fraction be
+    // The field's check has passed; the field here only lets a fraction be
     // read from a percentage the way the check read it.
     auto numberCommit = [this](QuantityField* f, std::optional<Number> Step::*member,
-                               const QString& name, double lo, double hi) {
-        connect(f, &QuantityField::committed, this, [this, member, name, lo, hi](const QString& t) {
+                               const QString& name, BoundedField field) {
+        connect(f, &QuantityField::committed, this, [this, member, name, field](const QString& t) {
             apply(name, [&](Step& s) {
                 if (t.isEmpty()) {
                     (s.*member).reset();
                     return;
                 }
-                auto n = parseTypedNumber(t.toStdString(), lo, hi, "value");
+                auto n = parseTypedNumber(t.toStdString(), field, "value");
                 if (n) s.*member = *n;
             });
         });
     };
-    numberCommit(fraction_, &Step::fraction, tr("fraction"), 0, 1);
-    numberCommit(n_, &Step::n, tr("exponent n"), 1e-6, 100);
-    numberCommit(efficiency_, &Step::efficiency, tr("efficiency"), 0, 1);
+    numberCommit(fraction_, &Step::fraction, tr("fraction"), BoundedField::Fraction);
+    numberCommit(n_, &Step::n, tr("exponent n"), BoundedField::PolytropicExponent);
+    numberCommit(efficiency_, &Step::efficiency, tr("efficiency"), BoundedField::Efficiency);
     auto reservoirCommit = [this](QuantityField* f, std::optional<Reservoir> Step::*member,
                                   const QString& name) {
         connect(f, &QuantityField::committed, this, [this, member, name](const QString& t) {
@@ -324,11 +324,11 @@ QString StepEditor::checkTarget(const QString& text, Target t) const {
         return q ? QString() : qs(q.error().message);
     }
     case Target::Quality: {
-        auto n = parseTypedNumber(s, 0, 1, "the quality");
+        auto n = parseTypedNumber(s, BoundedField::Quality, "the quality");
         return n ? QString() : qs(n.error().message);
     }
     case Target::Ratio: {
-        auto n = parseTypedNumber(s, 1, 1e6, "the pressure ratio", true);
+        auto n = parseTypedNumber(s, BoundedField::Ratio, "the pressure ratio");
         return n ? QString() : qs(n.error().message);
     }
     case Target::Time: {
@@ -353,8 +353,8 @@ void StepEditor::applyTarget(const QString& text) {
     case Target::Temperature: if (auto q = parseTypedQuantity(s, Dimension::Temperature, p)) to.T = *q; else return; break;
     case Target::Pressure: if (auto q = parseTypedQuantity(s, Dimension::Pressure, p)) to.P = *q; else return; break;
     case Target::Duty: if (auto q = parseTypedQuantity(s, dutyDimension(p), p)) to.duty = *q; else return; break;
-    case Target::Quality: if (auto n = parseTypedNumber(s, 0, 1, "quality")) to.quality = *n; else return; break;
-    case Target::Ratio: if (auto n = parseTypedNumber(s, 1, 1e6, "ratio", true)) to.ratio = *n; else return; break;
+    case Target::Quality: if (auto n = parseTypedNumber(s, BoundedField::Quality, "quality")) to.quality = *n; else return; break;
+    case Target::Ratio: if (auto n = parseTypedNumber(s, BoundedField::Ratio, "ratio")) to.ratio = *n; else return; break;
     case Target::Time: if (auto q = parseTypedQuantity(s, Dimension::Time, p)) to.time = *q; else return; break;
     case Target::Rated: to.rated = true; break;
     case Target::None: return;

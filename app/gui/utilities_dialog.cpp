@@ -36,7 +36,7 @@ bool usesColumn(UtilityKind k, int c) {
 }  // namespace
 
 UtilitiesDialog::UtilitiesDialog(const Project& project, QWidget* parent)
-    : QDialog(parent), base_(project) {
+    : WorksheetDialog(project, parent) {
     setWindowTitle(tr("Utilities"));
     auto* outer = new QVBoxLayout(this);
     auto* intro = new QLabel(tr("Heat sources and sinks a step can name instead of a temperature. "
@@ -100,15 +100,7 @@ UtilitiesDialog::UtilitiesDialog(const Project& project, QWidget* parent)
     form->addRow(tr("Required minimum approach ΔT_min"), minApproach_);
     outer->addLayout(form);
 
-    problem_ = new QLabel(this);
-    problem_->setWordWrap(true);
-    problem_->setStyleSheet(QStringLiteral("color: #b42318;"));
-    problem_->hide();
-    outer->addWidget(problem_);
-    auto* buttons = new QDialogButtonBox(QDialogButtonBox::Ok | QDialogButtonBox::Cancel, this);
-    connect(buttons, &QDialogButtonBox::accepted, this, &UtilitiesDialog::accept);
-    connect(buttons, &QDialogButtonBox::rejected, this, &QDialog::reject);
-    outer->addWidget(buttons);
+    finishLayout(outer);
     resize(1180, 420);
 }
 
@@ -241,10 +233,9 @@ void UtilitiesDialog::removeRow(int row) {
     if (row >= 0 && row < table_->rowCount()) table_->removeRow(row);
 }
 
-QString UtilitiesDialog::tryBuild() {
+QString UtilitiesDialog::build(Project& p) {
     minApproach_->commit();
     if (minApproach_->hasError()) return tr("Required minimum approach: %1").arg(minApproach_->errorText());
-    Project p = base_;
     p.utilities.clear();
     p.hasUtilities = true;
     std::vector<std::pair<std::string, std::string>> renames;
@@ -282,22 +273,7 @@ QString UtilitiesDialog::tryBuild() {
     const QString ma = minApproach_->text().trimmed();
     if (ma.isEmpty()) p.minApproach.reset();
     else p.minApproach = Quantity{ma.toStdString(), 0};
-    // Core's parser checks every utility (units, ranges, ids) and every step
-    // that names one, and gives the SI values.
-    auto checked = normalised(p);
-    if (!checked) return qs(checked.error().text());
-    edited_ = std::move(checked.value());
     return {};
-}
-
-void UtilitiesDialog::accept() {
-    const QString reason = tryBuild();
-    if (!reason.isEmpty()) {
-        problem_->setText(reason);
-        problem_->show();
-        return;
-    }
-    QDialog::accept();
 }
 
 }  // namespace heatchain::gui

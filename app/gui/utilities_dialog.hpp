@@ -5,17 +5,17 @@
 // per utility; OK re-reads the whole worksheet through core's parser, so a
 // utility a step still names cannot be removed and a bad value is refused
 // with core's reason. A renamed utility is renamed in the steps that use it.
-#include <QDialog>
 #include <QLabel>
 #include <QTableWidget>
 #include <optional>
 
 #include "heatchain/project.hpp"
 #include "quantity_field.hpp"
+#include "worksheet_dialog.hpp"
 
 namespace heatchain::gui {
 
-class UtilitiesDialog : public QDialog {
+class UtilitiesDialog : public WorksheetDialog {
     Q_OBJECT
 public:
     explicit UtilitiesDialog(const Project& project, QWidget* parent = nullptr);
@@ -29,24 +29,16 @@ public:
     QuantityField* minApproachField() const { return minApproach_; }
     QTableWidget* table() const { return table_; }
 
-    // Builds the edited project; the reason when it cannot.
-    QString tryBuild();
-    const std::optional<Project>& edited() const { return edited_; }
-    QString problem() const { return problem_->text(); }
-
-    void accept() override;
 
 private:
+    QString build(Project& p) override;
     void addRow(const Utility& u, const QString& originalId);
     void updateRowKind(int row);
     void updateResolved(int row);
     UtilityKind rowKind(int row) const;
 
-    Project base_;
-    std::optional<Project> edited_;
     QTableWidget* table_;
     QuantityField* minApproach_;
-    QLabel* problem_;
 };
 
 }  // namespace heatchain::gui

@@ -1,5 +1,6 @@
 #include "heatchain_view/format.hpp"
 
+#include <optional>
 #include <cmath>
 
 namespace heatchain::view {
@@ -151,46 +152,45 @@ namespace {
 // A state on the saturation line at an end of the dome reads as the trade
 // says it: "saturated vapour", not "liquid + vapour, x = 1.000".
 constexpr double kSaturatedEnd = 1e-6;
-}  // namespace
 
-QString phaseText(const State& s) {
-    const QString label = phaseName(s.phase);
-    switch (s.phase) {
-    case Phase::LiquidVapor:
-        if (s.quality && *s.quality >= 1.0 - kSaturatedEnd) return QStringLiteral("saturated vapour");
-        if (s.quality && *s.quality <= kSaturatedEnd) return QStringLiteral("saturated liquid");
-        [[fallthrough]];
-    case Phase::SolidVapor:
-        if (s.quality)
-            return QStringLiteral("%1, x = %2").arg(label, QString::number(*s.quality, 'f', 3));
-        return label;
-    case Phase::SolidLiquid:
-        if (s.meltFraction)
-            return QStringLiteral("%1, %2 % liquid")
-                .arg(label, QString::number(*s.meltFraction * 100.0, 'f', 1));
-        return label;
-    default:
-        return label;
-    }
+// "saturated vapour" or "saturated liquid" at an end of the dome.
+std::optional<QString> saturatedEnd(const State& s) {
+    if (s.phase != Phase::LiquidVapor || !s.quality) return std::nullopt;
+    if (*s.quality >= 1.0 - kSaturatedEnd) return QStringLiteral("saturated vapour");
+    if (*s.quality <= kSaturatedEnd) return QStringLiteral("saturated liquid");
+    return std::nullopt;
 }
 
-QString phaseShort(const State& s) {
+// A mixture's share: "x = 0.500" of a two-phase state, "40.0 % liquid" of a
+// melting one; empty for a single phase.
+QString mixtureShare(const State& s) {
     switch (s.phase) {
     case Phase::LiquidVapor:
-        if (s.quality && *s.quality >= 1.0 - kSaturatedEnd) return QStringLiteral("saturated vapour");
-        if (s.quality && *s.quality <= kSaturatedEnd) return QStringLiteral("saturated liquid");
-        [[fallthrough]];
     case Phase::SolidVapor:
         if (s.quality) return QStringLiteral("x = %1").arg(QString::number(*s.quality, 'f', 3));
         break;
     case Phase::SolidLiquid:
-        if (s.meltFraction)
-            return QStringLiteral("%1 % liquid").arg(QString::number(*s.meltFraction * 100, 'f', 1));
+        if (s.meltFraction) return QStringLiteral("%1 % liquid").arg(QString::number(*s.meltFraction * 100.0, 'f', 1));
         break;
     default:
         break;
     }
-    return phaseName(s.phase);
+    return {};
+}
+
+}  // namespace
+
+QString phaseText(const State& s) {
+    if (auto end = saturatedEnd(s)) return *end;
+    const QString label = phaseName(s.phase);
+    const QString share = mixtureShare(s);
+    return share.isEmpty() ? label : QStringLiteral("%1, %2").arg(label, share);
+}
+
+QString phaseShort(const State& s) {
+    if (auto end = saturatedEnd(s)) return *end;
+    const QString share = mixtureShare(s);
+    return share.isEmpty() ? phaseName(s.phase) : share;
 }
 
 const std::vector<StepKind>& allStepKinds() {
