@@ -1,5 +1,6 @@
-// Just over 600 lines: the two propagation methods (first-order sensitivities
-// and Monte Carlo) share the input collection and the result summaries here.
+// About 680 lines on purpose: the two propagation methods (first-order
+// sensitivities and Monte Carlo) share the input collection, the result
+// summaries and the inputs of heat transfer here.
 // Propagation of the inputs' uncertainties through the solver; see
 // uncertainty.hpp for the methods and their sources.
 #include "heatchain/uncertainty.hpp"
