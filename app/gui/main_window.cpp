@@ -38,7 +38,9 @@
 #include "heatchain/project_file.hpp"
 #include "heatchain_view/format.hpp"
 #include "heatchain_view/step_icons.hpp"
+#include "help_text.hpp"
 #include "project_edit.hpp"
+#include "recent_files.hpp"
 #include "settings_dialog.hpp"
 #include "sweep_dialog.hpp"
 #include "utilities_dialog.hpp"
@@ -66,31 +68,9 @@ public:
 using namespace heatchain::view;
 
 namespace {
-constexpr int kMaxRecent = 8;
-const char* kCaution =
-    "Heatchain computes idealised process paths. Pressure equipment, steam, cryogens and hot "
-    "surfaces are governed by local codes and licensed practice; have results checked by a "
-    "qualified engineer.";
 QString qs(const std::string& s) { return QString::fromStdString(s); }
 QString qs(std::string_view s) { return QString::fromUtf8(s.data(), qsizetype(s.size())); }
 
-// The quick-add phrases, for its tooltip and the getting-started page.
-const char* const kQuickAddPhrases[][2] = {
-    {"heat to 180 degC source 240 degC", "heat to an end temperature, with the heat's source"},
-    {"heat by 10 K", "a change: 10 K above where the step starts"},
-    {"heat duty 250 kW", "add an amount of heat"},
-    {"boil", "the whole phase change (add fraction 0.5 or 50 % for half)"},
-    {"cool to x 0.2 sink 30 degC", "to a quality, with the heat's sink"},
-    {"compress to 14 barg eff 0.72", "to a pressure, adiabatic with an isentropic efficiency"},
-    {"expand ratio 3 isentropic", "by a pressure ratio"},
-    {"throttle to 2 bar(a)", "across a valve"},
-};
-
-QString quickAddHelp() {
-    QString t = QObject::tr("Type a step and press Enter, e.g.");
-    for (const auto& row : kQuickAddPhrases) t += QStringLiteral("\n  %1").arg(QString::fromUtf8(row[0]));
-    return t;
-}
 }  // namespace
 
 MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
@@ -193,7 +173,7 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     statusMessages_ = new QLabel(this);
     auto* caution = new QLabel(tr("Idealised paths — have results checked by a qualified engineer."), this);
     caution->setStyleSheet(QStringLiteral("color: #8a5a00;"));
-    caution->setToolTip(tr(kCaution));
+    caution->setToolTip(help::caution());
     statusBar()->addWidget(statusMessages_);
     statusBar()->addWidget(statusSolve_);
     statusBar()->addWidget(statusTime_);
@@ -545,7 +525,7 @@ void MainWindow::buildActions() {
     quickAdd_->setPlaceholderText(tr("quick add (Ctrl+L): heat to 180 degC source 240 degC"));
     quickAdd_->setClearButtonEnabled(true);
     quickAdd_->setMinimumWidth(300);
-    quickAdd_->setToolTip(quickAddHelp());
+    quickAdd_->setToolTip(help::quickAddTooltip());
     steps->addWidget(quickAdd_);
     // Ctrl+L: type a step without reaching for the mouse.
     auto* focusQuickAdd = new QAction(tr("Quick add"), this);
@@ -580,7 +560,7 @@ bool MainWindow::quickAddStep(const QString& text) {
         return false;
     }
     quickAdd_->setStyleSheet({});
-    quickAdd_->setToolTip(quickAddHelp());
+    quickAdd_->setToolTip(help::quickAddTooltip());
     // The message of an earlier failure no longer applies.
     if (statusBar()->currentMessage().startsWith(tr("Not added:"))) statusBar()->clearMessage();
     lastError_.clear();
@@ -711,39 +691,7 @@ Answer MainWindow::ask(Question q, const QString& text) {
         case Question::Recover: return Answer::Later;
         }
     }
-    QMessageBox box(this);
-    box.setIcon(q == Question::Recover ? QMessageBox::Information : QMessageBox::Warning);
-    box.setText(text.section(QStringLiteral("\n\n"), 0, 0));
-    box.setInformativeText(text.section(QStringLiteral("\n\n"), 1));
-    QList<std::pair<QAbstractButton*, Answer>> buttons;
-    auto add = [&](const QString& label, QMessageBox::ButtonRole role, Answer a) {
-        buttons.append({box.addButton(label, role), a});
-        return buttons.back().first;
-    };
-    switch (q) {
-    case Question::UnsavedChanges:
-        box.setWindowTitle(tr("Unsaved changes"));
-        box.setDefaultButton(qobject_cast<QPushButton*>(add(tr("&Save"), QMessageBox::AcceptRole, Answer::Save)));
-        add(tr("&Don't save"), QMessageBox::DestructiveRole, Answer::Discard);
-        add(tr("Cancel"), QMessageBox::RejectRole, Answer::Cancel);
-        break;
-    case Question::ChangedOnDisk:
-        box.setWindowTitle(tr("File changed on disk"));
-        add(tr("&Overwrite"), QMessageBox::DestructiveRole, Answer::Overwrite);
-        box.setDefaultButton(qobject_cast<QPushButton*>(add(tr("Save &as…"), QMessageBox::AcceptRole, Answer::SaveAs)));
-        add(tr("Cancel"), QMessageBox::RejectRole, Answer::Cancel);
-        break;
-    case Question::Recover:
-        box.setWindowTitle(tr("Recover worksheet"));
-        box.setDefaultButton(qobject_cast<QPushButton*>(add(tr("&Recover"), QMessageBox::AcceptRole, Answer::Recover)));
-        add(tr("&Discard"), QMessageBox::DestructiveRole, Answer::Discard);
-        add(tr("&Later"), QMessageBox::RejectRole, Answer::Later);
-        break;
-    }
-    box.exec();
-    for (const auto& [button, answer] : buttons)
-        if (box.clickedButton() == button) return answer;
-    return q == Question::Recover ? Answer::Later : Answer::Cancel;
+    return askInDialog(this, q, text);
 }
 
 bool MainWindow::confirmDiscard() {
@@ -768,8 +716,7 @@ void MainWindow::newWorksheet() {
 QString MainWindow::openDialogFolder() const {
     // The folder of the last worksheet opened or saved, then the open
     // worksheet's, then the samples.
-    const QString last = QSettings().value(QStringLiteral("lastFolder")).toString();
-    if (!last.isEmpty() && QFileInfo(last).isDir()) return last;
+    if (const QString last = recent::lastFolder(); !last.isEmpty()) return last;
     if (!doc_.filePath().isEmpty()) return QFileInfo(doc_.filePath()).path();
     return QStringLiteral(HEATCHAIN_SAMPLES_DIR);
 }
@@ -802,28 +749,12 @@ bool MainWindow::saveAsDialog() {
     return saveFile(path);
 }
 
-void MainWindow::rememberRecent(const QString& path) {
-    QSettings s;
-    QStringList recent = s.value(QStringLiteral("recentFiles")).toStringList();
-    const QString abs = QFileInfo(path).absoluteFilePath();
-    recent.removeAll(abs);
-    recent.prepend(abs);
-    while (recent.size() > kMaxRecent) recent.removeLast();
-    s.setValue(QStringLiteral("recentFiles"), recent);
-    s.setValue(QStringLiteral("lastFolder"), QFileInfo(abs).path());
-}
+void MainWindow::rememberRecent(const QString& path) { recent::remember(path); }
 
 void MainWindow::fillRecentMenu() {
-    recentMenu_->clear();
-    const QStringList recent = QSettings().value(QStringLiteral("recentFiles")).toStringList();
-    for (const QString& path : recent) {
-        QAction* a = recentMenu_->addAction(QFileInfo(path).fileName(), this, [this, path] {
-            if (confirmDiscard()) openFile(path);
-        });
-        a->setToolTip(path);
-        a->setEnabled(QFileInfo::exists(path));
-    }
-    if (recent.isEmpty()) recentMenu_->addAction(tr("(none yet)"))->setEnabled(false);
+    recent::fillMenu(recentMenu_, [this](const QString& path) {
+        if (confirmDiscard()) openFile(path);
+    });
 }
 
 void MainWindow::updateTitle() {
@@ -858,77 +789,11 @@ void MainWindow::updateStatus() {
         setMessages(tr("<span style='color:#2e7d32'>no warnings</span>"));
 }
 
-QString MainWindow::gettingStartedHtml() {
-    QString html = tr(
-        "<h3>Getting started</h3>"
-        "<p>A worksheet follows one material through a chain of steps. The chain starts with the "
-        "<b>Start card</b>; each step card after it is one change: heat, cool, melt, freeze, boil, "
-        "condense, sublimate, deposit (vapour → solid), compress, expand or throttle.</p>"
-        "<ol>"
-        "<li><b>Choose the material and where it starts.</b> Click the Start card: the step panel on the "
-        "left shows the substance, the property model (Reference is the best the substance has), the "
-        "start temperature and pressure and the basis (for example 2 kg/s). Type a value and press Enter; "
-        "every value keeps the units you type (<i>180 degC</i>, <i>6 barg</i>, <i>4.2 t/h</i>).</li>"
-        "<li><b>Add steps.</b> Use the toolbar's step buttons, the + between two cards, or type a phrase "
-        "in the quick-add line (Ctrl+L) and press Enter. A new step goes after the selected card.</li>"
-        "<li><b>Edit a step.</b> Click its card; the step panel shows its target (<i>to</i> a temperature, "
-        "a pressure or a quality, a duty, or a pressure ratio), its source or sink, and its result. "
-        "F2 renames it. Ctrl+Z and Ctrl+Y undo and redo.</li>"
-        "<li><b>Read the results.</b> Every card shows the state after its step and its duty Q and work "
-        "W; the ledger below lists every step, the charts on the right draw the path. The messages panel "
-        "lists errors (nothing computed), warnings (probably not what you meant) and notes (ordinary "
-        "facts).</li>"
-        "<li><b>Save and report.</b> Ctrl+S saves the worksheet file (the previous version is kept as "
-        "<i>.bak</i>); File ▸ Export ▸ Report writes the PDF for review.</li>"
-        "</ol>"
-        "<h4>Quick-add phrases</h4><table cellspacing='0' cellpadding='2'>");
-    for (const auto& row : kQuickAddPhrases)
-        html += QStringLiteral("<tr><td><code>%1</code></td><td>&nbsp;&nbsp;%2</td></tr>")
-                    .arg(QString::fromUtf8(row[0]).toHtmlEscaped(), tr(row[1]).toHtmlEscaped());
-    html += tr("</table><p><i>to</i> always names an end value; <i>by</i> only a change of temperature. "
-               "Pressures: <i>bar(a)</i>, <i>bara</i> are absolute, <i>barg</i>, <i>bar(g)</i>, <i>psig</i> "
-               "gauge (above the worksheet's atmosphere).</p>"
-               "<p>The samples (File ▸ Open, folder <i>sample-projects</i>) are complete worksheets to "
-               "look at. The words used here are defined in <i>docs/glossary.md</i>.</p>");
-    return html;
-}
+QString MainWindow::gettingStartedHtml() { return help::gettingStartedHtml(); }
 
-void MainWindow::showGettingStarted() {
-    QMessageBox box(this);
-    box.setWindowTitle(tr("Getting started"));
-    box.setTextFormat(Qt::RichText);
-    box.setText(gettingStartedHtml());
-    box.exec();
-}
+void MainWindow::showGettingStarted() { help::showGettingStarted(this); }
 
-void MainWindow::showAbout() {
-    const SequenceResult& r = doc_.result();
-    const Project& p = doc_.project();
-    QString html = tr("<h3>Heatchain %1</h3><p>A worksheet for thermal processes: chain the steps a "
-                      "material goes through and read the state after each step with Q, W, ΔH, ΔS, "
-                      "S<sub>gen</sub> and exergy destroyed.</p>")
-                       .arg(QApplication::applicationVersion());
-    html += QStringLiteral("<p style='color:#8a5a00'><b>%1</b></p>").arg(tr(kCaution).toHtmlEscaped());
-    if (r.model) {
-        html += tr("<h4>Property model: %1</h4><p>%2</p><p><i>Range:</i> %3</p>")
-                    .arg(qs(r.model->name()).toHtmlEscaped(),
-                         qs(r.model->sourceText()).toHtmlEscaped().replace(QLatin1Char('\n'), QStringLiteral("<br>")),
-                         qs(r.model->rangeText()).toHtmlEscaped());
-    }
-    html += tr("<h4>Substance data: %1</h4><ul>").arg(qs(p.substance.name).toHtmlEscaped());
-    for (const SourceNote& n : p.substance.sources)
-        html += QStringLiteral("<li><b>%1</b>: %2%3</li>")
-                    .arg(qs(sourceFieldLabel(n.field)).toHtmlEscaped(), qs(n.text).toHtmlEscaped(),
-                         n.confirmed ? QString() : tr(" (not independently confirmed)"));
-    if (p.substance.sources.empty()) html += tr("<li>no sources recorded</li>");
-    html += QStringLiteral("</ul>");
-    QMessageBox box(this);
-    box.setWindowTitle(tr("About Heatchain"));
-    box.setIconPixmap(appIcon().pixmap(64, 64));
-    box.setTextFormat(Qt::RichText);
-    box.setText(html);
-    box.exec();
-}
+void MainWindow::showAbout() { help::showAbout(this, doc_.project(), doc_.result()); }
 
 void MainWindow::startUp(const QStringList& arguments) {
     QSettings s;

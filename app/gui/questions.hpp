@@ -2,6 +2,7 @@
 // The questions the window asks the user, and their possible answers. Tests
 // inject the answers (MainWindow::setAsker) instead of pressing buttons.
 #include <QString>
+#include <QWidget>
 #include <functional>
 
 namespace heatchain::gui {
@@ -9,6 +10,10 @@ namespace heatchain::gui {
 enum class Question { UnsavedChanges, ChangedOnDisk, Recover };
 enum class Answer { Save, Discard, Cancel, Overwrite, SaveAs, Recover, Later };
 using Asker = std::function<Answer(Question, const QString& text)>;
+
+// Asks in a message box over `parent`: the text's first paragraph is the
+// question, the rest its explanation; the buttons are the question's answers.
+Answer askInDialog(QWidget* parent, Question q, const QString& text);
 
 // What the helpers of the window need from it: ask a question, report an
 // error (a dialog, or recorded when no one is there to press OK), and a
