@@ -1,7 +1,8 @@
 #pragma once
 // The chart dock's time chart: a batch's temperature and duty against time,
-// with the utility's temperature (heatchain_view's TimeChart). Shown for
-// closed systems; redrawn on every change of the worksheet.
+// with the utility's temperature (heatchain_view's TimeChart). The main
+// window shows it as a tab beside the exergy bars for closed systems;
+// redrawn on every change of the worksheet.
 #include <QWidget>
 
 #include "document.hpp"

@@ -133,8 +133,9 @@ Result<StepUtility> serveByUtility(const Ctx& c, const Step& step, std::size_t i
     UtilityProfile flowing;
     if (profiles[ui]->flow) {
         // Steady flow: the outlet follows from the step's duty, Q = ṁ c_p (T_in − T_out).
-        // A batch: the outlet changes through the step (transfer_solve.cpp);
-        // the material cannot pass the inlet, which is what is checked here.
+        // A batch: the outlet changes through the step (transfer_solve.cpp,
+        // which also sets the temperature S_gen charges the heat at); the
+        // material cannot pass the inlet, which is what is checked here.
         flowing = *profiles[ui];
         if (!c.closed) {
             flowing.Tout = flowing.Tin - o.Q / (*flowing.flow * flowing.cp);

@@ -122,8 +122,9 @@ Status applyTransfer(const Ctx& c, const Step& step, std::size_t idx, StepResult
             // Its outlet follows the batch, so it is no reservoir at its inlet
             // temperature: it gives its heat at the mean temperature its own
             // entropy change sets, T = Q_utility / −ΔS_utility, and then
-            // S_gen = ΔS − Q/T is ΔS + ΔS_utility (the heat lost to the
-            // surroundings lies outside the step, as for every batch step).
+            // S_gen = ΔS − Q/T is ΔS + ΔS_utility when nothing is lost to the
+            // surroundings (what the loss itself generates lies outside the
+            // step, as for every batch step).
             if (sr.reservoirT && sr.batch->utilityEntropy != 0 && sr.batch->utilityHeat != 0) {
                 sr.utility->Tmean = -sr.batch->utilityHeat / sr.batch->utilityEntropy;
                 sr.reservoirT = sr.utility->Tmean;
@@ -207,7 +208,9 @@ Result<std::optional<Step>> resolveTransferTarget(const Ctx& c, const Step& step
                                        : (step.transfer->UA ? step.transfer->UA->si : step.transfer->area->si);
     Step trial = step;
     trial.to = StepTarget{};
-    trial.to.rated = step.to.rated;  // kept for the messages; the duty below is what is solved
+    // Kept, though the duty below is what is solved: applyTransfer reads them
+    // (a rated step's area is not "too small"; a timed step's tail).
+    trial.to.rated = step.to.rated;
     trial.to.time = step.to.time;
     // Area (or UA) or time after a duty; +inf where the duty cannot be reached.
     auto measure = [&](double duty) -> double {
@@ -230,8 +233,7 @@ Result<std::optional<Step>> resolveTransferTarget(const Ctx& c, const Step& step
             auto b = batchTime(*trial.transfer, sr, *side, lossUAOf(c, trial), c.T0, {});
             return b ? b->duration : std::numeric_limits<double>::infinity();
         }
-        HeatTransferSpec sizing = *trial.transfer;
-        auto t = sizeStep(sizing, sr, *side, {});
+        auto t = sizeStep(*trial.transfer, sr, *side, {});
         if (!t) return std::numeric_limits<double>::infinity();
         return trial.transfer->UA ? t->UA : t->area.value_or(0.0);
     };
