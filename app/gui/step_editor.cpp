@@ -54,6 +54,10 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
         kind_->addItem(stepIcon(k), stepKindTitle(k), int(k));
     targetKind_ = new QComboBox(form_);
     targetKind_->setObjectName(QStringLiteral("targetKind"));
+    // As wide as its usual choices: a long one ("rated: …") would otherwise
+    // squeeze the value beside it.
+    targetKind_->setSizeAdjustPolicy(QComboBox::AdjustToMinimumContentsLengthWithIcon);
+    targetKind_->setMinimumContentsLength(14);
     target_ = new QuantityField(form_);
     auto* targetRow = new QWidget(form_);
     auto* tl = new QHBoxLayout(targetRow);

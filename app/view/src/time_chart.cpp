@@ -101,8 +101,8 @@ void TimeChart::paint(QPainter& p, const QRectF& rect) const {
     const double gap = 6;
     const double top = 2 * lineH + 2 * gap;  // the key, then the step names
     const double bottom = 2 * lineH + 2 * gap + 2;
-    auto tickStep = [&](double span, double room, double spacing) {
-        return niceTickStep(span, std::max(2, int(room / spacing)));
+    auto tickStep = [&](double span, double room, double spacing, int least = 2) {
+        return niceTickStep(span, std::max(least, int(room / spacing)));
     };
     auto widest = [&](double from, double to, double step) {
         double w = 0;
@@ -115,8 +115,8 @@ void TimeChart::paint(QPainter& p, const QRectF& rect) const {
     for (int pass = 0; pass < 2; ++pass) {
         const double h = std::max(40.0, rect.height() - top - bottom);
         // A tick every two lines or so: labels never touch.
-        ys = tickStep(ymax_ - ymin_, h, 2.2 * lineH);
-        ds = tickStep(dmax_, h, 2.2 * lineH);
+        ys = tickStep(ymax_ - ymin_, h, 2.2 * lineH, 4);
+        ds = tickStep(dmax_, h, 2.2 * lineH, 3);
         left = lineH + 3 * gap + widest(std::ceil(ymin_ / ys) * ys, ymax_, ys);
         right = lineH + 3 * gap + widest(0, dmax_, ds);
     }
