@@ -283,10 +283,16 @@ JsonPath parseDottedPath(std::string_view text) {
     return out;
 }
 
-PrescanResult prescanJson(std::string_view text, int maxDepth) {
+PrescanResult prescanJson(std::string_view text, int maxDepth, std::size_t maxValues) {
     PrescanResult r;
+    std::size_t values = 0;
     walk(
-        text, maxDepth, [](const JsonPath&, std::size_t) { return true; },
+        text, maxDepth,
+        [&](const JsonPath& path, std::size_t offset) {
+            if (++values <= maxValues) return true;
+            r.tooManyValues = JsonProblem{"more than " + std::to_string(maxValues) + " JSON values", path, offset};
+            return false;
+        },
         [&](const JsonPath& path, std::size_t offset, bool duplicate) {
             if (duplicate && !r.duplicateKey)
                 r.duplicateKey = JsonProblem{"the key \"" + path.back().key + "\" appears twice in one object", path,

@@ -45,12 +45,16 @@ struct JsonProblem {
     JsonPath path;
     std::size_t offset = 0;
 };
+// Also more values (of any kind) than maxValues: a parsed value costs tens
+// of bytes however short its text, so a broken or hostile file of 64 MiB of
+// "0," would otherwise take gigabytes; the walk stops there.
 struct PrescanResult {
     std::optional<JsonProblem> tooDeep;
     std::optional<JsonProblem> duplicateKey;
     std::optional<JsonProblem> numberOutOfRange;
+    std::optional<JsonProblem> tooManyValues;
 };
-PrescanResult prescanJson(std::string_view text, int maxDepth);
+PrescanResult prescanJson(std::string_view text, int maxDepth, std::size_t maxValues);
 
 // Byte offset of every number value in the text, keyed by formatJsonPath of
 // its path: one walk for a whole file (locateJsonValue walks per call).

@@ -218,11 +218,16 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
     if (first >= text.size())
         return positioned("the file is empty; a Heatchain project is a JSON object starting with {", file, text, 0);
 
-    const detail::PrescanResult pre = detail::prescanJson(text, kMaxDepth);
+    const detail::PrescanResult pre = detail::prescanJson(text, kMaxDepth, detail::kMaxJsonValues);
     if (pre.tooDeep)
         return positioned("JSON nested deeper than " + std::to_string(kMaxDepth) +
                               " levels; a Heatchain project never needs that (is this the right file?)",
                           file, text, pre.tooDeep->offset);
+    if (pre.tooManyValues)
+        return positioned(pre.tooManyValues->message +
+                              "; a Heatchain project of the largest allowed length has far fewer (is this the "
+                              "right file?)",
+                          file, text, pre.tooManyValues->offset);
 
     Json root;
     try {
@@ -342,6 +347,9 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
     const Json* steps = member(root, "steps");
     if (!steps) r.fail(top, "\"steps\" is missing (an empty list [] is fine)");
     if (!steps->is_array()) r.fail({{"steps", -1}}, "\"steps\" must be a list [...]; found " + jsonTypeName(*steps));
+    if (steps->size() > detail::kMaxSteps)
+        r.fail({{"steps", -1}}, "has " + std::to_string(steps->size()) + " steps; a worksheet holds at most " +
+                                    std::to_string(detail::kMaxSteps) + " (split it into several)");
     std::set<std::string> ids;
     std::vector<std::pair<std::string, long>> firstSeen;
     p.steps.reserve(steps->size());

@@ -19,6 +19,12 @@ inline constexpr std::string_view kProjectFormatName = "heatchain-project";
 // Deeper nesting than this is refused before any parser sees it; a project
 // file needs about 8 levels (a custom substance's cp table is the deepest).
 inline constexpr int kMaxJsonDepth = 64;
+// Limits that keep a broken or hostile file from exhausting the machine,
+// each far above what a worksheet needs: steps in one stream (a step costs
+// about 10 kB solved, with its curves), and JSON values in a file (about a
+// dozen a step).
+inline constexpr std::size_t kMaxSteps = 250'000;
+inline constexpr std::size_t kMaxJsonValues = 8'000'000;
 
 // The bytes of a project file of either format version, refused with a
 // reason when it is a folder, unreadable or larger than a project can be.

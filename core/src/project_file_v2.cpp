@@ -318,10 +318,10 @@ Result<StreamSet> parseStreamSet(std::string_view text, std::string_view fileNam
     // Only a well-formed version-2 file takes the new path; everything else
     // (including every malformed file) goes to the version-1 reader, which
     // says what is wrong exactly as it always has.
-    const detail::PrescanResult pre = detail::prescanJson(text, kMaxDepth);
+    const detail::PrescanResult pre = detail::prescanJson(text, kMaxDepth, detail::kMaxJsonValues);
     Json root;
     bool v2 = false;
-    if (!pre.tooDeep && !pre.numberOutOfRange) {
+    if (!pre.tooDeep && !pre.numberOutOfRange && !pre.tooManyValues) {
         try {
             root = Json::parse(text.begin(), text.end());
             const Json* format = member(root, "format");

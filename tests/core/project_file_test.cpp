@@ -770,6 +770,45 @@ TEST_F(ProjectFileOnDisk, ErrorsNameTheFile) {
 }
 
 }  // namespace
+
+// A broken or hostile file meets a stated limit with a clear error, before
+// the parser or the solver can take the machine's memory: more steps than a
+// worksheet may hold, more JSON values than a worksheet of that length has
+// (8,000,001 zeros: 16 MB of text would parse to several hundred MB), and a
+// file over 64 MiB (sparse on disk, so the test writes nothing).
+TEST_F(ProjectFileOnDisk, HostileFilesMeetTheStatedLimits) {
+    const std::string head = R"({ "format": "heatchain-project", "version": 1, "system": "steady-flow",
+        "model": "reference", "substance": "water", "basis": { "massFlow": "1 kg/s" },
+        "start": { "T": "20 degC", "P": "1 atm" }, )";
+    std::string steps = head + R"("steps": [)";
+    for (int i = 0; i < 250001; ++i) steps += i ? ",{}" : "{}";
+    steps += "] }";
+    auto many = parseProject(steps, "many.hchain");
+    ASSERT_FALSE(many.ok());
+    EXPECT_NE(many.error().text().find("250001 steps; a worksheet holds at most 250000"), std::string::npos)
+        << many.error().text();
+    EXPECT_NE(many.error().text().find("steps"), std::string::npos);
+
+    std::string values = head + R"("junk": [)";
+    values.reserve(values.size() + 16'000'010);
+    for (int i = 0; i < 8'000'001; ++i) values += i ? ",0" : "0";
+    values += R"(], "steps": [] })";
+    auto flood = parseProject(values, "flood.hchain");
+    ASSERT_FALSE(flood.ok());
+    EXPECT_NE(flood.error().text().find("more than 8000000 JSON values"), std::string::npos) << flood.error().text();
+    EXPECT_NE(flood.error().text().find("flood.hchain (line 3, column"), std::string::npos) << flood.error().text();
+
+    const fs::path big = dir_ / "big.hchain";
+    write(big, head + R"("steps": [] })");
+    fs::resize_file(big, std::uintmax_t{65} * 1024 * 1024);
+    auto huge = loadProject(big);
+    ASSERT_FALSE(huge.ok());
+    EXPECT_NE(huge.error().text().find("limit 64 MiB"), std::string::npos) << huge.error().text();
+    auto hugeSet = loadStreamSet(big);
+    ASSERT_FALSE(hugeSet.ok());
+    EXPECT_NE(hugeSet.error().text().find("64 MiB"), std::string::npos) << hugeSet.error().text();
+}
+
 }  // namespace heatchain
 
 // project-format.md: "numbers as the user typed them". nlohmann/json reprints
