@@ -614,14 +614,14 @@ std::optional<State> SimpleModel::invertOnIsobar(int p, double P, Property which
         // with cp at the known state: two or three steps.
         const double c0 = cp.cp(from.T);
         T = byH ? from.T + (value - from.h) / c0 : from.T * std::exp((value - from.s) / c0);
-        for (int it = 0;; ++it) {
-            if (!(T > 0) || !std::isfinite(T) || it == kMaxIterations) return std::nullopt;
-            const double c = cp.cp(T);
-            const double f = (byH ? H(p, T, P) : S(p, T, P)) - value;
-            const double step = byH ? f / c : f * T / c;
-            T -= step;
-            if (std::abs(step) <= 1e-14 * T) break;
-        }
+        // The entropy step f/(cp/T) is taken as (f·T)/cp, the same number as before.
+        auto probe = [&](double t) {
+            const double f = (byH ? H(p, t, P) : S(p, t, P)) - value;
+            return detail::NewtonProbe{byH ? f : f * t, cp.cp(t)};
+        };
+        const auto root = detail::newtonPolish(probe, T, {-1, 1e-14, kMaxIterations});
+        if (!root) return std::nullopt;
+        T = *root;
     }
     if (!(T >= Tmin && T <= Tmax)) return std::nullopt;
     const Phase ph = p == kSolid ? Phase::Solid : (p == kLiquid ? Phase::Liquid : Phase::Vapor);

@@ -118,19 +118,12 @@ constexpr double kDirectTol = 5e-10;
 template <class Eval>
 bool newtonOnIsobar(Eval eval, bool H, double value, double T, w::Props& out) {
     const double tol = kDirectTol * std::max(std::fabs(value), H ? 1e3 : 1.0);
-    for (int it = 0; it < 8; ++it) {
-        if (!(T > 0) || !std::isfinite(T)) return false;
-        const w::Props p = eval(T);
-        const double f = (H ? p.h : p.s) - value;
-        if (std::fabs(f) <= tol) {
-            out = p;
-            return true;
-        }
-        const double d = H ? p.cp : p.cp / T;
-        if (!(d > 0) || !std::isfinite(d)) return false;
-        T -= f / d;
-    }
-    return false;
+    auto probe = [&](double t) {
+        out = eval(t);
+        return detail::NewtonProbe{(H ? out.h : out.s) - value, H ? out.cp : out.cp / t};
+    };
+    // Converged on the residual: `out` holds the state probed last.
+    return detail::newtonPolish(probe, T, {tol, -1, 8}).has_value();
 }
 
 std::optional<State> directRegion1(double P, bool H, double value, double T0) {

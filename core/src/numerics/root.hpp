@@ -153,4 +153,30 @@ std::optional<NewtonRoot> safeguardedNewton(Probe&& probe, double x, double lo, 
     return NewtonRoot{last, NewtonRoot::End::Iterations, true};
 }
 
+// Plain Newton from a close start (a backward equation, a closed form) on a
+// positive variable, with no bracket: stops with the point probed when
+// |f| <= residualTolerance, or with the point reached when a step was at most
+// stepTolerance·|x| there; nothing when x leaves (0, ∞), the slope is not
+// positive and finite, or the iterations run out. A negative tolerance
+// switches its test off.
+struct PolishOptions {
+    double residualTolerance = -1;
+    double stepTolerance = -1;
+    int maxIterations = 8;
+};
+
+template <class Probe>
+std::optional<double> newtonPolish(Probe&& probe, double x, const PolishOptions& opt) {
+    for (int it = 0; it < opt.maxIterations; ++it) {
+        if (!(x > 0) || !std::isfinite(x)) return std::nullopt;
+        const NewtonProbe p = probe(x);
+        if (std::fabs(p.f) <= opt.residualTolerance) return x;
+        if (!(p.slope > 0) || !std::isfinite(p.slope)) return std::nullopt;
+        const double step = p.f / p.slope;
+        x -= step;
+        if (x > 0 && std::fabs(step) <= opt.stepTolerance * x) return x;
+    }
+    return std::nullopt;
+}
+
 }  // namespace heatchain::detail
