@@ -67,9 +67,8 @@ std::string targetsText(const StreamSet& set, const Recovery& r, bool problemTab
     o << "                     target        today\n";
     o << "  hot utility    " << std::setw(14) << Q(t.hotUtilityMin) << std::setw(14) << Q(r.hotUtilityNow) << "\n";
     o << "  cold utility   " << std::setw(14) << Q(t.coldUtilityMin) << std::setw(14) << Q(r.coldUtilityNow) << "\n";
-    const double saved = r.hotUtilityNow - t.hotUtilityMin;
-    o << "  recoverable    " << Q(saved);
-    if (r.hotUtilityNow > 0) o << ", " << fixed(100.0 * saved / r.hotUtilityNow, 1) << " % of today's hot utility";
+    o << "  recoverable    " << Q(r.recoverableHot());
+    if (auto share = r.recoverableHotShare()) o << ", " << fixed(100.0 * *share, 1) << " % of today's hot utility";
     o << "\n";
     if (t.pinchShifted.empty()) {
         o << "  pinch          none (";
@@ -88,6 +87,13 @@ std::string targetsText(const StreamSet& set, const Recovery& r, bool problemTab
             o << "  no hot level is hot enough for " << Q(r.utilities.hotUnmet) << "\n";
         if (r.utilities.coldUnmet > 1e-9 * std::max(1.0, t.coldUtilityMin))
             o << "  no cold level is cold enough for " << Q(r.utilities.coldUnmet) << "\n";
+    }
+    if (!r.timeAveraged.empty()) {
+        o << "\nBatch streams time-averaged:";
+        for (const std::string& id : r.timeAveraged) o << " \"" << id << "\"";
+        o << ". Each batch's heat enters averaged over the stream's cycle time; this\n"
+             "time-average view overstates what can be recovered between batches, which meet only when\n"
+             "the schedule makes them happen at the same time or heat is stored in between.\n";
     }
     if (!r.excluded.empty()) {
         o << "\nLeft out\n";

@@ -183,9 +183,17 @@ private:
             if (*q < 0) fail(dPath, "the ΔTmin contribution must be zero or more", label + ", dTminContribution");
             out.dTminContribution = Quantity{d->get<std::string>(), *q};
         }
+        if (const Json* c = member(s, "cycleTime")) {
+            const detail::JsonPath cPath = detail::child(path, "cycleTime");
+            if (!c->is_string()) fail(cPath, "expected a time with a unit, e.g. \"8 h\"", label + ", cycleTime");
+            auto q = parseQuantity(c->get_ref<const std::string&>(), Dimension::Time);
+            if (!q) fail(cPath, q.error().message, label + ", cycleTime");
+            if (!(*q > 0)) fail(cPath, "the cycle time must be more than zero", label + ", cycleTime");
+            out.cycleTime = Quantity{c->get<std::string>(), *q};
+        }
         for (auto it = s.begin(); it != s.end(); ++it) {
             const std::string& k = it.key();
-            if (k == "id" || k == "name" || k == "dTminContribution") continue;
+            if (k == "id" || k == "name" || k == "dTminContribution" || k == "cycleTime") continue;
             if (std::find(kStreamKeys.begin(), kStreamKeys.end(), k) != kStreamKeys.end()) continue;
             out.extra[k] = it.value();
         }
@@ -296,10 +304,15 @@ void StreamSet::shareFields() {
     }
 }
 
+void StreamSet::takeShared(const Project& from) {
+    shared = withShared(shared, from);
+    shareFields();
+}
+
 bool StreamSet::writesAsVersion1() const {
     if (streams.size() != 1) return false;
     const Stream& s = streams.front();
-    return !s.name && !s.dTminContribution && (!s.extra.is_object() || s.extra.empty());
+    return !s.name && !s.dTminContribution && !s.cycleTime && (!s.extra.is_object() || s.extra.empty());
 }
 
 StreamSet streamSetOf(Project project) {
@@ -389,6 +402,8 @@ std::string writeStreamSet(const StreamSet& set) {
         if (s.dTminContribution)
             out += ",\n      \"dTminContribution\": " +
                    Json(s.dTminContribution->text).dump(-1, ' ', false, Json::error_handler_t::replace);
+        if (s.cycleTime)
+            out += ",\n      \"cycleTime\": " + Json(s.cycleTime->text).dump(-1, ' ', false, Json::error_handler_t::replace);
         Project p = withShared(s.project, set.shared);
         p.extra = Json::object();
         p.version = 1;

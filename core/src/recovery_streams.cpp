@@ -79,9 +79,15 @@ StreamPieces piecesFromStreams(std::span<const RecoveryStream> streams, double t
             out.excluded.push_back({s.id, "the stream has not been solved"});
             continue;
         }
-        if (s.project->system == SystemKind::Closed) {
+        // A batch enters at its mean duty over its cycle time: the stream's
+        // own, else the sum of its steps' times when they are known.
+        const bool batch = s.project->system == SystemKind::Closed;
+        const std::optional<double> cycle = s.cycleTime ? s.cycleTime : s.result->totals.cycleTime;
+        if (batch && !(cycle && *cycle > 0)) {
             out.excluded.push_back({s.id, "a closed (batch) stream has no steady heat rate to set against the "
-                                          "others; it is left out of the targets"});
+                                          "others; it is left out of the targets (give the stream a cycle time, "
+                                          "\"cycleTime\", or its steps' heat transfer so their times are known, "
+                                          "to enter its duties averaged over the cycle)"});
             continue;
         }
         if (const Error* e = s.result->firstError()) {
@@ -92,6 +98,9 @@ StreamPieces piecesFromStreams(std::span<const RecoveryStream> streams, double t
             out.excluded.push_back({s.id, "the stream has no property model"});
             continue;
         }
+        // A batch's heat (J a batch) as a mean duty over its cycle (W).
+        const double scale = batch ? 1.0 / *cycle : 1.0;
+        if (batch) out.timeAveraged.push_back(s.id);
         Refiner refiner{*s.result->model, toleranceK};
         for (std::size_t i = 0; i < s.result->steps.size() && i < s.project->steps.size(); ++i) {
             const StepResult& step = s.result->steps[i];
@@ -112,13 +121,15 @@ StreamPieces piecesFromStreams(std::span<const RecoveryStream> streams, double t
             const std::vector<CurvePoint> corners = joined(solved, 0.9 * toleranceK);
             std::vector<CurvePoint> line;
             for (std::size_t k = 0; k < corners.size(); ++k) {
-                if (line.empty())
+                // A closed step's heat is m·Δh only at constant pressure:
+                // its middles are not checked (the joined points stand).
+                if (line.empty() || batch)
                     line.push_back(corners[k]);
                 else
                     refiner.refine(line.back(), corners[k], 0, line);
             }
             for (std::size_t k = 1; k < line.size(); ++k) {
-                const double dQ = line[k].Q - line[k - 1].Q;
+                const double dQ = (line[k].Q - line[k - 1].Q) * scale;
                 if (dQ == 0) continue;
                 out.pieces.push_back({s.id, line[k - 1].T, line[k].T, std::abs(dQ), dQ < 0, s.shift});
                 (dQ > 0 ? out.hotNow : out.coldNow) += std::abs(dQ);
@@ -169,21 +180,42 @@ Result<Recovery> recoveryTargets(std::span<const RecoveryStream> streams, double
     r.excluded = std::move(pieces.excluded);
     r.toleranceK = pieces.toleranceK;
     r.largestErrorK = pieces.largestErrorK;
+    r.timeAveraged = std::move(pieces.timeAveraged);
     r.utilities = placeUtilities(r.targets, levels);
     return r;
 }
 
-Result<Recovery> worksheetRecovery(const StreamSet& set, std::span<const SequenceResult> results,
-                                   std::optional<double> dTmin) {
+std::optional<double> Recovery::recoverableHotShare() const {
+    if (!(hotUtilityNow > 0)) return std::nullopt;
+    return recoverableHot() / hotUtilityNow;
+}
+
+namespace {
+std::vector<RecoveryStream> recoveryStreamsOf(const StreamSet& set, std::span<const SequenceResult> results) {
     std::vector<RecoveryStream> streams;
     streams.reserve(set.streams.size());
     for (std::size_t i = 0; i < set.streams.size(); ++i) {
         const Stream& s = set.streams[i];
         streams.push_back({s.id, &s.project, i < results.size() ? &results[i] : nullptr,
-                           s.dTminContribution ? std::optional<double>(s.dTminContribution->si) : std::nullopt});
+                           s.dTminContribution ? std::optional<double>(s.dTminContribution->si) : std::nullopt,
+                           s.cycleTime ? std::optional<double>(s.cycleTime->si) : std::nullopt});
     }
+    return streams;
+}
+}  // namespace
+
+Result<Recovery> worksheetRecovery(const StreamSet& set, std::span<const SequenceResult> results,
+                                   std::optional<double> dTmin) {
+    const std::vector<RecoveryStream> streams = recoveryStreamsOf(set, results);
     const std::vector<UtilityLevel> levels = utilityLevels(set);
     return recoveryTargets(streams, dTmin ? *dTmin : set.shared.minApproachK(), levels);
+}
+
+Result<std::vector<TargetsAtDTmin>> worksheetDTminSweep(const StreamSet& set, std::span<const SequenceResult> results,
+                                                        double from, double to, int count) {
+    const std::vector<RecoveryStream> streams = recoveryStreamsOf(set, results);
+    const StreamPieces pieces = piecesFromStreams(streams);
+    return dTminSweep(pieces.pieces, from, to, count);
 }
 
 Json worksheetResultsToJson(const StreamSet& set, const std::vector<SequenceResult>& results,
@@ -252,6 +284,7 @@ Json recoveryToJson(const Recovery& r) {
         levels.push_back(Json{{"id", u.id}, {"hot", u.hot}, {"T_K", u.T}, {"duty_W", u.duty}});
     j["utilityLevels"] = std::move(levels);
     j["hotUtilityUnmet_W"] = r.utilities.hotUnmet;
+    j["timeAveraged"] = r.timeAveraged;
     j["coldUtilityUnmet_W"] = r.utilities.coldUnmet;
     return j;
 }

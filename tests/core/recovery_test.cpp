@@ -374,3 +374,73 @@ TEST(RecoveryStreams, ClosedStreamsAreLeftOutWithAReason) {
     EXPECT_EQ(j["excluded"][0]["stream"], "tank");
     EXPECT_NEAR(j["coldUtilityMin_W"].get<double>(), 110e3, 1e-6);
 }
+
+TEST(RecoveryStreams, ABatchWithACycleTimeEntersWithItsMeanDuty) {
+    // The four-stream example (Linnhoff et al. 1982; Kemp 2007 ch. 2) with
+    // cold stream 3 (80 → 140 °C, 4 kW/K) heated instead as a batch: 14.4 t
+    // of the unit liquid per batch, one batch an hour, is 4 kg/s on average,
+    // so the time-averaged targets are the published ones: 20 kW hot, 60 kW
+    // cold, pinch at 90 °C hot side.
+    const Solved s1 = unitStream(20, 135, 2.0), s2 = unitStream(170, 60, 3.0), s4 = unitStream(150, 30, 1.5);
+    const Solved s3 = solveText(projectText("constant-cp", kUnitLiquid, R"({ "mass": "14.4 t" })",
+                                            R"({ "T": "80 degC", "P": "1 atm" })",
+                                            R"({ "id": "h", "kind": "heat", "to": { "T": "140 degC" } })", "closed"));
+    std::vector<RecoveryStream> streams{{"1", &s1.project, &s1.result, {}},
+                                        {"2", &s2.project, &s2.result, {}},
+                                        {"3", &s3.project, &s3.result, {}, 3600.0},
+                                        {"4", &s4.project, &s4.result, {}}};
+    auto r = recoveryTargets(streams, 10.0);
+    ASSERT_TRUE(r.ok());
+    EXPECT_TRUE(r->excluded.empty());
+    ASSERT_EQ(r->timeAveraged.size(), 1u);
+    EXPECT_EQ(r->timeAveraged[0], "3");
+    EXPECT_NEAR(r->targets.hotUtilityMin, 20e3, 1e-6);   // Linnhoff et al. 1982 / Kemp 2007 ch. 2
+    EXPECT_NEAR(r->targets.coldUtilityMin, 60e3, 1e-6);  // same source
+    ASSERT_EQ(r->targets.pinchHot.size(), 1u);
+    EXPECT_NEAR(r->targets.pinchHot[0], 90 + kC, 1e-6);  // same source
+    // Today's heating counts the batch at its mean duty: 230 + 240 kW.
+    EXPECT_NEAR(r->hotUtilityNow, 470e3, 1e-6);
+    const Json j = recoveryToJson(*r);
+    EXPECT_EQ(j["timeAveraged"][0], "3");
+
+    // Without a cycle time the batch is left out, and the reason says how to
+    // bring it in.
+    streams[2].cycleTime.reset();
+    auto without = recoveryTargets(streams, 10.0);
+    ASSERT_TRUE(without.ok());
+    ASSERT_EQ(without->excluded.size(), 1u);
+    EXPECT_NE(without->excluded[0].reason.find("cycle time"), std::string::npos);
+    EXPECT_TRUE(without->timeAveraged.empty());
+    // Law: twice the cycle time halves the batch's mean duty; the utilities
+    // still balance the streams' net heat (in: 230 + 120 kW, out: 330 + 180 kW).
+    streams[2].cycleTime = 7200.0;
+    auto slower = recoveryTargets(streams, 10.0);
+    ASSERT_TRUE(slower.ok());
+    EXPECT_NEAR(slower->hotUtilityNow, 350e3, 1e-6);
+    EXPECT_NEAR(slower->targets.hotUtilityMin - slower->targets.coldUtilityMin, 350e3 - 510e3, 1e-6);
+}
+
+TEST(RecoveryStreams, ABatchWithKnownStepTimesUsesTheirSumAsItsCycle) {
+    // One tonne of the unit liquid (cp 1 kJ/(kg K)) heated from 20 to 80 °C
+    // in a jacket of UA 2.4 kW/K against a medium held at 140 °C. A stirred
+    // batch against an isothermal medium takes t = (M c / UA) ln((Ts − T0) /
+    // (Ts − T1)) (Kern, "Process Heat Transfer", 1950, ch. 18, batch heating
+    // with an isothermal heating medium) = (1e6 / 2400) ln(120 / 60) s, and
+    // takes M c ΔT = 60 MJ a batch: its mean duty is 60 MJ over that time.
+    const Solved batch = solveText(projectText(
+        "constant-cp", kUnitLiquid, R"({ "mass": "1 t" })", R"({ "T": "20 degC", "P": "1 atm" })",
+        R"({ "id": "warm", "kind": "heat", "to": { "T": "80 degC" }, "source": { "T": "140 degC" },
+             "transfer": { "UA": "2.4 kW/K" } })",
+        "closed"));
+    ASSERT_TRUE(batch.result.totals.cycleTime);
+    const double t = 1e6 / 2400 * std::log(120.0 / 60.0);
+    EXPECT_NEAR(*batch.result.totals.cycleTime, t, 1e-3 * t);
+    const std::vector<RecoveryStream> streams{{"kettle", &batch.project, &batch.result, {}}};
+    auto r = recoveryTargets(streams, 10.0);
+    ASSERT_TRUE(r.ok());
+    EXPECT_TRUE(r->excluded.empty());
+    ASSERT_EQ(r->timeAveraged.size(), 1u);
+    EXPECT_NEAR(r->hotUtilityNow, 60e6 / t, 1e-3 * 60e6 / t);
+    // Alone, the batch's heating needs it all from a utility.
+    EXPECT_NEAR(r->targets.hotUtilityMin, r->hotUtilityNow, 1e-6 * r->hotUtilityNow);
+}

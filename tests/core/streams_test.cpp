@@ -173,6 +173,45 @@ TEST(Streams, AOneStreamFileStaysVersionOneByteForByte) {
     EXPECT_EQ(back->extra["site"], "north yard");
 }
 
+TEST(Streams, ACycleTimeIsReadCheckedAndWrittenBack) {
+    const std::string withCycle =
+        replaced(kTwoStreams, "\"dTminContribution\": \"5 K\",\n", "\"dTminContribution\": \"5 K\",\n      \"cycleTime\": \"8 h\",\n");
+    auto set = parseStreamSet(withCycle, "two.hchain");
+    ASSERT_TRUE(set.ok()) << set.error().text();
+    ASSERT_TRUE(set->streams[0].cycleTime);
+    EXPECT_DOUBLE_EQ(set->streams[0].cycleTime->si, 8 * 3600.0);  // 1 h = 3600 s
+    EXPECT_FALSE(set->streams[1].cycleTime);
+    EXPECT_EQ(writeStreamSet(*set), withCycle);
+    // Zero or a wrong dimension: refused, naming the stream.
+    for (const char* bad : {"0 h", "8 kg"}) {
+        auto refused = parseStreamSet(replaced(withCycle, "\"8 h\"", std::string("\"") + bad + "\""), "two.hchain");
+        ASSERT_FALSE(refused.ok()) << bad;
+        EXPECT_NE(refused.error().text().find("stream \"feed\", cycleTime"), std::string::npos) << refused.error().text();
+        EXPECT_GT(refused.error().line, 0);
+    }
+}
+
+TEST(Streams, AnEditOfOneStreamsSharedFieldsBecomesEveryStreams) {
+    auto set = parseStreamSet(kTwoStreams);
+    ASSERT_TRUE(set.ok()) << set.error().text();
+    Project edited = set->streams[1].project;
+    edited.meta.title = "Two lines, revised";
+    edited.displayUnits = UnitSystem::MetricEngineering;
+    edited.steps.clear();  // a stream's own fields are not shared
+    set->takeShared(edited);
+    for (const Stream& s : set->streams) {
+        EXPECT_EQ(s.project.meta.title, "Two lines, revised");
+        EXPECT_EQ(s.project.displayUnits, UnitSystem::MetricEngineering);
+        EXPECT_EQ(s.project.utilities.size(), 1u);
+    }
+    EXPECT_EQ(set->streams[1].project.steps.size(), 2u);
+    EXPECT_EQ(set->shared.extra["site"], "north yard");
+    auto back = parseStreamSet(writeStreamSet(*set));
+    ASSERT_TRUE(back.ok()) << back.error().text();
+    EXPECT_EQ(back->streams[0].project.meta.title, "Two lines, revised");
+    EXPECT_EQ(back->streams[1].project.displayUnits, UnitSystem::MetricEngineering);
+}
+
 TEST(Streams, BadVersionTwoInputNamesTheStream) {
     // Duplicate ids.
     auto dup = parseStreamSet(replaced(kTwoStreams, "\"id\": \"product\"", "\"id\": \"feed\""), "two.hchain");

@@ -114,6 +114,10 @@ struct RecoveryStream {
     const Project* project = nullptr;
     const SequenceResult* result = nullptr;
     std::optional<double> shift;  // K, the stream's dTminContribution
+    // s, a closed (batch) stream's cycle time: its duties enter averaged over
+    // it. None: the sum of its steps' times (totals.cycleTime) when they are
+    // known, else the closed stream is left out.
+    std::optional<double> cycleTime;
 };
 
 struct Excluded {
@@ -128,6 +132,9 @@ struct StreamPieces {
     double coldNow = 0;  // W, heat they give to utilities today
     double toleranceK = 0;
     double largestErrorK = 0;  // the largest temperature error left, at the pieces' middles
+    // Closed (batch) streams that entered with their duties averaged over
+    // their cycle time (ids).
+    std::vector<std::string> timeAveraged;
 };
 
 // The default for how far a straight piece may stray from the solved curve.
@@ -137,10 +144,15 @@ inline constexpr double kRecoveryToleranceK = 0.05;
 // straight pieces: the solver's curve points are joined into as few pieces
 // as keep each point within 0.9 · `toleranceK` of its piece, then a piece is
 // halved until the true temperature at its middle (from the stream's model
-// at the middle enthalpy) is within `toleranceK` of the straight line. Compress, expand and throttle steps are left out (their
-// heat is not exchanged with other streams). Closed (batch) streams and
-// streams with a step that could not be computed are excluded, with the
-// reason.
+// at the middle enthalpy) is within `toleranceK` of the straight line.
+// Compress, expand and throttle steps are left out (their heat is not
+// exchanged with other streams). Streams with a step that could not be
+// computed are excluded, with the reason. A closed (batch) stream enters
+// only with a cycle time (its own, else the sum of its steps' times when
+// they are known): each batch's heat over the cycle time, a mean
+// duty in W (its pieces are the solver's points joined within the
+// tolerance, without the check at the middles, which holds for steady flow
+// only); without one it is excluded, with the reason.
 StreamPieces piecesFromStreams(std::span<const RecoveryStream> streams, double toleranceK = kRecoveryToleranceK);
 
 // Everything `compute --json` and `targets` report.
@@ -150,6 +162,19 @@ struct Recovery {
     std::vector<Excluded> excluded;
     double toleranceK = 0, largestErrorK = 0;
     UtilityPlan utilities;  // the project's utilities placed against the grand composite
+    // Closed (batch) streams that entered time-averaged. The average
+    // overstates what can be recovered between batches: a batch's heating and
+    // another's cooling happen at the same moments only if the schedule (or
+    // a heat store) makes them.
+    std::vector<std::string> timeAveraged;
+
+    // Recoverable: today's utility use minus the target, W (never below
+    // zero: today's use has no recovery between the streams at all).
+    double recoverableHot() const { return hotUtilityNow - targets.hotUtilityMin; }
+    double recoverableCold() const { return coldUtilityNow - targets.coldUtilityMin; }
+    // recoverableHot as a fraction of today's hot utility; none when no hot
+    // utility is used today.
+    std::optional<double> recoverableHotShare() const;
 };
 
 // The worksheet's utilities as levels: steam and fixed at their temperature,
@@ -168,6 +193,11 @@ Result<Recovery> recoveryTargets(std::span<const RecoveryStream> streams, double
 // approach, with the worksheet's utilities placed as levels.
 Result<Recovery> worksheetRecovery(const StreamSet& set, std::span<const SequenceResult> results,
                                    std::optional<double> dTmin = std::nullopt);
+
+// The targets of a whole worksheet at `count` ΔTmin values evenly from
+// `from` to `to` (K): the curves are cut into pieces once.
+Result<std::vector<TargetsAtDTmin>> worksheetDTminSweep(const StreamSet& set, std::span<const SequenceResult> results,
+                                                        double from, double to, int count);
 
 // `compute --json` of a worksheet: version 1, today's object plus
 // "recovery"; several streams, { "title", "streams": [ today's object per

@@ -23,6 +23,9 @@ struct Stream {
     std::string id;                             // unique within the worksheet
     std::optional<std::string> name;            // free text for people
     std::optional<Quantity> dTminContribution;  // K; none: half the required minimum approach
+    // s; a closed (batch) stream repeats every cycleTime: its heat recovery
+    // targets take its duties averaged over that time. None: left out.
+    std::optional<Quantity> cycleTime;
     Json extra = Json::object();                // unknown stream fields, kept
     Project project;                            // the stream as a one-stream worksheet
 };
@@ -36,8 +39,11 @@ struct StreamSet {
     const Stream* find(std::string_view id) const;
     // Copies the shared fields into every stream's project (after an edit of `shared`).
     void shareFields();
+    // Takes the shared fields of `from` (a stream's project after an edit of
+    // its title, units, utilities, …) as the set's, and shares them.
+    void takeShared(const Project& from);
     // One stream written as version 1 unless it carries what version 1 cannot
-    // hold (a name or a ΔTmin contribution).
+    // hold (a name, a ΔTmin contribution or a cycle time).
     bool writesAsVersion1() const;
 };
 
