@@ -54,7 +54,8 @@ const VerbHelp kVerbs[] = {
      "atomically (\"-\": standard output). --uncertainty propagates the tolerances typed on\n"
      "quantities (\"80 degC ± 2 K\"): first order (linear, the default) or Monte Carlo.\n"},
     {"report", "  heatchain-cli report  PROJECT|- -o REPORT.pdf [--page A4|letter]\n",
-     "Writes the PDF report (A4 unless --page letter).\n"},
+     "Writes the PDF report (A4 unless --page letter). A worksheet of several streams gets an overview of\n"
+     "the streams, a heat recovery section and a part per stream.\n"},
     {"chart", "  heatchain-cli chart   PROJECT|- --ts|--tq|--time|--composite|--grand-composite [--dtmin Q] -o FILE.svg|FILE.png\n",
      "Writes the T-s chart (--ts), the T-Q chart (--tq) or a batch's temperature and duty against time\n"
      "(--time) as SVG or PNG; or, for heat recovery, the\n"
@@ -303,17 +304,25 @@ int report(const Args& a) {
         if (!size) return usage(size.error().message);
         options.pageSize = *size;
     }
-    std::optional<Project> project;
-    std::optional<SequenceResult> result;
-    if (auto rc = loadForDrawing(a.positional[0], project, result)) return *rc;
-    auto st = writeReportPdf(*project, *result, inputName(a.positional[0]), a.options.at("-o"), options);
+    // A worksheet of several streams gets its heat recovery section too.
+    auto worksheet = cli::loadWorksheetInput(a.positional[0]);
+    if (!worksheet) {
+        std::cerr << "heatchain-cli: " << worksheet.error().text() << "\n";
+        return kInvalid;
+    }
+    const std::vector<SequenceResult> results = solveStreams(*worksheet);
+    auto st = writeReportPdf(*worksheet, results, inputName(a.positional[0]), a.options.at("-o"), options);
     if (!st) {
         std::cerr << "heatchain-cli: " << st.error().text() << "\n";
         return kCannotCompute;
     }
-    if (const Error* err = result->firstError()) {
-        std::cerr << "heatchain-cli: report written, but " << err->text() << "\n";
-        return kCannotCompute;
+    for (std::size_t k = 0; k < results.size(); ++k) {
+        if (const Error* err = results[k].firstError()) {
+            std::cerr << "heatchain-cli: report written, but "
+                      << (results.size() > 1 ? "stream \"" + worksheet->streams[k].id + "\", " : std::string()) << err->text()
+                      << "\n";
+            return kCannotCompute;
+        }
     }
     return kDone;
 #else

@@ -4,7 +4,7 @@
 #include "gui_app.hpp"
 #include "heatchain/project_file.hpp"
 #include "heatchain/recovery_report.hpp"
-#include "recovery_chart.hpp"
+#include "heatchain_view/recovery_chart.hpp"
 
 namespace heatchain {
 

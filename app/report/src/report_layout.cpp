@@ -125,7 +125,8 @@ void Layout::paragraph(const QString& text, const QFont& f, const QColor& colour
     y_ += after >= 0 ? after : mm(1.5);
 }
 
-void Layout::heading(const QString& number, const QString& text, double keepWithNext) {
+void Layout::heading(const QString& numberIn, const QString& text, double keepWithNext) {
+    const QString number = numberIn.isEmpty() ? numberIn : sectionPrefix_ + numberIn;
     const QFont f = font(12, true);
     const QFontMetricsF fm(f, &writer_);
     need(mm(4) + fm.height() + mm(3) + keepWithNext);

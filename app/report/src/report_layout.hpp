@@ -77,6 +77,10 @@ public:
     void paragraph(const QString& text, const QFont& f, const QColor& colour, double indent = 0,
                    double after = -1);
     void heading(const QString& number, const QString& text, double keepWithNext);
+    // Put before every heading's number ("3." makes section 2 "3.2"): a
+    // stream's sections in the report of several streams.
+    void setSectionPrefix(const QString& prefix) { sectionPrefix_ = prefix; }
+    const QString& sectionPrefix() const { return sectionPrefix_; }
     void subheading(const QString& text, double keepWithNext);
     // A two-column grid of labels and values; value text wraps.
     void keyValues(const std::vector<std::pair<QString, QString>>& rows, double keyWidth,
@@ -104,6 +108,7 @@ private:
     QRectF page_rect_, body_;
     double y_ = 0;
     int page_ = 1;
+    QString sectionPrefix_;
 };
 
 // The chart with the report's fonts and a legend of step colours below it,

@@ -18,6 +18,7 @@
 #include "gui_app.hpp"
 #include "heatchain/project_file.hpp"
 #include "heatchain/report.hpp"
+#include "heatchain/streams.hpp"
 #include "heatchain/uncertainty.hpp"
 #include "heatchain_view/format.hpp"
 #include "heatchain_view/palette.hpp"
@@ -27,6 +28,7 @@
 #include "heatchain_view/utility_text.hpp"
 #include "report_transfer.hpp"
 #include "report_layout.hpp"
+#include "report_recovery.hpp"
 
 namespace heatchain {
 
@@ -192,7 +194,41 @@ struct Content {
     const SequenceResult& result;
     QString fileName, checksum, checksumNote, generated;
     UncertaintyOptions uncertainty;
+    // False for one stream of a worksheet of several: the worksheet's title
+    // block and cautions come once, before the streams.
+    bool titleBlock = true;
 };
+
+// The title block (shared by every stream) and the cautions box.
+void writeTitleBlock(Layout& L, const Content& c, const QStringList& cautions) {
+    const Project& p = c.project;
+    const QFont body = L.font(9);
+    const QFont label = L.font(7.5, true);
+    L.paragraph(QStringLiteral("HEATCHAIN  ·  PROCESS REPORT"), label, rink::accent(), 0, L.mm(1));
+    L.paragraph(p.meta.title.empty() ? QStringLiteral("(untitled worksheet)") : qs(p.meta.title), L.font(17, true),
+                view::ink::text(), 0, L.mm(3));
+    const QFont mono = L.mono(7.5);
+    std::vector<std::pair<QString, QString>> rows = {
+        {QStringLiteral("Author"), qs(p.meta.author)},
+        {QStringLiteral("Revision"), qs(p.meta.revision)},
+        {QStringLiteral("Created"), qs(p.meta.created)},
+        {QStringLiteral("Modified"), qs(p.meta.modified)},
+        {QStringLiteral("Worksheet file"), c.fileName},
+        {QStringLiteral("SHA-256"), c.checksum},
+    };
+    if (!c.checksumNote.isEmpty()) rows.emplace_back(QString(), c.checksumNote);
+    rows.emplace_back(QStringLiteral("Report generated"),
+                      QStringLiteral("%1 by Heatchain %2").arg(c.generated, QStringLiteral(HEATCHAIN_VERSION)));
+    for (auto& [k, v] : rows)
+        if (v.isEmpty() && !k.isEmpty()) v = QStringLiteral("–");
+    L.keyValues(rows, L.mm(32), body, &mono, 5);
+    if (!p.meta.notes.empty()) {
+        L.subheading(QStringLiteral("Notes"), L.mm(6));
+        L.paragraph(qs(p.meta.notes), body, view::ink::text());
+    }
+    L.space(L.mm(2));
+    L.box(QStringLiteral("Cautions"), cautions, rink::cautionFace(), rink::cautionEdge());
+}
 
 void writeContent(Layout& L, const Content& c) {
     const Project& p = c.project;
@@ -221,34 +257,7 @@ void writeContent(Layout& L, const Content& c) {
     const QFont body = L.font(9), small = L.font(8);
 
     // ---- Title block ----------------------------------------------------
-    {
-        const QFont label = L.font(7.5, true);
-        L.paragraph(QStringLiteral("HEATCHAIN  ·  PROCESS REPORT"), label, rink::accent(), 0, L.mm(1));
-        L.paragraph(p.meta.title.empty() ? QStringLiteral("(untitled worksheet)") : qs(p.meta.title), L.font(17, true),
-                    view::ink::text(), 0, L.mm(3));
-        const QFont mono = L.mono(7.5);
-        std::vector<std::pair<QString, QString>> rows = {
-            {QStringLiteral("Author"), qs(p.meta.author)},
-            {QStringLiteral("Revision"), qs(p.meta.revision)},
-            {QStringLiteral("Created"), qs(p.meta.created)},
-            {QStringLiteral("Modified"), qs(p.meta.modified)},
-            {QStringLiteral("Worksheet file"), c.fileName},
-            {QStringLiteral("SHA-256"), c.checksum},
-        };
-        if (!c.checksumNote.isEmpty()) rows.emplace_back(QString(), c.checksumNote);
-        rows.emplace_back(QStringLiteral("Report generated"),
-                          QStringLiteral("%1 by Heatchain %2").arg(c.generated, QStringLiteral(HEATCHAIN_VERSION)));
-        for (auto& [k, v] : rows)
-            if (v.isEmpty() && !k.isEmpty()) v = QStringLiteral("–");
-        L.keyValues(rows, L.mm(32), body, &mono, 5);
-        if (!p.meta.notes.empty()) {
-            L.subheading(QStringLiteral("Notes"), L.mm(6));
-            L.paragraph(qs(p.meta.notes), body, view::ink::text());
-        }
-    }
-
-    L.space(L.mm(2));
-    L.box(QStringLiteral("Cautions"), cautionLines(p, r), rink::cautionFace(), rink::cautionEdge());
+    if (c.titleBlock) writeTitleBlock(L, c, cautionLines(p, r));
 
     // ---- 1 Basis ------------------------------------------------------------
     L.heading(QStringLiteral("1"), QStringLiteral("Basis and surroundings"), L.mm(20));
@@ -691,7 +700,7 @@ void writeContent(Layout& L, const Content& c) {
     for (std::size_t i = 0; i < r.steps.size() && i < p.steps.size(); ++i) {
         const StepResult& s = r.steps[i];
         const Step& in = p.steps[i];
-        L.subheading(QStringLiteral("%1.%2   %3  ·  %4").arg(stepsNo).arg(i + 1).arg(qs(s.id), view::stepKindTitle(s.kind)), L.mm(30));
+        L.subheading(QStringLiteral("%1%2.%3   %4  ·  %5").arg(L.sectionPrefix(), stepsNo).arg(i + 1).arg(qs(s.id), view::stepKindTitle(s.kind)), L.mm(30));
         auto inputs = stepInputs(in);
         L.keyValues(inputs, L.mm(45), small);
         if (!s.computed) {
@@ -771,11 +780,16 @@ Status writeReportPdf(const Project& project, const SequenceResult& result, std:
     return writeReportPdf(project, result, projectFile, out, ReportOptions{});
 }
 
-Status writeReportPdf(const Project& project, const SequenceResult& result, std::string_view projectFile,
-                      const std::filesystem::path& out, const ReportOptions& options) {
-    if (auto st = report_detail::ensureGuiApplication(); !st) return st;
+namespace {
 
-    // Checksum of the file as saved, so a reviewer can tie the report to one revision.
+// The file the report is of: its name and the SHA-256 of its bytes, so a
+// reviewer can tie the report to one revision; an unsaved worksheet is
+// checksummed as it would be saved (`asSaved`), and the report says so.
+struct Source {
+    QString fileName, checksum, note, generated;
+};
+
+Source sourceOf(std::string_view projectFile, const std::string& asSaved) {
     const QString file = QString::fromUtf8(projectFile.data(), qsizetype(projectFile.size()));
     QByteArray bytes;
     QString note;
@@ -783,17 +797,19 @@ Status writeReportPdf(const Project& project, const SequenceResult& result, std:
     if (!file.isEmpty() && f.open(QIODevice::ReadOnly)) {
         bytes = f.readAll();
     } else {
-        const std::string text = writeProject(project);
-        bytes = QByteArray(text.data(), qsizetype(text.size()));
+        bytes = QByteArray(asSaved.data(), qsizetype(asSaved.size()));
         note = file.isEmpty() ? QStringLiteral("Checksum of the worksheet as it would be saved; it has no file yet.")
                               : QStringLiteral("Checksum of the worksheet as it would be saved; the file could not be read.");
     }
-    Content content{project, result,
-                    file.isEmpty() ? QStringLiteral("(not saved)") : QFileInfo(file).fileName(),
-                    QString::fromLatin1(QCryptographicHash::hash(bytes, QCryptographicHash::Sha256).toHex()), note,
-                    QDateTime::currentDateTimeUtc().toString(QStringLiteral("yyyy-MM-dd HH:mm 'UTC'")),
-                    options.uncertainty};
+    return {file.isEmpty() ? QStringLiteral("(not saved)") : QFileInfo(file).fileName(),
+            QString::fromLatin1(QCryptographicHash::hash(bytes, QCryptographicHash::Sha256).toHex()), note,
+            QDateTime::currentDateTimeUtc().toString(QStringLiteral("yyyy-MM-dd HH:mm 'UTC'"))};
+}
 
+// Lays the document out twice (a dry pass counts the pages for the footers)
+// and writes the PDF atomically.
+Status printPdf(const Meta& meta, const Source& source, const ReportOptions& options, const std::filesystem::path& out,
+                const std::function<void(Layout&)>& write) {
     QBuffer buffer;
     buffer.open(QIODevice::WriteOnly);
     {
@@ -801,22 +817,71 @@ Status writeReportPdf(const Project& project, const SequenceResult& result, std:
         writer.setPageSize(QPageSize(options.pageSize == PageSize::Letter ? QPageSize::Letter : QPageSize::A4));
         writer.setPageMargins(QMarginsF(0, 0, 0, 0));
         writer.setResolution(600);
-        writer.setTitle(qs(project.meta.title));
+        writer.setTitle(qs(meta.title));
         writer.setCreator(QStringLiteral("Heatchain %1").arg(QStringLiteral(HEATCHAIN_VERSION)));
         QPainter painter;
         if (!painter.begin(&writer)) return makeError("cannot start drawing the PDF", out.string());
-        Layout::Furniture furn{qs(project.meta.title), qs(project.meta.revision),
+        Layout::Furniture furn{qs(meta.title), qs(meta.revision),
                                QStringLiteral("Heatchain report  ·  %1  ·  SHA-256 %2…")
-                                   .arg(content.fileName, content.checksum.left(12))};
-        // Dry pass: count the pages so every footer can say "of N".
+                                   .arg(source.fileName, source.checksum.left(12))};
         Layout dry(writer, painter, /*dry=*/true, 0, furn);
-        writeContent(dry, content);
+        write(dry);
         Layout real(writer, painter, /*dry=*/false, dry.page(), furn);
-        writeContent(real, content);
+        write(real);
         painter.end();
     }
     const QByteArray pdf = buffer.data();
     return writeFileAtomically(out, std::string_view(pdf.constData(), std::size_t(pdf.size())), /*keepBackup=*/false);
+}
+
+}  // namespace
+
+Status writeReportPdf(const Project& project, const SequenceResult& result, std::string_view projectFile,
+                      const std::filesystem::path& out, const ReportOptions& options) {
+    if (auto st = report_detail::ensureGuiApplication(); !st) return st;
+    const Source source = sourceOf(projectFile, writeProject(project));
+    const Content content{project, result, source.fileName, source.checksum, source.note, source.generated,
+                          options.uncertainty};
+    return printPdf(project.meta, source, options, out, [&](Layout& L) { writeContent(L, content); });
+}
+
+Status writeReportPdf(const StreamSet& worksheet, const std::vector<SequenceResult>& results,
+                      std::string_view projectFile, const std::filesystem::path& out, const ReportOptions& options) {
+    if (worksheet.streams.empty() || results.size() != worksheet.streams.size())
+        return makeError("the worksheet's streams have not all been solved", out.string());
+    if (worksheet.streams.size() == 1)
+        return writeReportPdf(worksheet.streams.front().project, results.front(), projectFile, out, options);
+    if (auto st = report_detail::ensureGuiApplication(); !st) return st;
+    const Source source = sourceOf(projectFile, writeStreamSet(worksheet));
+    auto contentOf = [&](std::size_t k, bool titleBlock) {
+        return Content{worksheet.streams[k].project, results[k], source.fileName, source.checksum, source.note,
+                       source.generated, options.uncertainty, titleBlock};
+    };
+    return printPdf(worksheet.shared.meta, source, options, out, [&](Layout& L) {
+        // One title block and one cautions box: the general caution once,
+        // then each stream's own, named.
+        QStringList cautions;
+        for (std::size_t k = 0; k < worksheet.streams.size(); ++k) {
+            const QStringList lines = cautionLines(worksheet.streams[k].project, results[k]);
+            for (qsizetype i = 0; i < lines.size(); ++i) {
+                if (i == 0 && k == 0) cautions << lines[i];
+                if (i > 0) cautions << QStringLiteral("Stream %1: %2").arg(qs(worksheet.streams[k].id), lines[i]);
+            }
+        }
+        writeTitleBlock(L, contentOf(0, true), cautions);
+        int section = streamsSection(L, worksheet, results, 1);
+        section = heatRecoverySection(L, worksheet, results, section);
+        for (std::size_t k = 0; k < worksheet.streams.size(); ++k, ++section) {
+            const Stream& s = worksheet.streams[k];
+            L.newPage();
+            L.heading(QString::number(section),
+                      QStringLiteral("Stream %1%2").arg(qs(s.id), s.name ? QStringLiteral(" — ") + qs(*s.name) : QString()),
+                      L.mm(40));
+            L.setSectionPrefix(QString::number(section) + QLatin1Char('.'));
+            writeContent(L, contentOf(k, false));
+            L.setSectionPrefix({});
+        }
+    });
 }
 
 }  // namespace heatchain

@@ -34,6 +34,11 @@ static int decimalsFor(double tickStep) {
     return d;
 }
 
+QString tickLabel(double value, double tickStep) {
+    return QString::number(std::fabs(value) < tickStep * 1e-6 ? 0.0 : value, 'f', decimalsFor(tickStep))
+        .replace(QLatin1Char('-'), QChar(0x2212));
+}
+
 QPolygonF simplifyPolyline(const QPolygonF& line, double tolerance) {
     const qsizetype n = line.size();
     if (n < 3) return line;
@@ -301,8 +306,7 @@ void ProcessChart::drawAxes(QPainter& p, const Frame& f) const {
         p.setPen(QPen(ink::grid(), 1));
         p.drawLine(QPointF(a.x(), f.plot.top()), QPointF(a.x(), f.plot.bottom()));
         p.setPen(ink::muted());
-        const QString t = QString::number(std::fabs(x) < xs * 1e-6 ? 0.0 : x, 'f', decimalsFor(xs))
-                              .replace(QLatin1Char('-'), QChar(0x2212));
+        const QString t = tickLabel(x, xs);
         p.drawText(QRectF(a.x() - 50, f.plot.bottom() + 3, 100, fm.height()), Qt::AlignHCenter, t);
     }
     for (double y = std::ceil(f.y0 / ys) * ys; y <= f.y1 + 1e-9 * ys; y += ys) {
@@ -310,8 +314,7 @@ void ProcessChart::drawAxes(QPainter& p, const Frame& f) const {
         p.setPen(QPen(ink::grid(), 1));
         p.drawLine(QPointF(f.plot.left(), a.y()), QPointF(f.plot.right(), a.y()));
         p.setPen(ink::muted());
-        const QString t = QString::number(std::fabs(y) < ys * 1e-6 ? 0.0 : y, 'f', decimalsFor(ys))
-                              .replace(QLatin1Char('-'), QChar(0x2212));
+        const QString t = tickLabel(y, ys);
         p.drawText(QRectF(f.plot.left() - 60, a.y() - fm.height() / 2, 55, fm.height()),
                    Qt::AlignRight | Qt::AlignVCenter, t);
     }

@@ -39,11 +39,6 @@ void SweepPlot::setData(const SweepResult& result, std::vector<int> outputs, Uni
     }
 }
 
-static QString tickText(double v, double step) {
-    int d = 0;
-    for (double s = step; d < 6 && std::fabs(s - std::round(s)) > 1e-6 * std::max(1.0, std::fabs(s)); s *= 10) ++d;
-    return QString::number(std::fabs(v) < step * 1e-6 ? 0.0 : v, 'f', d).replace(QLatin1Char('-'), QChar(0x2212));
-}
 
 void SweepPlot::paint(QPainter& p, const QRectF& rect) const {
     p.save();
@@ -85,7 +80,7 @@ void SweepPlot::paint(QPainter& p, const QRectF& rect) const {
             p.drawLine(QPointF(plot.left(), mapY(y)), QPointF(plot.right(), mapY(y)));
             p.setPen(ink::muted());
             p.drawText(QRectF(rect.left(), mapY(y) - fm.height() / 2, 60, fm.height()),
-                       Qt::AlignRight | Qt::AlignVCenter, tickText(y, ys));
+                       Qt::AlignRight | Qt::AlignVCenter, tickLabel(y, ys));
         }
         for (double x = std::ceil(x0 / xs) * xs; x <= x1 + 1e-9 * xs; x += xs) {
             p.setPen(QPen(ink::grid(), 1));
@@ -93,7 +88,7 @@ void SweepPlot::paint(QPainter& p, const QRectF& rect) const {
             if (k + 1 == panels_.size()) {
                 p.setPen(ink::muted());
                 p.drawText(QRectF(mapX(x) - 45, plot.bottom() + 3, 90, fm.height()), Qt::AlignHCenter,
-                           tickText(x, xs));
+                           tickLabel(x, xs));
             }
         }
         p.setPen(QPen(ink::axis(), 1));

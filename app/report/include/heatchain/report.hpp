@@ -7,10 +7,12 @@
 #include <filesystem>
 #include <string>
 #include <string_view>
+#include <vector>
 
 #include "heatchain/project.hpp"
 #include "heatchain/result.hpp"
 #include "heatchain/solver.hpp"
+#include "heatchain/streams.hpp"
 
 namespace heatchain {
 
@@ -34,6 +36,15 @@ Status writeReportPdf(const Project& project, const SequenceResult& result,
 Status writeReportPdf(const Project& project, const SequenceResult& result,
                       std::string_view projectFile, const std::filesystem::path& out,
                       const ReportOptions& options);
+// A worksheet of several streams (`results` solved from it, one a stream):
+// the title block and cautions once, an overview of the streams, the heat
+// recovery section (targets, composite and grand composite curves, targets
+// against ΔTmin, problem table), then each stream as the one-stream report
+// has it, its sections numbered under the stream's. One stream: exactly the
+// one-stream report.
+Status writeReportPdf(const StreamSet& worksheet, const std::vector<SequenceResult>& results,
+                      std::string_view projectFile, const std::filesystem::path& out,
+                      const ReportOptions& options = {});
 
 // TemperatureTime: a batch's temperature and duty against time (closed
 // systems with batch times; otherwise a chart that says there are none).

@@ -131,5 +131,8 @@ QPolygonF simplifyPolyline(const QPolygonF& line, double tolerance);
 
 // Round tick spacing for a span shown with about `count` ticks.
 double niceTickStep(double span, int count);
+// A tick's label: as many decimals as the step needs (2.5 → one), a
+// typographic minus, and no "−0".
+QString tickLabel(double value, double tickStep);
 
 }  // namespace heatchain::view
