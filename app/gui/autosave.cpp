@@ -11,6 +11,7 @@
 #include <filesystem>
 
 #include "heatchain/project_file.hpp"
+#include "heatchain/streams.hpp"
 
 namespace heatchain::gui {
 
@@ -31,8 +32,8 @@ QString AutosaveStore::path(const QString& session, const char* ext) const {
     return folder_ + QLatin1Char('/') + session + QLatin1String(ext);
 }
 
-Status AutosaveStore::write(const Project& project, const QString& originalPath) {
-    const std::string bytes = writeProject(project);
+Status AutosaveStore::write(const StreamSet& worksheet, const QString& originalPath) {
+    const std::string bytes = writeStreamSet(worksheet);
     if (bytes == lastBytes_) return Ok{};
     if (!QDir().mkpath(folder_)) return makeError("cannot create the autosave folder", folder_.toStdString());
     if (!lock_) {
@@ -48,7 +49,7 @@ Status AutosaveStore::write(const Project& project, const QString& originalPath)
     }
     if (auto st = writeFileAtomically(fsPath(path(session_, ".hchain")), bytes, /*keepBackup=*/false); !st) return st;
     QJsonObject side{{QStringLiteral("original"), originalPath},
-                     {QStringLiteral("title"), QString::fromStdString(project.meta.title)},
+                     {QStringLiteral("title"), QString::fromStdString(worksheet.shared.meta.title)},
                      {QStringLiteral("saved"), QDateTime::currentDateTimeUtc().toString(Qt::ISODateWithMs)}};
     const QByteArray json = QJsonDocument(side).toJson();
     if (auto st = writeFileAtomically(fsPath(path(session_, ".json")), std::string_view(json.constData(), std::size_t(json.size())),
@@ -92,7 +93,7 @@ QList<AutosaveEntry> AutosaveStore::orphans() const {
     return out;
 }
 
-Result<Project> AutosaveStore::load(const AutosaveEntry& entry) { return loadProject(fsPath(entry.worksheetFile)); }
+Result<StreamSet> AutosaveStore::load(const AutosaveEntry& entry) { return loadStreamSet(fsPath(entry.worksheetFile)); }
 
 void AutosaveStore::discard(const AutosaveEntry& entry) {
     const QString base = QFileInfo(entry.worksheetFile).path() + QLatin1Char('/') + entry.session;

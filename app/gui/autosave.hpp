@@ -17,6 +17,7 @@
 #include <string>
 
 #include "heatchain/project.hpp"
+#include "heatchain/streams.hpp"
 #include "heatchain/result.hpp"
 
 namespace heatchain::gui {
@@ -44,14 +45,14 @@ public:
 
     // Writes the worksheet and its side file atomically. Writes nothing when
     // the bytes equal the last autosave of this session.
-    Status write(const Project& project, const QString& originalPath);
+    Status write(const StreamSet& worksheet, const QString& originalPath);
     bool hasAutosave() const { return !lastBytes_.empty(); }
     // Removes this session's autosave (clean close, or nothing left to lose).
     void remove();
 
     // Autosaves of sessions that are not running, newest first.
     QList<AutosaveEntry> orphans() const;
-    static Result<Project> load(const AutosaveEntry& entry);
+    static Result<StreamSet> load(const AutosaveEntry& entry);
     static void discard(const AutosaveEntry& entry);
 
 private:

@@ -23,6 +23,8 @@ using namespace heatchain::view;
 
 namespace {
 constexpr double kCardW = 212, kCardH = 146, kGapX = 44, kGapY = 46, kMargin = 20;
+// Several streams: each lane starts with a header strip naming its stream.
+constexpr double kLaneHeaderH = 30;
 QString qs(const std::string& s) { return QString::fromStdString(s); }
 }  // namespace
 
@@ -30,7 +32,7 @@ QString qs(const std::string& s) { return QString::fromStdString(s); }
 // One card. Holds ready-made strings so painting stays cheap on big sheets.
 class StepCard : public QGraphicsItem {
 public:
-    StepCard(ChainView* view, int index) : view_(view), index_(index) {
+    StepCard(ChainView* view, int lane, int index) : view_(view), lane_(lane), index_(index) {
         setFlag(ItemIsMovable, index >= 0);
         setFlag(ItemSendsGeometryChanges, index >= 0);
         setAcceptHoverEvents(true);
@@ -42,6 +44,7 @@ public:
     QRectF boundingRect() const override { return {-2, -2, kCardW + 4, kCardH + 4}; }
 
     int index() const { return index_; }
+    int lane() const { return lane_; }
     QColor colour() const { return colour_; }
     void setSelectedCard(bool on) {
         if (selected_ != on) {
@@ -89,7 +92,7 @@ public:
     void setStep(const Project& p, const SequenceResult& r, int i) {
         const Step& s = p.steps[std::size_t(i)];
         kind_ = s.kind;
-        colour_ = view_->stepColourOf(i);
+        colour_ = view_->stepColourOf(lane_, i);
         accent_ = familyAccent(kindFamily(s.kind));
         heading_ = QStringLiteral("%1  ·  %2").arg(i + 1).arg(stepKindTitle(s.kind));
         title_ = qs(s.id);
@@ -241,7 +244,7 @@ public:
 
 protected:
     void mousePressEvent(QGraphicsSceneMouseEvent* e) override {
-        view_->cardPressed(index_);
+        view_->cardPressed(lane_, index_);
         pressPos_ = pos();
         if (index_ >= 0) setCursor(Qt::ClosedHandCursor);
         setZValue(10);
@@ -253,7 +256,7 @@ protected:
         if (index_ < 0) return;
         setCursor(Qt::OpenHandCursor);
         if ((pos() - pressPos_).manhattanLength() > 12)
-            view_->cardDropped(index_, sceneBoundingRect().center());
+            view_->cardDropped(lane_, index_, sceneBoundingRect().center());
         else
             setPos(pressPos_);
     }
@@ -263,11 +266,11 @@ protected:
     }
     QVariant itemChange(GraphicsItemChange change, const QVariant& value) override {
         if (change == ItemPositionHasChanged && isUnderMouse() && index_ >= 0 && zValue() > 0)
-            view_->cardDragged(index_, sceneBoundingRect().center());
+            view_->cardDragged(lane_, index_, sceneBoundingRect().center());
         return QGraphicsItem::itemChange(change, value);
     }
     void contextMenuEvent(QGraphicsSceneContextMenuEvent* e) override {
-        view_->cardPressed(index_);
+        view_->cardPressed(lane_, index_);
         if (index_ >= 0) view_->showCardMenu(index_, e->screenPos());
         else view_->showAddMenu(0, e->screenPos());
         e->accept();
@@ -294,6 +297,7 @@ private:
     }
 
     ChainView* view_;
+    int lane_;
     int index_;
     bool selected_ = false;
     QPointF pressPos_;
@@ -349,7 +353,7 @@ private:
 // A small "+" on each arrow: click to insert a step there.
 class InsertHandle : public QGraphicsItem {
 public:
-    InsertHandle(ChainView* view, int insertIndex) : view_(view), index_(insertIndex) {
+    InsertHandle(ChainView* view, int lane, int insertIndex) : view_(view), lane_(lane), index_(insertIndex) {
         setAcceptHoverEvents(true);
         setCursor(Qt::PointingHandCursor);
         setToolTip(QStringLiteral("Insert a step here"));
@@ -370,14 +374,95 @@ protected:
     void hoverEnterEvent(QGraphicsSceneHoverEvent*) override { hover_ = true; update(); }
     void hoverLeaveEvent(QGraphicsSceneHoverEvent*) override { hover_ = false; update(); }
     void mousePressEvent(QGraphicsSceneMouseEvent* e) override {
+        view_->lanePressed(lane_, index_ - 1);
         view_->showAddMenu(index_, e->screenPos());
         e->accept();
     }
 
 private:
     ChainView* view_;
+    int lane_;
     int index_;
     bool hover_ = false;
+};
+
+// A stream's lane, behind its cards: a header strip with the stream's id,
+// name and material, and a band that marks the current stream.
+class LaneItem : public QGraphicsItem {
+public:
+    LaneItem(ChainView* view, int lane) : view_(view), lane_(lane) {
+        setZValue(-1);
+        setCacheMode(DeviceCoordinateCache);
+    }
+    QRectF boundingRect() const override { return rect_.adjusted(-2, -2, 2, 2); }
+    void setGeometry(const QRectF& r) {
+        if (r == rect_) return;
+        prepareGeometryChange();
+        rect_ = r;
+        update();
+    }
+    void setText(const QString& id, const QString& rest, const QString& tip) {
+        if (id == id_ && rest == rest_) return;
+        id_ = id;
+        rest_ = rest;
+        setToolTip(tip);
+        update();
+    }
+    void setCurrent(bool on) {
+        if (on == current_) return;
+        current_ = on;
+        update();
+    }
+    // The header's text starts at the left edge of what the view shows, so
+    // the stream stays named while its row is scrolled sideways.
+    void setTextLeft(double sceneX) {
+        const double x = std::max(0.0, sceneX - rect_.left());
+        if (std::fabs(x - textLeft_) < 0.5) return;
+        textLeft_ = x;
+        update();
+    }
+    QString label() const { return rest_.isEmpty() ? id_ : id_ + QStringLiteral(" — ") + rest_; }
+    bool isCurrent() const { return current_; }
+    void paint(QPainter* p, const QStyleOptionGraphicsItem*, QWidget*) override {
+        p->setRenderHint(QPainter::Antialiasing, true);
+        p->setPen(QPen(current_ ? QColor(0x9d, 0xb7, 0xd8) : QColor(0xd6, 0xda, 0xdf), current_ ? 1.4 : 1));
+        p->setBrush(current_ ? QColor(0xe6, 0xee, 0xf8) : QColor(0xf6, 0xf7, 0xf8));
+        p->drawRoundedRect(rect_, 8, 8);
+        const double shift = std::min(textLeft_, std::max(0.0, rect_.width() - 200));
+        const QRectF strip(rect_.left() + 12 + shift, rect_.top() + 4, rect_.width() - 24 - shift, kLaneHeaderH - 8);
+        QFont f = p->font();
+        QFont bold = f;
+        bold.setBold(true);
+        p->setFont(bold);
+        p->setPen(current_ ? ink::selection().darker(130) : ink::text());
+        const QFontMetricsF fb(bold);
+        const QString idText = id_;
+        p->drawText(strip, Qt::AlignLeft | Qt::AlignVCenter, idText);
+        p->setFont(f);
+        p->setPen(ink::muted());
+        const double x = fb.horizontalAdvance(idText) + 12;
+        p->drawText(strip.adjusted(x, 0, 0, 0), Qt::AlignLeft | Qt::AlignVCenter,
+                    QFontMetricsF(f).elidedText(rest_, Qt::ElideRight, strip.width() - x));
+    }
+
+protected:
+    void mousePressEvent(QGraphicsSceneMouseEvent* e) override {
+        view_->lanePressed(lane_, -1);
+        e->accept();
+    }
+    void contextMenuEvent(QGraphicsSceneContextMenuEvent* e) override {
+        view_->lanePressed(lane_, -1);
+        view_->showLaneMenu(lane_, e->screenPos());
+        e->accept();
+    }
+
+private:
+    ChainView* view_;
+    int lane_;
+    QRectF rect_;
+    QString id_, rest_;
+    bool current_ = false;
+    double textLeft_ = 0;
 };
 
 // ---------------------------------------------------------------------------
@@ -399,141 +484,295 @@ ChainView::ChainView(ProjectDocument* doc, QWidget* parent) : QGraphicsView(pare
     rebuild();
 }
 
+ChainView::~ChainView() { lanes_.clear(); }
+
 int ChainView::columns() const {
     const double width = viewport()->width() / zoom_ - 2 * kMargin + kGapX;
     return std::max(1, int(width / (kCardW + kGapX)));
 }
 
-QPointF ChainView::slotPos(int slot) const {
-    const int row = slot / cols_, col = slot % cols_;
-    return {kMargin + col * (kCardW + kGapX), kMargin + row * (kCardH + kGapY)};
+bool ChainView::hasLanes() const { return lanes_.size() > 1; }
+
+QPointF ChainView::slotPos(int slot) const { return slotPos(doc_->currentStream(), slot); }
+
+int ChainView::wrapColumns() const {
+    // Several streams: each lane is one row, scrolled sideways, so the
+    // streams stay one above the other.
+    return hasLanes() ? (1 << 20) : cols_;
+}
+
+QPointF ChainView::slotPos(int lane, int slot) const {
+    const int cols = wrapColumns();
+    const int row = slot / cols, col = slot % cols;
+    const double top = lane >= 0 && lane < int(lanes_.size()) ? lanes_[std::size_t(lane)].top : 0;
+    const double header = hasLanes() ? kLaneHeaderH : 0;
+    return {kMargin + col * (kCardW + kGapX), top + header + kMargin + row * (kCardH + kGapY)};
+}
+
+ChainView::Lane& ChainView::currentLane() { return lanes_[std::size_t(doc_->currentStream())]; }
+const ChainView::Lane& ChainView::currentLane() const { return lanes_[std::size_t(doc_->currentStream())]; }
+
+void ChainView::removeLane(Lane& lane) {
+    delete lane.item;
+    delete lane.start;
+    for (StepCard* c : lane.cards) delete c;
+    for (InsertHandle* h : lane.handles) delete h;
+    lane = Lane{};
 }
 
 void ChainView::rebuild() {
-    const Project& p = doc_->project();
-    const SequenceResult& r = doc_->result();
-    if (!startCard_) {
-        startCard_ = new StepCard(this, -1);
-        scene_.addItem(startCard_);
+    const StreamSet& set = doc_->streams();
+    const std::vector<SequenceResult>& results = doc_->results();
+    const int lanes = int(set.streams.size());
+    while (int(lanes_.size()) > lanes) {
+        removeLane(lanes_.back());
+        lanes_.pop_back();
     }
-    startCard_->setStart(p, r);
-    const int n = int(p.steps.size());
-    // Reuse cards: an edit on a big sheet repaints, it does not rebuild.
-    while (int(cards_.size()) > n) {
-        delete cards_.back();
-        cards_.pop_back();
-        delete handles_.back();
-        handles_.pop_back();
+    while (int(lanes_.size()) < lanes) lanes_.emplace_back();
+    for (int k = 0; k < lanes; ++k) {
+        Lane& lane = lanes_[std::size_t(k)];
+        const Stream& stream = set.streams[std::size_t(k)];
+        const Project& p = stream.project;
+        const SequenceResult& r = results[std::size_t(k)];
+        // One stream: the canvas is the chain alone, as it always was.
+        if (lanes > 1 && !lane.item) {
+            lane.item = new LaneItem(this, k);
+            scene_.addItem(lane.item);
+        } else if (lanes == 1 && lane.item) {
+            delete lane.item;
+            lane.item = nullptr;
+        }
+        if (lane.item) {
+            const QString material = qs(p.substance.name.empty() ? p.substanceId : p.substance.name);
+            const QString system = p.system == SystemKind::Closed ? tr("closed batch") : tr("steady flow");
+            QString rest = stream.name ? qs(*stream.name) + QStringLiteral("  ·  ") : QString();
+            rest += material + QStringLiteral(" · ") + system;
+            lane.item->setText(qs(stream.id), rest,
+                               tr("Stream %1 (%2 of %3): %4. Click to show it in the step panel, ledger and charts; "
+                                  "right-click for the stream's menu.")
+                                   .arg(qs(stream.id)).arg(k + 1).arg(lanes).arg(rest.toHtmlEscaped()));
+        }
+        if (!lane.start) {
+            lane.start = new StepCard(this, k, -1);
+            scene_.addItem(lane.start);
+        }
+        lane.start->setStart(p, r);
+        const int n = int(p.steps.size());
+        // Reuse cards: an edit on a big sheet repaints, it does not rebuild.
+        while (int(lane.cards.size()) > n) {
+            delete lane.cards.back();
+            lane.cards.pop_back();
+            delete lane.handles.back();
+            lane.handles.pop_back();
+        }
+        while (int(lane.cards.size()) < n) {
+            auto* c = new StepCard(this, k, int(lane.cards.size()));
+            scene_.addItem(c);
+            lane.cards.push_back(c);
+            auto* h = new InsertHandle(this, k, int(lane.handles.size()));
+            scene_.addItem(h);
+            lane.handles.push_back(h);
+        }
+        for (int i = 0; i < n; ++i) lane.cards[std::size_t(i)]->setStep(p, r, i);
     }
-    while (int(cards_.size()) < n) {
-        auto* c = new StepCard(this, int(cards_.size()));
-        scene_.addItem(c);
-        cards_.push_back(c);
-        auto* h = new InsertHandle(this, int(handles_.size()));
-        scene_.addItem(h);
-        handles_.push_back(h);
-    }
-    for (int i = 0; i < n; ++i) cards_[std::size_t(i)]->setStep(p, r, i);
     layoutCards();
     updateSelection();
 }
 
 void ChainView::layoutCards() {
     cols_ = columns();
-    startCard_->setPos(slotPos(0));
     std::vector<QPolygonF> paths;
-    for (std::size_t i = 0; i < cards_.size(); ++i) {
-        const int slot = int(i) + 1;
-        cards_[i]->setPos(slotPos(slot));
-        const QPointF from = slotPos(slot - 1), to = slotPos(slot);
-        QPolygonF poly;
-        QPointF mid;
-        if (std::fabs(from.y() - to.y()) < 1) {
-            poly << QPointF(from.x() + kCardW, from.y() + kCardH / 2) << QPointF(to.x() - 2, to.y() + kCardH / 2);
-            mid = (poly[0] + poly[1]) / 2;
-        } else {
-            // Down from the row's last card, back left, down into the next row.
-            const double yMid = from.y() + kCardH + kGapY / 2;
-            poly << QPointF(from.x() + kCardW / 2, from.y() + kCardH) << QPointF(from.x() + kCardW / 2, yMid)
-                 << QPointF(to.x() + kCardW / 2, yMid) << QPointF(to.x() + kCardW / 2, to.y() - 2);
-            mid = QPointF(from.x() + kCardW / 2, yMid);
+    double widest = kMargin * 2 + cols_ * (kCardW + kGapX) - kGapX;
+    if (hasLanes()) {
+        std::size_t longest = 0;
+        for (const Lane& lane : lanes_) longest = std::max(longest, lane.cards.size());
+        widest = std::max(widest, kMargin * 2 + double(longest + 1) * (kCardW + kGapX) - kGapX);
+    }
+    double top = 0;
+    for (std::size_t k = 0; k < lanes_.size(); ++k) {
+        Lane& lane = lanes_[k];
+        lane.top = top;
+        const int lk = int(k);
+        lane.start->setPos(slotPos(lk, 0));
+        for (std::size_t i = 0; i < lane.cards.size(); ++i) {
+            const int slot = int(i) + 1;
+            lane.cards[i]->setPos(slotPos(lk, slot));
+            const QPointF from = slotPos(lk, slot - 1), to = slotPos(lk, slot);
+            QPolygonF poly;
+            QPointF mid;
+            if (std::fabs(from.y() - to.y()) < 1) {
+                poly << QPointF(from.x() + kCardW, from.y() + kCardH / 2) << QPointF(to.x() - 2, to.y() + kCardH / 2);
+                mid = (poly[0] + poly[1]) / 2;
+            } else {
+                // Down from the row's last card, back left, down into the next row.
+                const double yMid = from.y() + kCardH + kGapY / 2;
+                poly << QPointF(from.x() + kCardW / 2, from.y() + kCardH) << QPointF(from.x() + kCardW / 2, yMid)
+                     << QPointF(to.x() + kCardW / 2, yMid) << QPointF(to.x() + kCardW / 2, to.y() - 2);
+                mid = QPointF(from.x() + kCardW / 2, yMid);
+            }
+            paths.push_back(poly);
+            lane.handles[i]->setPos(mid);
+            lane.handles[i]->setInsertIndex(int(i));
         }
-        paths.push_back(poly);
-        handles_[i]->setPos(mid);
-        handles_[i]->setInsertIndex(int(i));
+        const double rows = std::ceil(double(lane.cards.size() + 1) / wrapColumns());
+        const QPointF last = slotPos(lk, int(lane.cards.size()));
+        widest = std::max(widest, last.x() + kCardW + kMargin);
+        if (lane.item) {
+            const double height = kLaneHeaderH + kMargin + rows * (kCardH + kGapY) - kGapY + 14;
+            lane.item->setGeometry(QRectF(kMargin / 2, top + 6, widest - kMargin, height - 6));
+            top += height + 8;
+        } else {
+            top += kMargin * 2 + rows * (kCardH + kGapY);
+        }
     }
     connectors_->setPaths(std::move(paths));
-    const QPointF last = slotPos(int(cards_.size()));
-    const double rows = std::ceil(double(cards_.size() + 1) / cols_);
-    scene_.setSceneRect(0, 0, std::max(kMargin * 2 + cols_ * (kCardW + kGapX), last.x() + kCardW + kMargin),
-                        kMargin * 2 + rows * (kCardH + kGapY));
+    scene_.setSceneRect(0, 0, widest, top + (hasLanes() ? kMargin : 0));
+    placeLaneText();
+}
+
+void ChainView::placeLaneText() {
+    const double left = mapToScene(viewport()->rect().topLeft()).x();
+    for (Lane& lane : lanes_)
+        if (lane.item) lane.item->setTextLeft(left);
+}
+
+void ChainView::scrollContentsBy(int dx, int dy) {
+    QGraphicsView::scrollContentsBy(dx, dy);
+    if (dx != 0) placeLaneText();
 }
 
 void ChainView::updateSelection() {
     const int sel = doc_->selectedStep();
-    for (std::size_t i = 0; i < cards_.size(); ++i) cards_[i]->setSelectedCard(int(i) == sel);
-    // No step selected: the Start card is what the step panel edits.
-    startCard_->setSelectedCard(sel < 0);
-    if (sel >= 0 && sel < int(cards_.size())) ensureVisible(cards_[std::size_t(sel)], 20, 20);
+    const int current = doc_->currentStream();
+    for (std::size_t k = 0; k < lanes_.size(); ++k) {
+        Lane& lane = lanes_[k];
+        const bool here = int(k) == current;
+        for (std::size_t i = 0; i < lane.cards.size(); ++i) lane.cards[i]->setSelectedCard(here && int(i) == sel);
+        // No step selected: the Start card is what the step panel edits.
+        lane.start->setSelectedCard(here && sel < 0);
+        if (lane.item) lane.item->setCurrent(here);
+    }
+    if (lanes_.empty()) return;
+    const Lane& lane = currentLane();
+    if (sel >= 0 && sel < int(lane.cards.size())) ensureVisible(lane.cards[std::size_t(sel)], 20, 20);
+    else if (hasLanes()) ensureVisible(lane.start, 20, 20);
+}
+
+int ChainView::cardCount() const { return lanes_.empty() ? 0 : int(currentLane().cards.size()); }
+int ChainView::laneCount() const { return int(lanes_.size()); }
+int ChainView::laneCardCount(int lane) const {
+    return lane >= 0 && lane < laneCount() ? int(lanes_[std::size_t(lane)].cards.size()) : 0;
+}
+QString ChainView::laneLabel(int lane) const {
+    if (lane < 0 || lane >= laneCount() || !lanes_[std::size_t(lane)].item) return {};
+    return lanes_[std::size_t(lane)].item->label();
+}
+bool ChainView::laneMarkedCurrent(int lane) const {
+    return lane >= 0 && lane < laneCount() && lanes_[std::size_t(lane)].item && lanes_[std::size_t(lane)].item->isCurrent();
 }
 
 CardEmphasis ChainView::cardEmphasis(int index) const {
-    if (index == -1 && startCard_) return startCard_->emphasis();
-    if (index < 0 || index >= int(cards_.size())) return {};
-    return cards_[std::size_t(index)]->emphasis();
+    if (lanes_.empty()) return {};
+    const Lane& lane = currentLane();
+    if (index == -1) return lane.start->emphasis();
+    if (index < 0 || index >= int(lane.cards.size())) return {};
+    return lane.cards[std::size_t(index)]->emphasis();
 }
 
 QColor ChainView::cardColour(int index) const {
-    if (index < 0 || index >= int(cards_.size())) return {};
-    return cards_[std::size_t(index)]->colour();
+    if (lanes_.empty()) return {};
+    const Lane& lane = currentLane();
+    if (index < 0 || index >= int(lane.cards.size())) return {};
+    return lane.cards[std::size_t(index)]->colour();
 }
 
-QRectF ChainView::cardRect(int index) const {
-    if (index == -1 && startCard_) return startCard_->sceneBoundingRect();
-    if (index < 0 || index >= int(cards_.size())) return {};
-    return cards_[std::size_t(index)]->sceneBoundingRect();
+QRectF ChainView::cardRect(int index) const { return cardRect(doc_->currentStream(), index); }
+
+QRectF ChainView::cardRect(int laneIndex, int index) const {
+    if (laneIndex < 0 || laneIndex >= laneCount()) return {};
+    const Lane& lane = lanes_[std::size_t(laneIndex)];
+    if (index == -1) return lane.start->sceneBoundingRect();
+    if (index < 0 || index >= int(lane.cards.size())) return {};
+    return lane.cards[std::size_t(index)]->sceneBoundingRect();
 }
 
 int ChainView::dropIndex(int from, QPointF c) const {
-    const int n = int(cards_.size());
-    const int row = std::max(0, int(std::floor((c.y() - kMargin + kGapY / 2) / (kCardH + kGapY))));
-    const int col = std::clamp(int(std::floor((c.x() - kMargin + kGapX / 2 + kCardW / 2) / (kCardW + kGapX))), 0, cols_);
+    const int n = cardCount();
+    const QPointF origin = slotPos(0) - QPointF(kMargin, kMargin);  // the current lane's first row
+    const double y = c.y() - origin.y();
+    const int row = std::max(0, int(std::floor((y - kMargin + kGapY / 2) / (kCardH + kGapY))));
+    const int cols = hasLanes() ? n + 1 : cols_;
+    const int col = std::clamp(int(std::floor((c.x() - kMargin + kGapX / 2 + kCardW / 2) / (kCardW + kGapX))), 0, cols);
     // The card goes before this slot; slot 0 is the start card.
-    const int slot = row * cols_ + col;
+    const int slot = (hasLanes() ? 0 : row) * cols + col;
     const int before = std::clamp(slot - 1, 0, n);
     const int to = before > from ? before - 1 : before;
     return std::clamp(to, 0, n - 1);
 }
 
-void ChainView::cardPressed(int index) {
+void ChainView::cardPressed(int lane, int index) {
     setFocus();
-    doc_->setSelectedStep(index);
+    doc_->setCurrentStream(lane, index);
 }
 
-void ChainView::cardDragged(int index, QPointF centre) {
+void ChainView::lanePressed(int lane, int step) {
+    if (lane != doc_->currentStream()) doc_->setCurrentStream(lane, step);
+}
+
+void ChainView::cardDragged(int lane, int index, QPointF centre) {
+    if (lane != doc_->currentStream()) return;
     const int to = dropIndex(index, centre);
     const int slot = (to > index ? to + 1 : to) + 1;  // card slot the marker stands before
-    const QPointF pos = slotPos(std::min(slot, int(cards_.size()) + 1));
+    const QPointF pos = slotPos(std::min(slot, cardCount() + 1));
     dropMarker_->setRect(QRectF(pos.x() - kGapX / 2 - 2, pos.y(), 4, kCardH));
     dropMarker_->setVisible(to != index);
 }
 
-void ChainView::cardDropped(int index, QPointF centre) {
+void ChainView::cardDropped(int lane, int index, QPointF centre) {
     dropMarker_->hide();
-    const int to = dropIndex(index, centre);
+    const int to = lane == doc_->currentStream() ? dropIndex(index, centre) : index;
     if (to != index) emit moveRequested(index, to);
     else layoutCards();
 }
 
 // Menu choices act once the menu and the item that opened it are done with
 // their events: the edit may delete that very item.
+void ChainView::later(std::function<void()> f) { QTimer::singleShot(0, this, std::move(f)); }
+
+void ChainView::addStepKinds(QMenu* menu, int insertIndex) {
+    for (StepKind k : allStepKinds()) {
+        QAction* a = menu->addAction(stepIcon(k), stepKindTitle(k));
+        connect(a, &QAction::triggered, this, [this, insertIndex, k] { later([=, this] { emit addRequested(insertIndex, k); }); });
+    }
+}
+
 void ChainView::showAddMenu(int insertIndex, QPoint screenPos) {
     QMenu menu(this);
     menu.addSection(tr("Insert step %1").arg(insertIndex + 1));
-    for (StepKind k : allStepKinds()) {
-        QAction* a = menu.addAction(stepIcon(k), stepKindTitle(k));
-        connect(a, &QAction::triggered, this, [this, insertIndex, k] { QTimer::singleShot(0, this, [=, this] { emit addRequested(insertIndex, k); }); });
-    }
+    addStepKinds(&menu, insertIndex);
+    menu.exec(screenPos);
+}
+
+void ChainView::showLaneMenu(int lane, QPoint screenPos) {
+    QMenu menu(this);
+    const int n = laneCount();
+    const QString id = qs(doc_->streams().streams[std::size_t(lane)].id);
+    menu.addSection(tr("Stream %1").arg(id));
+    addStepKinds(menu.addMenu(tr("Add step at the end")), laneCardCount(lane));
+    menu.addSeparator();
+    connect(menu.addAction(tr("Rename stream…")), &QAction::triggered, this,
+            [this, lane] { later([=, this] { emit renameStreamRequested(lane); }); });
+    QAction* up = menu.addAction(tr("Move stream up"));
+    up->setEnabled(lane > 0);
+    connect(up, &QAction::triggered, this, [this, lane] { later([=, this] { emit moveStreamRequested(lane, lane - 1); }); });
+    QAction* down = menu.addAction(tr("Move stream down"));
+    down->setEnabled(lane + 1 < n);
+    connect(down, &QAction::triggered, this, [this, lane] { later([=, this] { emit moveStreamRequested(lane, lane + 1); }); });
+    menu.addSeparator();
+    connect(menu.addAction(tr("Add stream…")), &QAction::triggered, this, [this] { later([this] { emit addStreamRequested(); }); });
+    QAction* remove = menu.addAction(tr("Remove stream %1").arg(id));
+    remove->setEnabled(n > 1);
+    connect(remove, &QAction::triggered, this, [this, lane] { later([=, this] { emit removeStreamRequested(lane); }); });
     menu.exec(screenPos);
 }
 
@@ -541,22 +780,31 @@ void ChainView::showCardMenu(int index, QPoint screenPos) {
     QMenu menu(this);
     QMenu* before = menu.addMenu(tr("Insert before"));
     QMenu* after = menu.addMenu(tr("Insert after"));
-    for (StepKind k : allStepKinds()) {
-        connect(before->addAction(stepIcon(k), stepKindTitle(k)), &QAction::triggered, this,
-                [this, index, k] { QTimer::singleShot(0, this, [=, this] { emit addRequested(index, k); }); });
-        connect(after->addAction(stepIcon(k), stepKindTitle(k)), &QAction::triggered, this,
-                [this, index, k] { QTimer::singleShot(0, this, [=, this] { emit addRequested(index + 1, k); }); });
-    }
+    addStepKinds(before, index);
+    addStepKinds(after, index + 1);
     menu.addSeparator();
-    connect(menu.addAction(tr("Duplicate")), &QAction::triggered, this, [this, index] { QTimer::singleShot(0, this, [=, this] { emit duplicateRequested(index); }); });
+    connect(menu.addAction(tr("Duplicate")), &QAction::triggered, this, [this, index] { later([=, this] { emit duplicateRequested(index); }); });
+    // Copy to another stream of the worksheet (the same step, added at its end).
+    if (laneCount() > 1) {
+        QMenu* copyTo = menu.addMenu(tr("Copy to stream"));
+        const StreamSet& set = doc_->streams();
+        for (int k = 0; k < laneCount(); ++k) {
+            if (k == doc_->currentStream()) continue;
+            const Stream& s = set.streams[std::size_t(k)];
+            QString label = qs(s.id);
+            if (s.name) label += QStringLiteral(" — ") + qs(*s.name);
+            connect(copyTo->addAction(label), &QAction::triggered, this,
+                    [this, index, k] { later([=, this] { emit copyStepRequested(index, k); }); });
+        }
+    }
     QAction* earlier = menu.addAction(tr("Move earlier"));
     earlier->setEnabled(index > 0);
-    connect(earlier, &QAction::triggered, this, [this, index] { QTimer::singleShot(0, this, [=, this] { emit moveRequested(index, index - 1); }); });
-    QAction* later = menu.addAction(tr("Move later"));
-    later->setEnabled(index + 1 < int(cards_.size()));
-    connect(later, &QAction::triggered, this, [this, index] { QTimer::singleShot(0, this, [=, this] { emit moveRequested(index, index + 1); }); });
+    connect(earlier, &QAction::triggered, this, [this, index] { later([=, this] { emit moveRequested(index, index - 1); }); });
+    QAction* laterAction = menu.addAction(tr("Move later"));
+    laterAction->setEnabled(index + 1 < cardCount());
+    connect(laterAction, &QAction::triggered, this, [this, index] { later([=, this] { emit moveRequested(index, index + 1); }); });
     menu.addSeparator();
-    connect(menu.addAction(tr("Delete")), &QAction::triggered, this, [this, index] { QTimer::singleShot(0, this, [=, this] { emit removeRequested(index); }); });
+    connect(menu.addAction(tr("Delete")), &QAction::triggered, this, [this, index] { later([=, this] { emit removeRequested(index); }); });
     menu.exec(screenPos);
 }
 
@@ -565,11 +813,11 @@ void ChainView::contextMenuEvent(QContextMenuEvent* e) {
         QGraphicsView::contextMenuEvent(e);
         return;
     }
-    showAddMenu(int(cards_.size()), e->globalPos());
+    showAddMenu(cardCount(), e->globalPos());
 }
 
 void ChainView::keyPressEvent(QKeyEvent* e) {
-    const int n = int(cards_.size());
+    const int n = cardCount();
     const int sel = doc_->selectedStep();
     const bool alt = e->modifiers() & Qt::AltModifier;
     switch (e->key()) {
@@ -582,11 +830,24 @@ void ChainView::keyPressEvent(QKeyEvent* e) {
         else doc_->setSelectedStep(std::max(sel < 0 ? -1 : 0, sel - 1));
         return;
     case Qt::Key_Down:
-        doc_->setSelectedStep(std::min(n - 1, sel + cols_));
-        return;
     case Qt::Key_Up:
-        doc_->setSelectedStep(std::max(0, sel - cols_));
+        if (hasLanes()) {
+            // The stream below or above, at the same place in its chain.
+            const int to = doc_->currentStream() + (e->key() == Qt::Key_Up ? -1 : 1);
+            if (to >= 0 && to < laneCount()) doc_->setCurrentStream(to, std::min(sel, laneCardCount(to) - 1));
+        } else if (e->key() == Qt::Key_Down) {
+            doc_->setSelectedStep(std::min(n - 1, sel + cols_));
+        } else {
+            doc_->setSelectedStep(std::max(0, sel - cols_));
+        }
         return;
+    case Qt::Key_PageUp:
+    case Qt::Key_PageDown: {
+        // The previous or next stream, at its Start card.
+        const int to = doc_->currentStream() + (e->key() == Qt::Key_PageUp ? -1 : 1);
+        if (to >= 0 && to < laneCount()) doc_->setCurrentStream(to, -1);
+        return;
+    }
     case Qt::Key_Home: doc_->setSelectedStep(n > 0 ? 0 : -1); return;
     case Qt::Key_End: doc_->setSelectedStep(n - 1); return;
     case Qt::Key_Delete:

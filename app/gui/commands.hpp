@@ -1,6 +1,8 @@
 #pragma once
 // One QUndoCommand per user action on the worksheet. Each keeps exactly what
-// it needs to undo itself and selects the step it touched.
+// it needs to undo itself and selects the step it touched. A step command
+// belongs to the stream that was current when it was made: undone or redone,
+// it makes that stream current again before it changes it.
 #include <QUndoCommand>
 
 #include "document.hpp"
@@ -14,6 +16,7 @@ public:
     void undo() override;
 private:
     ProjectDocument* doc_;
+    int stream_;
     int index_;
     Step step_;
 };
@@ -25,6 +28,7 @@ public:
     void undo() override;
 private:
     ProjectDocument* doc_;
+    int stream_;
     int index_;
     Step step_;
 };
@@ -36,6 +40,7 @@ public:
     void undo() override;
 private:
     ProjectDocument* doc_;
+    int stream_;
     int index_;
     Step copy_;
 };
@@ -47,6 +52,7 @@ public:
     void undo() override;
 private:
     ProjectDocument* doc_;
+    int stream_;
     int from_, to_;
 };
 
@@ -59,6 +65,7 @@ public:
     void undo() override;
 private:
     ProjectDocument* doc_;
+    int stream_;
     int index_;
     Step before_, after_;
 };
@@ -71,7 +78,22 @@ public:
     void undo() override;
 private:
     ProjectDocument* doc_;
+    int stream_;
     Project before_, after_;
+};
+
+// A change of the streams themselves (add, remove, rename, reorder, copy a
+// step to another stream): the whole set before and after, with which
+// stream is current and which step is selected on either side.
+class EditStreams : public QUndoCommand {
+public:
+    EditStreams(ProjectDocument* doc, StreamSet after, int currentAfter, int selectedAfter, const QString& what);
+    void redo() override;
+    void undo() override;
+private:
+    ProjectDocument* doc_;
+    StreamSet before_, after_;
+    int currentBefore_, selectedBefore_, currentAfter_, selectedAfter_;
 };
 
 }  // namespace heatchain::gui

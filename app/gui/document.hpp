@@ -1,9 +1,13 @@
 #pragma once
-// The open worksheet: the Project (the document), the undo stack of the edits
-// made to it, and the SequenceResult core computed from it. Every change goes
-// through a QUndoCommand that calls setProject()/mutate(); the document then
-// re-solves the whole sequence and emits one signal, changed(). Views redraw
-// from project() and result() and never talk to each other.
+// The open worksheet: its streams (a StreamSet; a version-1 file is one
+// stream), the undo stack of the edits made to it, and the SequenceResult
+// core computed for each stream. One stream is current: project() and
+// result() are that stream's, so the step panel, ledger and charts follow it.
+// Every change goes through a QUndoCommand that calls setProject()/mutate()
+// (the current stream) or setStreams() (the whole set); the document then
+// re-solves and emits one signal, changed(). Views redraw from project() and
+// result() (and streams()/results() for all of them) and never talk to each
+// other.
 #include <QByteArray>
 #include <QDateTime>
 #include <QObject>
@@ -13,10 +17,13 @@
 #include <functional>
 #include <memory>
 #include <string>
+#include <unordered_map>
+#include <vector>
 
 #include "heatchain/project.hpp"
 #include "heatchain/result.hpp"
 #include "heatchain/solver.hpp"
+#include "heatchain/streams.hpp"
 #include "heatchain/uncertainty.hpp"
 
 namespace heatchain::gui {
@@ -42,8 +49,18 @@ public:
     // views that outlive the document by a few instructions.
     ~ProjectDocument() override;
 
-    const Project& project() const { return project_; }
-    const SequenceResult& result() const { return result_; }
+    // The current stream's project (with the worksheet's shared fields) and result.
+    const Project& project() const { return set_.streams[std::size_t(current_)].project; }
+    const SequenceResult& result() const { return results_[std::size_t(current_)]; }
+    // Every stream and its result, in order.
+    const StreamSet& streams() const { return set_; }
+    const std::vector<SequenceResult>& results() const { return results_; }
+    int streamCount() const { return int(set_.streams.size()); }
+    // The stream the step panel, ledger and charts show.
+    int currentStream() const { return current_; }
+    // Makes stream `index` current with step `step` selected (−1: its Start card).
+    void setCurrentStream(int index, int step = -1);
+    int streamIndexOf(std::string_view streamId) const;
     // Saturation dome of the current model, or null when it has none.
     const DomeCurve* dome() const { return dome_.liquidSide.empty() ? nullptr : &dome_; }
     QUndoStack* undoStack() { return &undo_; }
@@ -63,6 +80,9 @@ public:
     Status open(const QString& path);
     Status saveAs(const QString& path);
     void reset(Project project, const QString& path = {});
+    void reset(StreamSet set, const QString& path = {});
+    // The bytes Save would write (version 1 for one plain stream, else version 2).
+    std::string fileText() const;
 
     // The file as this worksheet last read or wrote it, and whether the file
     // now differs from that (changed, replaced or removed by someone else).
@@ -71,13 +91,18 @@ public:
     // After the user has seen a change and chose to keep their version.
     void acceptDiskState() { stamp_ = DiskStamp::of(filePath_); }
 
-    // For undo commands only: replace the whole project, or change it in place.
+    // For undo commands only: replace the current stream's project, or change
+    // it in place (its shared fields — title, units, utilities, … — then
+    // become every stream's); or replace the whole set of streams, making
+    // `current` current with `selected` selected.
     void setProject(Project project);
     void mutate(const std::function<void(Project&)>& change);
+    void setStreams(StreamSet set, int current, int selected);
 
     // The colour of a step on the cards and charts: its own for its life,
     // kept when other steps are inserted, removed or moved.
-    QColor stepColour(int index) const;
+    QColor stepColour(int index) const { return stepColour(current_, index); }
+    QColor stepColour(int stream, int index) const;
     std::vector<QColor> stepColours() const;
 
     // How sure the results are: the first-order propagation of the
@@ -101,25 +126,33 @@ signals:
     void fileStateChanged();       // path or modified flag changed
 
 private:
-    void recompute();
-    std::vector<std::string> stepIds() const;
-    void keepColours(const std::vector<std::string>& before);
+    // Solves every stream (solveStreams) and works out what shows of the
+    // current one (its saturation dome, its uncertainty).
+    void recompute(bool solveStreams = true);
+    // After an edit of the current stream: its shared fields become the set's.
+    void adoptShared();
+    Project& current() { return set_.streams[std::size_t(current_)].project; }
+    std::vector<std::string> stepIds(int stream) const;
+    void keepColours(int stream, const std::vector<std::string>& before);
+    void freshColours();
 
-    Project project_;
-    SequenceResult result_;
+    StreamSet set_;
+    std::vector<SequenceResult> results_;
+    int current_ = 0;
     std::optional<UncertaintyResult> uncertainty_;
     QString uncertaintyError_;
     bool uncertaintyShown_ = true;
     bool hasUncertainInputs_ = false;
-    DomeCurve dome_;
-    std::shared_ptr<const PropertyModel> model_;
-    std::string modelKey_;  // model kind + substance; the model is rebuilt only when it changes
+    DomeCurve dome_;  // of the current stream's model
+    std::string domeKey_;
+    // Models by kind + substance: a model is built only when a stream's changes.
+    std::unordered_map<std::string, std::shared_ptr<const PropertyModel>> models_;
     QUndoStack undo_;
     QString filePath_;
     DiskStamp stamp_;
     bool dirty_ = false;
     int selected_ = -1;
-    std::vector<int> colours_;  // palette slot of each step
+    std::vector<std::vector<int>> colours_;  // palette slot of each step of each stream
     double lastSolveMs_ = 0;
 };
 

@@ -47,7 +47,8 @@ bool Exporter::exportReport(const QString& path, PageSize pageSize) {
     // report checksums the worksheet as it would be saved instead.
     const bool fileMatches = !doc_->filePath().isEmpty() && !doc_->isModified() && !doc_->fileChangedOnDisk();
     const std::string file = fileMatches ? doc_->filePath().toStdString() : std::string();
-    const bool ok = finish(writeReportPdf(doc_->project(), doc_->result(), file, path.toStdString(), ReportOptions{pageSize}),
+    // A worksheet of several streams: every stream and their heat recovery.
+    const bool ok = finish(writeReportPdf(doc_->streams(), doc_->results(), file, path.toStdString(), ReportOptions{pageSize}),
                                  tr("the report"), path);
     if (ok && !fileMatches && !doc_->filePath().isEmpty())
         hooks_.status(tr("Exported the report to %1. The worksheet differs from its file, so the report "

@@ -207,6 +207,18 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
         doc_.undoStack()->push(new MoveStep(&doc_, from, to));
     });
     connect(chain_, &ChainView::settingsRequested, this, &MainWindow::editSettings);
+    // Streams: the lane menu and the card's "Copy to stream", and a menu of their own.
+    streams_ = new StreamActions(&doc_, this);
+    connect(streams_, &StreamActions::refused, this, [this](const QString& why) { statusBar()->showMessage(why, 8000); });
+    connect(chain_, &ChainView::addStreamRequested, streams_, &StreamActions::addStreamDialog);
+    connect(chain_, &ChainView::removeStreamRequested, streams_, &StreamActions::removeStream);
+    connect(chain_, &ChainView::renameStreamRequested, streams_, &StreamActions::renameStreamDialog);
+    connect(chain_, &ChainView::moveStreamRequested, streams_, &StreamActions::moveStream);
+    connect(chain_, &ChainView::copyStepRequested, streams_, &StreamActions::copyStep);
+    auto* streamMenu = new QMenu(tr("S&treams"), this);
+    connect(streamMenu, &QMenu::aboutToShow, streams_, [this, streamMenu] { streams_->fillMenu(streamMenu); });
+    streams_->fillMenu(streamMenu);
+    menuBar()->insertMenu(viewMenu_->menuAction(), streamMenu);
     connect(chain_, &ChainView::editorFocusRequested, this, [this] {
         if (auto* f = editor_->field(QStringLiteral("target")); f && f->isVisible())
             f->lineEdit()->setFocus();
@@ -312,6 +324,15 @@ void MainWindow::buildDocks() {
     chartDock->setMinimumWidth(380);
     addDockWidget(Qt::RightDockWidgetArea, chartDock);
 
+    // Heat recovery: a tab beside the charts (raised when a worksheet of
+    // several streams is opened).
+    heatRecovery_ = new HeatRecoveryView(&doc_, this);
+    heatRecoveryDock_ = new QDockWidget(tr("Heat recovery"), this);
+    heatRecoveryDock_->setObjectName(QStringLiteral("heatRecoveryDock"));
+    heatRecoveryDock_->setWidget(heatRecovery_);
+    tabifyDockWidget(chartDock, heatRecoveryDock_);
+    chartDock->raise();
+
     auto* ledgerDock = new QDockWidget(tr("Ledger"), this);
     ledgerDock->setObjectName(QStringLiteral("ledgerDock"));
     ledgerDock->setWidget(ledgerView_);
@@ -375,6 +396,7 @@ void MainWindow::buildDocks() {
     viewMenu_ = new QMenu(tr("&View"), this);
     viewMenu_->addAction(editorDock->toggleViewAction());
     viewMenu_->addAction(chartDock->toggleViewAction());
+    viewMenu_->addAction(heatRecoveryDock_->toggleViewAction());
     viewMenu_->addAction(ledgerDock->toggleViewAction());
     viewMenu_->addAction(secondLawDock->toggleViewAction());
     viewMenu_->addAction(msgDock->toggleViewAction());
@@ -653,6 +675,8 @@ bool MainWindow::openFile(const QString& path) {
     }
     lastError_.clear();
     rememberRecent(path);
+    // Several streams: what the worksheet is for is their heat recovery.
+    if (doc_.streamCount() > 1) heatRecoveryDock_->raise();
     return true;
 }
 
@@ -770,10 +794,16 @@ void MainWindow::updateTitle() {
 void MainWindow::updateStatus() {
     const SequenceResult& r = doc_.result();
     const Project& p = doc_.project();
-    const QString solveText = tr("%1 · %2 · %3 steps ·")
-                                  .arg(qs(p.substance.name.empty() ? p.substanceId : p.substance.name),
-                                       r.model ? qs(r.model->name()) : qs(modelId(p.model)))
-                                  .arg(p.steps.size());
+    QString solveText = tr("%1 · %2 · %3 steps ·")
+                            .arg(qs(p.substance.name.empty() ? p.substanceId : p.substance.name),
+                                 r.model ? qs(r.model->name()) : qs(modelId(p.model)))
+                            .arg(p.steps.size());
+    if (doc_.streamCount() > 1)
+        solveText = tr("stream %1 (%2 of %3) · ")
+                        .arg(qs(doc_.streams().streams[std::size_t(doc_.currentStream())].id))
+                        .arg(doc_.currentStream() + 1)
+                        .arg(doc_.streamCount()) +
+                    solveText;
     if (statusSolve_->text() != solveText) statusSolve_->setText(solveText);
     statusTime_->setText(tr("solved in %1 ms").arg(QString::number(doc_.lastSolveMs(), 'f', 2)));
     const int e = messages_->errorCount(), w = messages_->warningCount();

@@ -4,6 +4,7 @@
 // the right, messages below. Watching the file on disk (DiskWatch), autosave
 // and recovery (AutosaveKeeper), exports (Exporter) and the revision
 // comparison (CompareDialog::againstFile) are classes of their own.
+#include <QDockWidget>
 #include <QFileSystemWatcher>
 #include <QFrame>
 #include <QLabel>
@@ -33,6 +34,8 @@
 #include "messages_panel.hpp"
 #include "start_editor.hpp"
 #include "step_editor.hpp"
+#include "heat_recovery_view.hpp"
+#include "stream_actions.hpp"
 
 namespace heatchain::gui {
 
@@ -58,6 +61,9 @@ public:
     ContributionWidget* contributionChart() const { return contributions_; }
     SecondLawPanel* secondLaw() const { return secondLaw_; }
     QLineEdit* quickAdd() const { return quickAdd_; }
+    StreamActions* streamActions() const { return streams_; }
+    HeatRecoveryView* heatRecovery() const { return heatRecovery_; }
+    QDockWidget* heatRecoveryDock() const { return heatRecoveryDock_; }
 
     // When false, errors are recorded in lastError() instead of a dialog
     // (tests run without anyone to press OK).
@@ -177,6 +183,9 @@ private:
     DiskWatch* notice_ = nullptr;
     AutosaveKeeper* keeper_ = nullptr;
     Exporter* exporter_ = nullptr;
+    StreamActions* streams_ = nullptr;
+    HeatRecoveryView* heatRecovery_ = nullptr;
+    QDockWidget* heatRecoveryDock_ = nullptr;
 
 };
 

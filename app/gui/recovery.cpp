@@ -7,6 +7,7 @@
 #include <filesystem>
 
 #include "heatchain/project_file.hpp"
+#include "heatchain/streams.hpp"
 
 namespace heatchain::gui {
 
@@ -36,7 +37,7 @@ void AutosaveKeeper::autosaveNow() {
     }
     // A blank new worksheet holds nothing to lose.
     if (!doc_->isModified() && doc_->project().steps.empty()) return;
-    if (auto st = store_->write(doc_->project(), doc_->filePath()); !st)
+    if (auto st = store_->write(doc_->streams(), doc_->filePath()); !st)
         hooks_.status(tr("Autosave failed: %1").arg(qs(st.error().text())), 8000);
 }
 
@@ -46,10 +47,10 @@ bool AutosaveKeeper::offerRecovery() {
     // recover: drop it without a question.
     for (auto it = left.begin(); it != left.end();) {
         QFile sheet(it->worksheetFile);
-        auto original = it->originalPath.isEmpty() ? Result<Project>(makeError("never saved"))
-                                                   : loadProject(std::filesystem::path(it->originalPath.toStdString()));
+        auto original = it->originalPath.isEmpty() ? Result<StreamSet>(makeError("never saved"))
+                                                   : loadStreamSet(std::filesystem::path(it->originalPath.toStdString()));
         if (original && sheet.open(QIODevice::ReadOnly) &&
-            sheet.readAll() == QByteArray::fromStdString(writeProject(original.value()))) {
+            sheet.readAll() == QByteArray::fromStdString(writeStreamSet(original.value()))) {
             AutosaveStore::discard(*it);
             it = left.erase(it);
         } else {
