@@ -191,12 +191,8 @@ void ProjectDocument::setStreams(StreamSet set, int current, int selected) {
 }
 
 void ProjectDocument::adoptShared() {
-    if (set_.streams.size() == 1 && set_.version == 1) {
-        // A version-1 worksheet is its one project, written as it is.
-        set_.shared = project();
-        set_.shared.steps.clear();
-        return;
-    }
+    // Field by field: copying the whole project (its steps) on every edit
+    // would cost a long worksheet time for nothing.
     set_.takeShared(project());
 }
 

@@ -82,11 +82,20 @@ HeatRecoveryView::HeatRecoveryView(ProjectDocument* doc, QWidget* parent) : QWid
     // The composite curves above; the grand composite curve and the sweep
     // share the space below, one at a time.
     auto* charts = new QSplitter(Qt::Vertical, this);
-    composite_ = new RecoveryChartArea([this](QPainter& p, const QRectF& r) { compositeChart_.paint(p, r); }, charts);
+    composite_ = new RecoveryChartArea([this](QPainter& p, const QRectF& r) {
+        catchUp();
+        compositeChart_.paint(p, r);
+    }, charts);
     auto* lower = new QTabWidget(charts);
     lower->setDocumentMode(true);
-    grand_ = new RecoveryChartArea([this](QPainter& p, const QRectF& r) { grandChart_.paint(p, r); }, lower);
-    sweepChart_ = new RecoveryChartArea([this](QPainter& p, const QRectF& r) { sweepPlot_.paint(p, r); }, lower);
+    grand_ = new RecoveryChartArea([this](QPainter& p, const QRectF& r) {
+        catchUp();
+        grandChart_.paint(p, r);
+    }, lower);
+    sweepChart_ = new RecoveryChartArea([this](QPainter& p, const QRectF& r) {
+        catchUp();
+        sweepPlot_.paint(p, r);
+    }, lower);
     lower->addTab(grand_, tr("Grand composite curve"));
     lower->addTab(sweepChart_, tr("Targets against ΔTmin"));
     charts->addWidget(composite_);
@@ -134,7 +143,9 @@ void HeatRecoveryView::documentChanged() {
     }
     slider_->setValue(int(std::lround(dTmin_ / kSliderStepK)));
     stale_ = true;
-    if (isVisible()) refresh();
+    // Behind another tab the view computes nothing on an edit; it catches up
+    // when it is shown or painted.
+    if (isVisible() && !visibleRegion().isEmpty()) refresh();
 }
 
 void HeatRecoveryView::showEvent(QShowEvent* e) {
@@ -235,7 +246,13 @@ void HeatRecoveryView::showTargets() {
     sweepChart_->update();
 }
 
-QString HeatRecoveryView::targetsText() const { return table_->text(); }
-QString HeatRecoveryView::notesText() const { return notes_->text(); }
+QString HeatRecoveryView::targetsText() {
+    catchUp();
+    return table_->text();
+}
+QString HeatRecoveryView::notesText() {
+    catchUp();
+    return notes_->text();
+}
 
 }  // namespace heatchain::gui

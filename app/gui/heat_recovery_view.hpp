@@ -29,13 +29,24 @@ public:
     double dTmin() const { return dTmin_; }
     void setDTmin(double kelvin);
     QSlider* slider() const { return slider_; }
-    // The targets shown (null when core could not work them out: error() says why).
-    const Recovery* recovery() const { return recovery_ ? &*recovery_ : nullptr; }
-    QString error() const { return error_; }
-    const std::vector<TargetsAtDTmin>& sweep() const { return sweep_; }
+    // What the view shows, brought up to date first (behind another tab the
+    // view waits until it is shown or painted). The targets: null when core
+    // could not work them out (error() says why).
+    const Recovery* recovery() {
+        catchUp();
+        return recovery_ ? &*recovery_ : nullptr;
+    }
+    QString error() {
+        catchUp();
+        return error_;
+    }
+    const std::vector<TargetsAtDTmin>& sweep() {
+        catchUp();
+        return sweep_;
+    }
     // The targets table and the notes under it, as shown.
-    QString targetsText() const;
-    QString notesText() const;
+    QString targetsText();
+    QString notesText();
     // Recomputes now (the view otherwise waits until it is shown).
     void refresh();
 
@@ -44,6 +55,9 @@ protected:
 
 private:
     void documentChanged();
+    void catchUp() {
+        if (stale_) refresh();
+    }
     void recomputeTargets();
     void showTargets();
 

@@ -331,7 +331,13 @@ void MainWindow::buildDocks() {
     heatRecoveryDock_->setObjectName(QStringLiteral("heatRecoveryDock"));
     heatRecoveryDock_->setWidget(heatRecovery_);
     tabifyDockWidget(chartDock, heatRecoveryDock_);
+    // The charts in front (raised again once the window is shown: before
+    // that, the tab last added stays current). Hidden, the heat recovery
+    // view computes nothing on an edit.
     chartDock->raise();
+    QTimer::singleShot(0, chartDock, [this, chartDock] {
+        if (doc_.streamCount() < 2) chartDock->raise();
+    });
 
     auto* ledgerDock = new QDockWidget(tr("Ledger"), this);
     ledgerDock->setObjectName(QStringLiteral("ledgerDock"));

@@ -271,8 +271,11 @@ void appendExtra(std::string& out, const Json& extra, std::string_view indent, b
 }
 
 // The project with the set's shared fields in place of its own.
-Project withShared(const Project& stream, const Project& shared) {
-    Project p = stream;
+// The set's shared fields put into one stream's project, in place (a copy
+// of the whole project, steps and all, would cost every edit of a long
+// worksheet).
+void assignShared(Project& p, const Project& shared) {
+    if (&p == &shared) return;
     p.meta = shared.meta;
     p.displayUnits = shared.displayUnits;
     p.displayExtra = shared.displayExtra;
@@ -285,6 +288,11 @@ Project withShared(const Project& stream, const Project& shared) {
     p.utilities = shared.utilities;
     p.hasUtilities = shared.hasUtilities;
     p.minApproach = shared.minApproach;
+}
+
+Project withShared(const Project& stream, const Project& shared) {
+    Project p = stream;
+    assignShared(p, shared);
     return p;
 }
 
@@ -297,15 +305,11 @@ const Stream* StreamSet::find(std::string_view id) const {
 }
 
 void StreamSet::shareFields() {
-    for (Stream& s : streams) {
-        Json extra = s.project.extra;
-        s.project = withShared(s.project, shared);
-        s.project.extra = std::move(extra);
-    }
+    for (Stream& s : streams) assignShared(s.project, shared);
 }
 
 void StreamSet::takeShared(const Project& from) {
-    shared = withShared(shared, from);
+    assignShared(shared, from);
     shareFields();
 }
 
