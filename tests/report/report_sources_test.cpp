@@ -5,11 +5,11 @@
 // not independently confirmed, and explains the mark once.
 #include <gtest/gtest.h>
 
-#include <cctype>
 #include <filesystem>
 #include <string>
 
 #include "heatchain/project_file.hpp"
+#include "support/pdf_text.hpp"
 #include "support/run_command.hpp"
 #include "support/samples.hpp"
 
@@ -19,19 +19,7 @@ using heatchain::testing::runCommand;
 namespace {
 
 std::string squeezedPdfText(const fs::path& pdf) {
-    const std::string raw = runCommand(std::string(HEATCHAIN_PDFTOTEXT) + " " + pdf.string() + " -").out;
-    std::string o;
-    bool space = false;
-    for (char c : raw) {
-        if (std::isspace(static_cast<unsigned char>(c))) {
-            space = true;
-            continue;
-        }
-        if (space && !o.empty()) o += ' ';
-        space = false;
-        o += c;
-    }
-    return o;
+    return heatchain::testing::squeeze(heatchain::testing::pdfText(pdf, false));
 }
 
 int count(const std::string& text, const std::string& what) {

@@ -19,12 +19,16 @@
 
 #include "heatchain/project_file.hpp"
 #include "heatchain/units.hpp"
+#include "support/pdf_text.hpp"
 #include "support/run_command.hpp"
 #include "support/samples.hpp"
 
 namespace fs = std::filesystem;
 using heatchain::testing::readWholeFile;
+using heatchain::testing::lineStarting;
+using heatchain::testing::pdfText;
 using heatchain::testing::runCommand;
+using heatchain::testing::squeeze;
 
 namespace {
 
@@ -50,26 +54,6 @@ int pageCount(const fs::path& pdf) {
     return -1;
 }
 
-std::string pdfText(const fs::path& pdf, bool layout) {
-    return runCommand(std::string(HEATCHAIN_PDFTOTEXT) + (layout ? " -layout " : " ") + pdf.string() + " -").out;
-}
-
-// All runs of whitespace as one space, so wrapped lines read as one text.
-std::string squeeze(const std::string& s) {
-    std::string o;
-    bool space = false;
-    for (char c : s) {
-        if (std::isspace(static_cast<unsigned char>(c))) {
-            space = true;
-            continue;
-        }
-        if (space && !o.empty()) o += ' ';
-        space = false;
-        o += c;
-    }
-    return o;
-}
-
 // Numbers of one line of text, with the typographic minus read as '-'.
 std::vector<double> numbersIn(std::string line) {
     for (std::size_t at; (at = line.find("\xE2\x88\x92")) != std::string::npos;) line.replace(at, 3, "-");
@@ -78,16 +62,6 @@ std::vector<double> numbersIn(std::string line) {
     for (auto it = std::sregex_iterator(line.begin(), line.end(), num); it != std::sregex_iterator(); ++it)
         out.push_back(std::stod((*it)[2]));
     return out;
-}
-
-// The line of the layout text that begins with `label`.
-std::string lineStarting(const std::string& text, const std::string& label) {
-    std::istringstream in(text);
-    std::string line;
-    const std::regex re("^\\s*" + label + "\\s");
-    while (std::getline(in, line))
-        if (std::regex_search(line, re)) return line;
-    return {};
 }
 
 // A displayed number against the core's value in display units: the report
