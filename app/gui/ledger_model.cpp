@@ -21,17 +21,23 @@ LedgerModel::LedgerModel(ProjectDocument* doc, QObject* parent)
 void LedgerModel::refresh() {
     beginResetModel();
     rows_.clear();
-    const SequenceResult& r = doc_->result();
-    rows_.push_back({RowKind::Start});
-    for (std::size_t i = 0; i < r.steps.size(); ++i) {
-        rows_.push_back({RowKind::Step, int(i)});
-        if (r.steps[i].segments.size() > 1 && opened_.count(r.steps[i].id))
-            for (std::size_t k = 0; k < r.steps[i].segments.size(); ++k)
-                rows_.push_back({RowKind::Segment, int(i), int(k)});
+    const bool all = showsAllStreams();
+    const int first = all ? 0 : doc_->currentStream();
+    const int last = all ? doc_->streamCount() - 1 : doc_->currentStream();
+    for (int k = first; k <= last; ++k) {
+        const SequenceResult& r = doc_->results()[std::size_t(k)];
+        if (all) rows_.push_back({RowKind::Stream, -1, -1, k});
+        rows_.push_back({RowKind::Start, -1, -1, k});
+        for (std::size_t i = 0; i < r.steps.size(); ++i) {
+            rows_.push_back({RowKind::Step, int(i), -1, k});
+            if (r.steps[i].segments.size() > 1 && opened_.count(openedKey(k, r.steps[i].id)))
+                for (std::size_t g = 0; g < r.steps[i].segments.size(); ++g)
+                    rows_.push_back({RowKind::Segment, int(i), int(g), k});
+        }
+        rows_.push_back({RowKind::Total, -1, -1, k});
+        rows_.push_back({RowKind::HeatingDuty, -1, -1, k});
+        rows_.push_back({RowKind::CoolingDuty, -1, -1, k});
     }
-    rows_.push_back({RowKind::Total});
-    rows_.push_back({RowKind::HeatingDuty});
-    rows_.push_back({RowKind::CoolingDuty});
     const Project& p = doc_->project();
     const UnitContext ctx = displayContext(p);
     decimals_.assign(ColumnCount, -1);
@@ -58,16 +64,43 @@ void LedgerModel::refresh() {
     emit headerDataChanged(Qt::Horizontal, 0, ColumnCount - 1);
 }
 
+const SequenceResult& LedgerModel::resultOf(const Row& r) const { return doc_->results()[std::size_t(r.stream)]; }
+
+const Project& LedgerModel::projectOf(const Row& r) const {
+    return doc_->streams().streams[std::size_t(r.stream)].project;
+}
+
+std::string LedgerModel::openedKey(int stream, const std::string& stepId) const {
+    return doc_->streams().streams[std::size_t(stream)].id + '\x1f' + stepId;
+}
+
+bool LedgerModel::canShowAllStreams() const {
+    const auto& streams = doc_->streams().streams;
+    if (streams.size() < 2) return false;
+    return std::all_of(streams.begin(), streams.end(),
+                       [&](const Stream& s) { return s.project.system == streams.front().project.system; });
+}
+
+void LedgerModel::setAllStreams(bool all) {
+    if (all == allStreams_) return;
+    allStreams_ = all;
+    refresh();
+}
+
 bool LedgerModel::showsArea() const {
-    const auto& steps = doc_->result().steps;
-    return std::any_of(steps.begin(), steps.end(), [](const StepResult& s) {
+    return std::any_of(rows_.begin(), rows_.end(), [&](const Row& row) {
+        if (row.kind != RowKind::Step) return false;
+        const StepResult& s = resultOf(row).steps[std::size_t(row.step)];
         return s.computed && s.transfer && s.transfer->area;
     });
 }
 
 bool LedgerModel::showsTime() const {
-    const auto& steps = doc_->result().steps;
-    return std::any_of(steps.begin(), steps.end(), [](const StepResult& s) { return s.computed && s.batch; });
+    return std::any_of(rows_.begin(), rows_.end(), [&](const Row& row) {
+        if (row.kind != RowKind::Step) return false;
+        const StepResult& s = resultOf(row).steps[std::size_t(row.step)];
+        return s.computed && s.batch;
+    });
 }
 
 int LedgerModel::rowCount(const QModelIndex& parent) const {
@@ -77,26 +110,30 @@ int LedgerModel::columnCount(const QModelIndex& parent) const {
     return parent.isValid() ? 0 : ColumnCount;
 }
 
-bool LedgerModel::hasSegments(int stepIndex) const {
-    const SequenceResult& r = doc_->result();
+bool LedgerModel::hasSegments(int stepIndex, int stream) const {
+    const SequenceResult& r = doc_->results()[std::size_t(streamOr(stream))];
     return stepIndex >= 0 && std::size_t(stepIndex) < r.steps.size() && r.steps[std::size_t(stepIndex)].segments.size() > 1;
 }
 
-bool LedgerModel::segmentsShown(int stepIndex) const {
-    return hasSegments(stepIndex) && opened_.count(doc_->result().steps[std::size_t(stepIndex)].id) > 0;
+bool LedgerModel::segmentsShown(int stepIndex, int stream) const {
+    const int k = streamOr(stream);
+    return hasSegments(stepIndex, k) &&
+           opened_.count(openedKey(k, doc_->results()[std::size_t(k)].steps[std::size_t(stepIndex)].id)) > 0;
 }
 
-void LedgerModel::setSegmentsShown(int stepIndex, bool shown) {
-    if (!hasSegments(stepIndex) || segmentsShown(stepIndex) == shown) return;
-    const std::string& id = doc_->result().steps[std::size_t(stepIndex)].id;
-    if (shown) opened_.insert(id);
-    else opened_.erase(id);
+void LedgerModel::setSegmentsShown(int stepIndex, bool shown, int stream) {
+    const int k = streamOr(stream);
+    if (!hasSegments(stepIndex, k) || segmentsShown(stepIndex, k) == shown) return;
+    const std::string key = openedKey(k, doc_->results()[std::size_t(k)].steps[std::size_t(stepIndex)].id);
+    if (shown) opened_.insert(key);
+    else opened_.erase(key);
     refresh();
 }
 
 int LedgerModel::rowOfStep(int stepIndex) const {
+    const int k = doc_->currentStream();
     for (std::size_t i = 0; i < rows_.size(); ++i)
-        if (rows_[i].kind == RowKind::Step && rows_[i].step == stepIndex) return int(i);
+        if (rows_[i].kind == RowKind::Step && rows_[i].step == stepIndex && rows_[i].stream == k) return int(i);
     return -1;
 }
 
@@ -116,9 +153,11 @@ Dimension LedgerModel::dimensionOf(int column) const {
 }
 
 QVariant LedgerModel::siValue(const Row& row, int c) const {
-    const SequenceResult& r = doc_->result();
+    if (row.kind == RowKind::Stream) return {};
+    const SequenceResult& r = resultOf(row);
     if (isUncertaintyColumn(c)) {
-        const UncertaintyResult* u = doc_->uncertainty();
+        // The propagation is the current stream's.
+        const UncertaintyResult* u = row.stream == doc_->currentStream() ? doc_->uncertainty() : nullptr;
         if (!u) return {};
         std::string path;
         const char* key = c == ColUQ ? ".Q" : c == ColUW ? ".W" : ".end.T_K";
@@ -190,13 +229,24 @@ QVariant LedgerModel::siValue(const Row& row, int c) const {
         return c == ColQ ? QVariant(r.totals.heatingDuty) : QVariant();
     case RowKind::CoolingDuty:
         return c == ColQ ? QVariant(r.totals.coolingDuty) : QVariant();
+    case RowKind::Stream:
+        return {};
     }
     return {};
 }
 
 QString LedgerModel::text(const Row& row, int c) const {
-    const SequenceResult& r = doc_->result();
-    const Project& p = doc_->project();
+    const SequenceResult& r = resultOf(row);
+    const Project& p = projectOf(row);
+    if (row.kind == RowKind::Stream) {
+        const Stream& st = doc_->streams().streams[std::size_t(row.stream)];
+        if (c == ColStep) return QString::fromStdString(st.id);
+        if (c == ColWhat)
+            return st.name ? QStringLiteral("%1 · %2").arg(QString::fromStdString(*st.name),
+                                                          QString::fromStdString(p.substance.name))
+                           : QString::fromStdString(p.substance.name);
+        return {};
+    }
     if (c == ColStep) {
         switch (row.kind) {
         case RowKind::Start: return tr("start");
@@ -205,6 +255,7 @@ QString LedgerModel::text(const Row& row, int c) const {
         case RowKind::Total: return tr("Total");
         case RowKind::HeatingDuty: return tr("Heating duty");
         case RowKind::CoolingDuty: return tr("Cooling duty");
+        case RowKind::Stream: return {};
         }
     }
     if (c == ColWhat) {
@@ -213,7 +264,7 @@ QString LedgerModel::text(const Row& row, int c) const {
         case RowKind::Step: {
             const StepResult& s = r.steps[std::size_t(row.step)];
             if (s.segments.size() <= 1) return stepKindTitle(s.kind);
-            return tr("%1  %2 %3 parts").arg(stepKindTitle(s.kind), opened_.count(s.id) ? QStringLiteral("▾")
+            return tr("%1  %2 %3 parts").arg(stepKindTitle(s.kind), opened_.count(openedKey(row.stream, s.id)) ? QStringLiteral("▾")
                                                                                           : QStringLiteral("▸"))
                 .arg(s.segments.size());
         }
@@ -271,11 +322,12 @@ QVariant LedgerModel::data(const QModelIndex& index, int role) const {
     case SiRole: return siValue(row, c);
     case RowStepRole: return row.step;
     case RowKindRole: return int(row.kind);
+    case RowStreamRole: return row.stream;
     case Qt::TextAlignmentRole:
         if (c == ColStep || c == ColWhat || c == ColPhase) return int(Qt::AlignLeft | Qt::AlignVCenter);
         return int(Qt::AlignRight | Qt::AlignVCenter);
     case Qt::FontRole: {
-        if (row.kind == RowKind::Step && c == ColStep) { QFont f; f.setBold(true); return f; }
+        if ((row.kind == RowKind::Step && c == ColStep) || row.kind == RowKind::Stream) { QFont f; f.setBold(true); return f; }
         if (row.kind == RowKind::Total || row.kind == RowKind::HeatingDuty || row.kind == RowKind::CoolingDuty) {
             QFont f; f.setBold(row.kind == RowKind::Total); return f;
         }
@@ -284,7 +336,7 @@ QVariant LedgerModel::data(const QModelIndex& index, int role) const {
     case Qt::ForegroundRole: {
         if (row.kind == RowKind::Segment) return QBrush(QColor(0x5c, 0x63, 0x6b));
         if (row.kind == RowKind::Step) {
-            const StepResult& s = doc_->result().steps[std::size_t(row.step)];
+            const StepResult& s = resultOf(row).steps[std::size_t(row.step)];
             if (s.error || !s.computed) return QBrush(QColor(0xb4, 0x23, 0x18));
             if (!s.warnings.empty() && c == ColPhase) return QBrush(QColor(0x8a, 0x5a, 0x00));
         }
@@ -294,12 +346,14 @@ QVariant LedgerModel::data(const QModelIndex& index, int role) const {
         if (row.kind == RowKind::Total || row.kind == RowKind::HeatingDuty || row.kind == RowKind::CoolingDuty)
             return QBrush(QColor(0xf1, 0xf3, 0xf5));
         if (row.kind == RowKind::Start) return QBrush(QColor(0xf7, 0xf8, 0xf9));
+        if (row.kind == RowKind::Stream) return QBrush(QColor(0xe3, 0xea, 0xf1));
         return {};
     case Qt::ToolTipRole:
         if (isUncertaintyColumn(c))
             return tr("Standard uncertainty from the worksheet's tolerances (first-order method, JCGM 100:2008)");
+        if (row.kind == RowKind::Stream) return text(row, ColWhat);
         if (row.kind == RowKind::Step) {
-            const StepResult& s = doc_->result().steps[std::size_t(row.step)];
+            const StepResult& s = resultOf(row).steps[std::size_t(row.step)];
             QStringList t;
             if (s.error) t << tr("Error: %1").arg(QString::fromStdString(s.error->message));
             for (const auto& w : s.warnings) t << tr("Warning: %1").arg(QString::fromStdString(w));

@@ -3,7 +3,9 @@
 // more than one (a heating step that crosses boiling), then the totals and
 // the heating and cooling duties. Display units in the headers, numbers
 // right-aligned. Rows keep the sequence order: sorting is deliberately not
-// offered, because the order of the steps is the process itself.
+// offered, because the order of the steps is the process itself. It shows
+// the current stream, or every stream of the worksheet one after another,
+// each under a heading row with its own totals.
 #include <QAbstractTableModel>
 #include <set>
 #include <string>
@@ -20,12 +22,13 @@ public:
         ColStep, ColWhat, ColTin, ColTout, ColUTout, ColPin, ColPout, ColPhase,
         ColQ, ColUQ, ColW, ColUW, ColdH, ColdU, ColdS, ColSgen, ColExd, ColArea, ColTime, ColumnCount
     };
-    enum class RowKind { Start, Step, Segment, Total, HeatingDuty, CoolingDuty };
+    enum class RowKind { Start, Step, Segment, Total, HeatingDuty, CoolingDuty, Stream };
     // Qt::UserRole gives the SI value of a numeric cell (the core's number),
     // RowStepRole the step index of a row (−1 for start and totals).
     static constexpr int SiRole = Qt::UserRole;
     static constexpr int RowStepRole = Qt::UserRole + 1;
     static constexpr int RowKindRole = Qt::UserRole + 2;
+    static constexpr int RowStreamRole = Qt::UserRole + 3;  // the stream of a row (its index)
 
     explicit LedgerModel(ProjectDocument* doc, QObject* parent = nullptr);
 
@@ -43,14 +46,23 @@ public:
     QVariant data(const QModelIndex& index, int role) const override;
     QVariant headerData(int section, Qt::Orientation o, int role) const override;
 
-    // The row of step `index` (−1 if none).
+    // Every stream at once, or the current one. All streams share the
+    // ledger's columns, so it takes streams of one kind of system (all steady
+    // flow, or all batches: their energies are in W or in J); otherwise, and
+    // with one stream, it shows the current stream.
+    bool canShowAllStreams() const;
+    bool showsAllStreams() const { return allStreams_ && canShowAllStreams(); }
+    void setAllStreams(bool all);
+
+    // The row of step `index` of the current stream (−1 if none).
     int rowOfStep(int stepIndex) const;
     // A step's segments (the parts of a heat step that crosses a phase line)
     // are folded under its row until opened, so later steps stay in view.
     // The step keeps its state by name across edits.
-    bool hasSegments(int stepIndex) const;
-    bool segmentsShown(int stepIndex) const;
-    void setSegmentsShown(int stepIndex, bool shown);
+    // `stream` −1 is the current stream.
+    bool hasSegments(int stepIndex, int stream = -1) const;
+    bool segmentsShown(int stepIndex, int stream = -1) const;
+    void setSegmentsShown(int stepIndex, bool shown, int stream = -1);
     // The whole ledger as tab-separated text: a header line with units, then
     // one line per row; numbers in display units with full precision.
     QString toTabSeparated() const;
@@ -63,14 +75,20 @@ private:
         RowKind kind;
         int step = -1;
         int segment = -1;
+        int stream = 0;
     };
+    const SequenceResult& resultOf(const Row& r) const;
+    const Project& projectOf(const Row& r) const;
+    int streamOr(int stream) const { return stream < 0 ? doc_->currentStream() : stream; }
+    std::string openedKey(int stream, const std::string& stepId) const;
     QVariant siValue(const Row& r, int column) const;
     QString text(const Row& r, int column) const;
     Dimension dimensionOf(int column) const;
 
     ProjectDocument* doc_;
     std::vector<Row> rows_;
-    std::set<std::string> opened_;  // ids of the steps whose segments are shown
+    std::set<std::string> opened_;  // stream and step ids of the steps whose segments are shown
+    bool allStreams_ = false;
     // Decimals of each numeric column, from its largest value, so a column
     // reads with one number of decimals from top to bottom.
     std::vector<int> decimals_;

@@ -125,19 +125,26 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
         ledgerView_->setColumnHidden(LedgerModel::ColTime, !ledger_->showsTime());
     };
     connect(&doc_, &ProjectDocument::changed, this, showTransferColumns);
+    connect(ledger_, &QAbstractItemModel::modelReset, this, showTransferColumns);  // all streams on or off
     showTransferColumns();
     // A click on "▸ n parts" opens a step's segments, another folds them.
     connect(ledgerView_, &QTableView::clicked, this, [this](const QModelIndex& index) {
         if (index.column() != LedgerModel::ColWhat) return;
         const int step = ledger_->data(index, LedgerModel::RowStepRole).toInt();
+        const int stream = ledger_->data(index, LedgerModel::RowStreamRole).toInt();
         if (ledger_->data(index, LedgerModel::RowKindRole).toInt() != int(LedgerModel::RowKind::Step)) return;
-        if (ledger_->hasSegments(step)) ledger_->setSegmentsShown(step, !ledger_->segmentsShown(step));
+        if (ledger_->hasSegments(step, stream))
+            ledger_->setSegmentsShown(step, !ledger_->segmentsShown(step, stream), stream);
     });
+    // A row of another stream (the ledger of all streams) makes that stream
+    // current, with the step selected.
     connect(ledgerView_->selectionModel(), &QItemSelectionModel::currentRowChanged, this,
             [this](const QModelIndex& current) {
                 if (!current.isValid()) return;
                 const int step = ledger_->data(current, LedgerModel::RowStepRole).toInt();
-                if (step >= 0) doc_.setSelectedStep(step);
+                const int stream = ledger_->data(current, LedgerModel::RowStreamRole).toInt();
+                if (stream != doc_.currentStream()) doc_.setCurrentStream(stream, step);
+                else if (step >= 0) doc_.setSelectedStep(step);
             });
 
     // The canvas with a notice strip above it (file changed on disk).
@@ -513,6 +520,22 @@ void MainWindow::buildActions() {
                                 "of absolute (bar(a), kPa(a), psia)"));
     connect(gaugeAction_, &QAction::triggered, this, &MainWindow::setGaugeDisplay);
     viewMenu_->addSeparator();
+    // The ledger of every stream, one after another (streams of one kind
+    // of system: their energies share the columns' units).
+    QAction* allStreams = viewMenu_->addAction(tr("Ledger of all &streams"));
+    allStreams->setObjectName(QStringLiteral("ledgerAllStreams"));
+    allStreams->setCheckable(true);
+    allStreams->setToolTip(tr("Show every stream's steps and totals in the ledger, each under its own heading"));
+    connect(allStreams, &QAction::toggled, this, [this](bool on) {
+        ledger_->setAllStreams(on);
+        if (const int row = ledger_->rowOfStep(doc_.selectedStep()); row >= 0) {
+            QSignalBlocker block(ledgerView_->selectionModel());
+            ledgerView_->selectRow(row);
+        }
+    });
+    auto allStreamsAvailable = [this, allStreams] { allStreams->setEnabled(ledger_->canShowAllStreams()); };
+    connect(&doc_, &ProjectDocument::changed, this, allStreamsAvailable);
+    allStreamsAvailable();
     QAction* showUncertainty = viewMenu_->addAction(tr("&Uncertainty (±)"));
     showUncertainty->setCheckable(true);
     showUncertainty->setChecked(doc_.uncertaintyShown());

@@ -9,6 +9,8 @@
 #include <QLabel>
 #include <QSettings>
 #include <QSlider>
+#include <QTableView>
+#include <QAction>
 #include <QStandardPaths>
 #include <QTemporaryDir>
 #include <QtTest>
@@ -142,6 +144,67 @@ private slots:
         QCOMPARE(w.document()->currentStream(), lane + 1);
         QCOMPARE(w.document()->selectedStep(), -1);
         QVERIFY(w.startEditor()->isVisible());
+    }
+
+    // View ▸ Ledger of all streams: every stream under its heading row, each
+    // step with core's duty and each stream's own total; a row of another
+    // stream makes that stream current with the step selected.
+    void ledgerOfAllStreams() {
+        const StreamSet set = load(kSample);
+        const std::vector<SequenceResult> results = solveStreams(set);
+        MainWindow w;
+        w.setInteractive(false);
+        QVERIFY(w.openFile(kSample));
+        auto* all = w.findChild<QAction*>(QStringLiteral("ledgerAllStreams"));
+        QVERIFY(all);
+        QVERIFY(all->isEnabled());  // every stream of the sample is steady flow
+        LedgerModel* m = w.ledger();
+        QVERIFY(!m->showsAllStreams());
+        all->trigger();
+        QVERIFY(m->showsAllStreams());
+        std::vector<int> headings, steps(set.streams.size(), 0);
+        for (int row = 0; row < m->rowCount(); ++row) {
+            const QModelIndex i = m->index(row, LedgerModel::ColStep);
+            const int k = m->data(i, LedgerModel::RowStreamRole).toInt();
+            QVERIFY(k >= 0 && k < int(set.streams.size()));
+            const auto kind = LedgerModel::RowKind(m->data(i, LedgerModel::RowKindRole).toInt());
+            const SequenceResult& r = results[std::size_t(k)];
+            const double q = m->data(m->index(row, LedgerModel::ColQ), LedgerModel::SiRole).toDouble();
+            if (kind == LedgerModel::RowKind::Stream) {
+                headings.push_back(k);
+                QCOMPARE(m->data(i, Qt::DisplayRole).toString(), qs(set.streams[std::size_t(k)].id));
+            } else if (kind == LedgerModel::RowKind::Step) {
+                const int step = m->data(i, LedgerModel::RowStepRole).toInt();
+                QCOMPARE(step, steps[std::size_t(k)]++);
+                QVERIFY2(close(q, r.steps[std::size_t(step)].Q), qPrintable(QString::number(q)));
+            } else if (kind == LedgerModel::RowKind::Total) {
+                QVERIFY2(close(q, r.totals.Q), qPrintable(QString::number(q)));
+            }
+        }
+        QCOMPARE(int(headings.size()), int(set.streams.size()));
+        for (std::size_t k = 0; k < set.streams.size(); ++k) {
+            QCOMPARE(headings[k], int(k));
+            QCOMPARE(steps[k], int(set.streams[k].project.steps.size()));
+        }
+        // Choosing the first step of the last stream in the ledger.
+        const int last = int(set.streams.size()) - 1;
+        auto* view = w.findChild<QTableView*>(QStringLiteral("ledger"));
+        QVERIFY(view);
+        int target = -1;
+        for (int row = 0; row < m->rowCount() && target < 0; ++row) {
+            const QModelIndex i = m->index(row, LedgerModel::ColStep);
+            if (m->data(i, LedgerModel::RowStreamRole).toInt() == last &&
+                m->data(i, LedgerModel::RowKindRole).toInt() == int(LedgerModel::RowKind::Step))
+                target = row;
+        }
+        QVERIFY(target >= 0);
+        view->setCurrentIndex(m->index(target, LedgerModel::ColQ));
+        QCOMPARE(w.document()->currentStream(), last);
+        QCOMPARE(w.document()->selectedStep(), 0);
+        // Off again: the current stream alone.
+        all->trigger();
+        QVERIFY(!m->showsAllStreams());
+        QCOMPARE(int(ledgerSteps(m).size()), int(set.streams[std::size_t(last)].project.steps.size()));
     }
 
     void streamEditsUndoAndRedo() {
