@@ -408,8 +408,11 @@ void ProcessChart::paint(QPainter& p, const QRectF& rect) const {
             // On the side away from the material (below a source, above a
             // sink), where the line's left end leaves room.
             const QPointF at = left + QPointF(3, r.source ? 2 : -3 - lfm.height());
-            if (auto box = place(QRectF(at, QSizeF(lfm.horizontalAdvance(r.label) + 2, lfm.height())),
-                                 (r.source ? 1 : -1) * lfm.height()))
+            QRectF want(at, QSizeF(lfm.horizontalAdvance(r.label) + 2, lfm.height()));
+            // A line that starts near the right edge (the last step's) keeps
+            // its word inside the plot, ending where the plot ends.
+            if (want.right() > f.plot.right() - 2) want.moveRight(f.plot.right() - 2);
+            if (auto box = place(want, (r.source ? 1 : -1) * lfm.height()))
                 p.drawText(*box, Qt::AlignLeft | Qt::AlignVCenter, r.label);
         }
     }
