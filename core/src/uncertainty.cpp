@@ -231,6 +231,12 @@ struct OutputDef {
     std::function<double(const SequenceResult&)> scaledPart = nullptr;
 };
 
+// A step's area or time is found by the solver (proportional to its duty
+// between fixed temperatures, so the model's factor scales it), or typed:
+// a given area or UA, a time target, a hold's duration (an input).
+bool areaIsFound(const Step& s) { return !(s.transfer && (s.transfer->area || s.transfer->UA)); }
+bool timeIsFound(const Step& s) { return !(s.to.time || s.kind == StepKind::Hold); }
+
 std::vector<OutputDef> outputDefs(const Project& p, const SequenceResult& nominal) {
     const bool closed = p.system == SystemKind::Closed;
     const Dimension dE = closed ? Dimension::Energy : Dimension::Power;
@@ -266,19 +272,14 @@ std::vector<OutputDef> outputDefs(const Project& p, const SequenceResult& nomina
                          return r.steps[i].end.s;
                      }});
         // Heat transfer, where the step has it: the area a steady-flow step
-        // needs and a batch step's duration. Found ones are proportional to
-        // the duty between fixed temperatures, so the model's factor scales
-        // them; a given area, a time target or a hold's duration is an input.
-        const Step& spec = p.steps[i];
-        const bool areaGiven = spec.transfer && (spec.transfer->area || spec.transfer->UA);
-        const bool timeGiven = spec.to.time || spec.kind == StepKind::Hold;
+        // needs and a batch step's duration.
         if (nominal.steps[i].transfer && nominal.steps[i].transfer->area)
-            d.push_back({at + "area_m2", Dimension::Area, !areaGiven, [i](const SequenceResult& r) -> std::optional<double> {
+            d.push_back({at + "area_m2", Dimension::Area, areaIsFound(p.steps[i]), [i](const SequenceResult& r) -> std::optional<double> {
                              if (i >= r.steps.size() || !r.steps[i].computed || !r.steps[i].transfer) return std::nullopt;
                              return r.steps[i].transfer->area;
                          }});
         if (nominal.steps[i].batch)
-            d.push_back({at + "duration_s", Dimension::Time, !timeGiven, [i](const SequenceResult& r) -> std::optional<double> {
+            d.push_back({at + "duration_s", Dimension::Time, timeIsFound(p.steps[i]), [i](const SequenceResult& r) -> std::optional<double> {
                              if (i >= r.steps.size() || !r.steps[i].computed || !r.steps[i].batch) return std::nullopt;
                              return r.steps[i].batch->duration;
                          }});
@@ -306,9 +307,8 @@ std::vector<OutputDef> outputDefs(const Project& p, const SequenceResult& nomina
     // given ones do not (the same split as the steps' own outputs above).
     std::vector<bool> areaFound(p.steps.size()), timeFound(p.steps.size());
     for (std::size_t i = 0; i < p.steps.size(); ++i) {
-        const Step& s = p.steps[i];
-        areaFound[i] = !(s.transfer && (s.transfer->area || s.transfer->UA));
-        timeFound[i] = !(s.to.time || s.kind == StepKind::Hold);
+        areaFound[i] = areaIsFound(p.steps[i]);
+        timeFound[i] = timeIsFound(p.steps[i]);
     }
     if (nominal.totals.area)
         d.push_back({"totals.area_m2", Dimension::Area, false,
