@@ -1,5 +1,6 @@
 #include "exporter.hpp"
 
+#include <QAction>
 #include <QDir>
 #include <QFileDialog>
 #include <QFileInfo>
@@ -36,6 +37,7 @@ bool Exporter::finish(const Status& st, const QString& what, const QString& path
                     tr("Nothing was written to %1; the worksheet is unchanged.\n\n%2").arg(path, qs(st.error().text())));
         return false;
     }
+    hooks_.clearError();
     hooks_.status(tr("Exported %1 to %2").arg(what, path), 6000);
     return true;
 }
@@ -103,6 +105,16 @@ void Exporter::dataDialog(bool csv) {
     if (QFileInfo(path).suffix().isEmpty()) path += csv ? QStringLiteral(".csv") : QStringLiteral(".json");
     if (csv) exportLedger(path);
     else exportResults(path);
+}
+
+void Exporter::fillMenu(QMenu* menu) {
+    menu->addAction(tr("&Report (PDF)…"), this, &Exporter::reportDialog)->setShortcut(QKeySequence(Qt::CTRL | Qt::Key_E));
+    menu->addSeparator();
+    menu->addAction(tr("&T–s chart (PNG or SVG)…"), this, [this] { chartDialog(ChartKind::TemperatureEntropy); });
+    menu->addAction(tr("T–&Q chart (PNG or SVG)…"), this, [this] { chartDialog(ChartKind::TemperatureDuty); });
+    menu->addSeparator();
+    menu->addAction(tr("&Ledger as CSV…"), this, [this] { dataDialog(true); });
+    menu->addAction(tr("Results as &JSON…"), this, [this] { dataDialog(false); });
 }
 
 }  // namespace heatchain::gui

@@ -2,6 +2,7 @@
 // File ▸ Export: the PDF report, the T–s and T–Q charts, the ledger (CSV) and
 // the results (JSON) of the worksheet as it is now. Never changes the
 // worksheet; refuses to write over a worksheet file.
+#include <QMenu>
 #include <QObject>
 #include <QWidget>
 
@@ -25,6 +26,8 @@ public:
     void reportDialog();
     void chartDialog(ChartKind kind);
     void dataDialog(bool csv);
+    // File ▸ Export's entries, each opening its dialog.
+    void fillMenu(QMenu* menu);
 
 private:
     bool finish(const Status& st, const QString& what, const QString& path);

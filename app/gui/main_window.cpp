@@ -7,7 +7,6 @@
 #include <QCloseEvent>
 #include <QDockWidget>
 #include <QFile>
-#include <QFileDialog>
 #include <QFileInfo>
 #include <QHeaderView>
 #include <QKeyEvent>
@@ -40,7 +39,6 @@
 #include "heatchain_view/step_icons.hpp"
 #include "help_text.hpp"
 #include "project_edit.hpp"
-#include "recent_files.hpp"
 #include "settings_dialog.hpp"
 #include "sweep_dialog.hpp"
 #include "utilities_dialog.hpp"
@@ -152,15 +150,28 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     auto* centreLayout = new QVBoxLayout(centre);
     centreLayout->setContentsMargins(0, 0, 0, 0);
     centreLayout->setSpacing(0);
-    notice_ = new DiskWatch(&doc_, centre);
-    connect(notice_, &DiskWatch::reloadRequested, this, &MainWindow::reloadFromDisk);
-    centreLayout->addWidget(notice_);
+    auto* diskNotice = new DiskWatch(&doc_, centre);
+    centreLayout->addWidget(diskNotice);
     centreLayout->addWidget(chain_, 1);
     setCentralWidget(centre);
     // The ledger is wide (14 columns): it gets the full width of the window
     // below the editor, canvas and charts.
     setCorner(Qt::BottomLeftCorner, Qt::BottomDockWidgetArea);
     setCorner(Qt::BottomRightCorner, Qt::BottomDockWidgetArea);
+
+    // The helpers ask through the window and report through it.
+    WindowHooks hooks{[this](Question q, const QString& t) { return ask(q, t); },
+                      [this] { return confirmDiscard(); },
+                      [this](const QString& title, const QString& text) { reportError(title, text); },
+                      [this](const QString& text, int ms) { statusBar()->showMessage(text, ms); },
+                      [this] { lastError_.clear(); }};
+    session_ = new FileSession(&doc_, diskNotice, hooks, this);
+    exporter_ = new Exporter(&doc_, this, hooks);
+    compare_ = new RevisionCompare(&doc_, this, hooks);
+    // Several streams: what the worksheet is for is their heat recovery.
+    connect(session_, &FileSession::opened, this, [this] {
+        if (doc_.streamCount() > 1) heatRecoveryDock_->raise();
+    });
 
     buildDocks();
     buildActions();
@@ -231,14 +242,6 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
             f->lineEdit()->setFocus();
         else editor_->field(QStringLiteral("id"))->lineEdit()->setFocus();
     });
-
-    // The helpers ask through the window and report through it.
-    WindowHooks hooks{[this](Question q, const QString& t) { return ask(q, t); },
-                      [this] { return confirmDiscard(); },
-                      [this](const QString& title, const QString& text) { reportError(title, text); },
-                      [this](const QString& text, int ms) { statusBar()->showMessage(text, ms); }};
-    keeper_ = new AutosaveKeeper(&doc_, hooks, this);
-    exporter_ = new Exporter(&doc_, this, hooks);
 
     updateTitle();
     updateStatus();
@@ -421,27 +424,19 @@ void MainWindow::buildActions() {
     QMenu* file = menuBar()->addMenu(tr("&File"));
     QAction* actNew = file->addAction(tr("&New worksheet"), this, &MainWindow::newWorksheet);
     actNew->setShortcut(QKeySequence::New);
-    QAction* actOpen = file->addAction(tr("&Open…"), this, &MainWindow::openDialog);
+    QAction* actOpen = file->addAction(tr("&Open…"), session_, &FileSession::openDialog);
     actOpen->setShortcut(QKeySequence::Open);
     recentMenu_ = file->addMenu(tr("Open &recent"));
-    connect(recentMenu_, &QMenu::aboutToShow, this, &MainWindow::fillRecentMenu);
+    connect(recentMenu_, &QMenu::aboutToShow, session_, [this] { session_->fillRecentMenu(recentMenu_); });
     file->addSeparator();
     QAction* actSave = file->addAction(tr("&Save"), this, &MainWindow::save);
     actSave->setShortcut(QKeySequence::Save);
-    QAction* actSaveAs = file->addAction(tr("Save &as…"), this, &MainWindow::saveAsDialog);
+    QAction* actSaveAs = file->addAction(tr("Save &as…"), session_, &FileSession::saveAsDialog);
     // QKeySequence::SaveAs is empty on some desktops: name the keys.
     actSaveAs->setShortcut(QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_S));
     file->addSeparator();
-    file->addAction(tr("Co&mpare with…"), this, &MainWindow::compareDialog);
-    QMenu* exp = file->addMenu(tr("&Export"));
-    exp->addAction(tr("&Report (PDF)…"), this, [this] { exporter_->reportDialog(); })
-        ->setShortcut(QKeySequence(Qt::CTRL | Qt::Key_E));
-    exp->addSeparator();
-    exp->addAction(tr("&T–s chart (PNG or SVG)…"), this, [this] { exporter_->chartDialog(ChartKind::TemperatureEntropy); });
-    exp->addAction(tr("T–&Q chart (PNG or SVG)…"), this, [this] { exporter_->chartDialog(ChartKind::TemperatureDuty); });
-    exp->addSeparator();
-    exp->addAction(tr("&Ledger as CSV…"), this, [this] { exporter_->dataDialog(true); });
-    exp->addAction(tr("Results as &JSON…"), this, [this] { exporter_->dataDialog(false); });
+    file->addAction(tr("Co&mpare with…"), compare_, &RevisionCompare::chooseAndShow);
+    exporter_->fillMenu(file->addMenu(tr("&Export")));
     file->addSeparator();
     file->addAction(tr("Worksheet &settings…"), this, &MainWindow::editSettings)
         ->setShortcut(QKeySequence(Qt::CTRL | Qt::Key_Comma));
@@ -694,46 +689,6 @@ void MainWindow::reportError(const QString& title, const QString& text) {
     if (interactive_) QMessageBox::critical(this, title, text);
 }
 
-bool MainWindow::openFile(const QString& path) {
-    auto st = doc_.open(path);
-    if (!st) {
-        reportError(tr("Cannot open worksheet"),
-                    tr("%1 could not be opened. The current worksheet is unchanged.\n\n%2")
-                        .arg(QFileInfo(path).fileName(), view::escapedText(st.error().text())));
-        return false;
-    }
-    lastError_.clear();
-    rememberRecent(path);
-    // Several streams: what the worksheet is for is their heat recovery.
-    if (doc_.streamCount() > 1) heatRecoveryDock_->raise();
-    return true;
-}
-
-bool MainWindow::saveFile(const QString& path) {
-    const bool replacing = QFileInfo::exists(path);
-    auto st = doc_.saveAs(path);
-    if (!st) {
-        reportError(tr("Cannot save worksheet"),
-                    tr("The worksheet was not saved; the file on disk is unchanged.\n\n%1").arg(qs(st.error().text())));
-        return false;
-    }
-    rememberRecent(path);
-    notice_->hide();
-    notice_->watchFile();
-    // Saved: nothing left to lose, so no autosave to recover from.
-    keeper_->forget();
-    // Save keeps the version it replaces as <file>.bak; say so once a session.
-    if (replacing && !bakMentioned_) {
-        bakMentioned_ = true;
-        statusBar()->showMessage(tr("Saved %1. The version it replaced is kept as %2.bak (once, overwritten at each save).")
-                                     .arg(path, QFileInfo(path).fileName()),
-                                 10000);
-    } else {
-        statusBar()->showMessage(tr("Saved %1").arg(path), 4000);
-    }
-    return true;
-}
-
 Answer MainWindow::ask(Question q, const QString& text) {
     lastQuestion_ = text;
     if (asker_) return asker_(q, text);
@@ -745,69 +700,6 @@ Answer MainWindow::ask(Question q, const QString& text) {
         }
     }
     return askInDialog(this, q, text);
-}
-
-bool MainWindow::confirmDiscard() {
-    if (!doc_.isModified()) return true;
-    const QString name = doc_.filePath().isEmpty() ? tr("The new worksheet") : QStringLiteral("“%1”").arg(QFileInfo(doc_.filePath()).fileName());
-    const Answer a = ask(Question::UnsavedChanges,
-                         tr("%1 has changes that are not saved.\n\nSave them first? Without saving, the changes are lost.").arg(name));
-    if (a == Answer::Save) return save();
-    return a == Answer::Discard;
-}
-
-void MainWindow::newWorksheet() {
-    if (!confirmDiscard()) return;
-    auto p = newProject();
-    if (!p) {
-        reportError(tr("Cannot start a worksheet"), qs(p.error().text()));
-        return;
-    }
-    doc_.reset(std::move(p.value()));
-}
-
-QString MainWindow::openDialogFolder() const {
-    // The folder of the last worksheet opened or saved, then the open
-    // worksheet's, then the samples.
-    if (const QString last = recent::lastFolder(); !last.isEmpty()) return last;
-    if (!doc_.filePath().isEmpty()) return QFileInfo(doc_.filePath()).path();
-    return QStringLiteral(HEATCHAIN_SAMPLES_DIR);
-}
-
-void MainWindow::openDialog() {
-    if (!confirmDiscard()) return;
-    const QString path = QFileDialog::getOpenFileName(this, tr("Open worksheet"), openDialogFolder(),
-                                                      tr("Heatchain worksheets (*.hchain);;All files (*)"));
-    if (!path.isEmpty()) openFile(path);
-}
-
-bool MainWindow::save() {
-    if (doc_.filePath().isEmpty()) return saveAsDialog();
-    if (doc_.fileChangedOnDisk()) {
-        // Never overwrite someone else's change without saying so.
-        switch (ask(Question::ChangedOnDisk, notice_->describeChange())) {
-        case Answer::Overwrite: break;
-        case Answer::SaveAs: return saveAsDialog();
-        default: return false;
-        }
-    }
-    return saveFile(doc_.filePath());
-}
-
-bool MainWindow::saveAsDialog() {
-    QString path = QFileDialog::getSaveFileName(this, tr("Save worksheet as"), doc_.filePath(),
-                                                tr("Heatchain worksheets (*.hchain)"));
-    if (path.isEmpty()) return false;
-    if (!path.endsWith(QStringLiteral(".hchain"))) path += QStringLiteral(".hchain");
-    return saveFile(path);
-}
-
-void MainWindow::rememberRecent(const QString& path) { recent::remember(path); }
-
-void MainWindow::fillRecentMenu() {
-    recent::fillMenu(recentMenu_, [this](const QString& path) {
-        if (confirmDiscard()) openFile(path);
-    });
 }
 
 void MainWindow::updateTitle() {
@@ -879,12 +771,7 @@ void MainWindow::startUp(const QStringList& arguments) {
     for (const QString& a : arguments) {
         if (a.startsWith(QStringLiteral("--compare="))) {
             const QString other = a.mid(10);
-            QTimer::singleShot(0, this, [this, other] {
-                if (CompareDialog* d = compareWith(other)) {
-                    d->setAttribute(Qt::WA_DeleteOnClose);
-                    d->show();
-                }
-            });
+            QTimer::singleShot(0, compare_, [this, other] { compare_->show(other); });
         }
     }
     for (const QString& a : arguments) {
@@ -911,58 +798,33 @@ void MainWindow::closeEvent(QCloseEvent* e) {
     s.setValue(QStringLiteral("window/geometry"), saveGeometry());
     s.setValue(QStringLiteral("window/state"), saveState());
     e->accept();
-    // A clean close: this session's autosave has nothing left to protect.
-    keeper_->stop();
-    keeper_->forget();
+    session_->closedCleanly();
 }
 
-// ---- the helpers' entry points: the window only wires ---------------------
+// ---- the helpers' entry points: the window only forwards -------------------
 
-void MainWindow::checkDiskNow() { notice_->checkNow(); }
-bool MainWindow::diskNoticeShown() const { return notice_->noticeShown(); }
+bool MainWindow::openFile(const QString& path) { return session_->open(path); }
+bool MainWindow::saveFile(const QString& path) { return session_->saveTo(path); }
+bool MainWindow::save() { return session_->save(); }
+bool MainWindow::confirmDiscard() { return session_->confirmDiscard(); }
+void MainWindow::newWorksheet() { session_->newWorksheet(); }
+QString MainWindow::openDialogFolder() const { return session_->openDialogFolder(); }
 
-void MainWindow::reloadFromDisk() {
-    const QString path = doc_.filePath();
-    if (path.isEmpty()) return;
-    if (openFile(path)) {
-        notice_->hide();
-        statusBar()->showMessage(tr("Reloaded %1 from disk").arg(QFileInfo(path).fileName()), 4000);
-    }
-}
+void MainWindow::checkDiskNow() { session_->diskWatch()->checkNow(); }
+bool MainWindow::diskNoticeShown() const { return session_->diskWatch()->noticeShown(); }
+void MainWindow::reloadFromDisk() { session_->reloadFromDisk(); }
 
-void MainWindow::setAutosaveInterval(int ms) { keeper_->setInterval(ms); }
-int MainWindow::autosaveInterval() const { return keeper_->interval(); }
-void MainWindow::setAutosaveFolder(const QString& folder) { keeper_->setFolder(folder); }
-AutosaveStore* MainWindow::autosaveStore() const { return keeper_->store(); }
-void MainWindow::autosaveNow() { keeper_->autosaveNow(); }
-bool MainWindow::offerRecovery() { return keeper_->offerRecovery(); }
+void MainWindow::setAutosaveInterval(int ms) { session_->autosave()->setInterval(ms); }
+int MainWindow::autosaveInterval() const { return session_->autosave()->interval(); }
+void MainWindow::setAutosaveFolder(const QString& folder) { session_->autosave()->setFolder(folder); }
+AutosaveStore* MainWindow::autosaveStore() const { return session_->autosave()->store(); }
+void MainWindow::autosaveNow() { session_->autosave()->autosaveNow(); }
+bool MainWindow::offerRecovery() { return session_->autosave()->offerRecovery(); }
 
-bool MainWindow::exported(bool ok) {
-    if (ok) lastError_.clear();
-    return ok;
-}
-bool MainWindow::exportReport(const QString& path, PageSize pageSize) { return exported(exporter_->exportReport(path, pageSize)); }
-bool MainWindow::exportChartImage(const QString& path, ChartKind kind) { return exported(exporter_->exportChartImage(path, kind)); }
-bool MainWindow::exportLedger(const QString& path) { return exported(exporter_->exportLedger(path)); }
-bool MainWindow::exportResults(const QString& path) { return exported(exporter_->exportResults(path)); }
-
-CompareDialog* MainWindow::compareWith(const QString& path) {
-    QString error;
-    CompareDialog* d = CompareDialog::againstFile(doc_, path, &error, this);
-    if (!d) reportError(tr("Cannot compare"), error);
-    else lastError_.clear();
-    return d;
-}
-
-void MainWindow::compareDialog() {
-    const QString start = doc_.filePath().isEmpty() ? QStringLiteral(HEATCHAIN_SAMPLES_DIR) : QFileInfo(doc_.filePath()).path();
-    const QString path = QFileDialog::getOpenFileName(this, tr("Compare with worksheet"), start,
-                                                      tr("Heatchain worksheets (*.hchain);;All files (*)"));
-    if (path.isEmpty()) return;
-    if (CompareDialog* d = compareWith(path)) {
-        d->setAttribute(Qt::WA_DeleteOnClose);
-        d->show();
-    }
-}
+bool MainWindow::exportReport(const QString& path, PageSize pageSize) { return exporter_->exportReport(path, pageSize); }
+bool MainWindow::exportChartImage(const QString& path, ChartKind kind) { return exporter_->exportChartImage(path, kind); }
+bool MainWindow::exportLedger(const QString& path) { return exporter_->exportLedger(path); }
+bool MainWindow::exportResults(const QString& path) { return exporter_->exportResults(path); }
+CompareDialog* MainWindow::compareWith(const QString& path) { return compare_->compareWith(path); }
 
 }  // namespace heatchain::gui

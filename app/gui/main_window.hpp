@@ -1,11 +1,11 @@
 #pragma once
-// The main window only wires actions to commands and lays out the views:
-// chain canvas and ledger in the middle, step panel on the left, charts on
-// the right, messages below. Watching the file on disk (DiskWatch), autosave
-// and recovery (AutosaveKeeper), exports (Exporter) and the revision
-// comparison (CompareDialog::againstFile) are classes of their own.
+// The main window only wires: it builds the menus, toolbars and docks and
+// connects them to the document and to the classes that do the work. The
+// worksheet's life as a file (open, save, ask before discarding, disk watch,
+// autosave and recovery) is FileSession's; exports are Exporter's; the
+// revision comparison is RevisionCompare's. The public file and export calls
+// below forward to them, so tests drive the window as a user would.
 #include <QDockWidget>
-#include <QFileSystemWatcher>
 #include <QFrame>
 #include <QLabel>
 #include <QLineEdit>
@@ -18,11 +18,11 @@
 #include <memory>
 
 #include "autosave.hpp"
-#include "disk_watch.hpp"
 #include "exporter.hpp"
+#include "file_session.hpp"
 #include "heatchain/report.hpp"
 #include "questions.hpp"
-#include "recovery.hpp"
+#include "revision_compare.hpp"
 
 #include "chain_view.hpp"
 #include "chart_widget.hpp"
@@ -134,12 +134,8 @@ protected:
 private:
     void buildActions();
     void buildDocks();
-    void openDialog();
     void showGettingStarted();
-    bool saveAsDialog();
     Answer ask(Question q, const QString& text);
-    void compareDialog();
-    bool exported(bool ok);
     void editSettings();
     void editUtilities();
     void openSweep();
@@ -151,8 +147,6 @@ private:
     void moveSelected(int delta);
     void updateTitle();
     void updateStatus();
-    void rememberRecent(const QString& path);
-    void fillRecentMenu();
     void reportError(const QString& title, const QString& text);
 
     ProjectDocument doc_;
@@ -160,7 +154,6 @@ private:
     StepEditor* editor_;
     StartEditor* startEditor_ = nullptr;
     QAction* gaugeAction_ = nullptr;
-    bool bakMentioned_ = false;
     LedgerModel* ledger_;
     QTableView* ledgerView_;
     ChartWidget* ts_;
@@ -180,9 +173,9 @@ private:
     Asker asker_;
     QString lastError_;
     QString lastQuestion_;
-    DiskWatch* notice_ = nullptr;
-    AutosaveKeeper* keeper_ = nullptr;
+    FileSession* session_ = nullptr;
     Exporter* exporter_ = nullptr;
+    RevisionCompare* compare_ = nullptr;
     StreamActions* streams_ = nullptr;
     HeatRecoveryView* heatRecovery_ = nullptr;
     QDockWidget* heatRecoveryDock_ = nullptr;

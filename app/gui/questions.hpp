@@ -16,13 +16,15 @@ using Asker = std::function<Answer(Question, const QString& text)>;
 Answer askInDialog(QWidget* parent, Question q, const QString& text);
 
 // What the helpers of the window need from it: ask a question, report an
-// error (a dialog, or recorded when no one is there to press OK), and a
-// line for the status bar.
+// error (a dialog, or recorded when no one is there to press OK), a line for
+// the status bar, and word that the last reported error no longer applies
+// (an open, export or comparison that then succeeded).
 struct WindowHooks {
     std::function<Answer(Question, const QString&)> ask;
     std::function<bool()> confirmDiscard;
     std::function<void(const QString& title, const QString& text)> reportError;
     std::function<void(const QString& text, int ms)> status;
+    std::function<void()> clearError = [] {};
 };
 
 }  // namespace heatchain::gui
