@@ -34,37 +34,35 @@ std::optional<double> solveDelta(const TauPowers& tp, double pi, Branch b, doubl
 std::optional<Sat> satByPressure(double T, double divider, double piStart, double dlStart, double dvStart) {
     const double tau = Tc / T;
     const TauPowers tp = tauPowers(tau);
-    double lo = 0, hi = std::numeric_limits<double>::infinity();
-    double pi = piStart, dl = dlStart, dv = dvStart;
-    for (int it = 0; it < 200; ++it) {
-        auto v = solveDelta(tp, pi, Branch::Vapour, 0.0, divider, dv);
-        auto l = solveDelta(tp, pi, Branch::Liquid, divider, kDeltaMax, dl);
-        double next;
+    double pi = piStart, dl = dlStart, dv = dvStart;  // at the last pressure probed
+    bool both = false;                               // both roots exist there
+    auto probe = [&](double p) {
+        pi = p;
+        const auto v = solveDelta(tp, pi, Branch::Vapour, 0.0, divider, dv);
         if (!v) {
-            hi = pi;  // above the vapour spinodal
-            next = std::isfinite(hi) ? 0.5 * (lo + hi) : 0.5 * pi;
-        } else if (!l) {
-            lo = pi;  // below the liquid spinodal
-            next = std::isfinite(hi) ? 0.5 * (lo + hi) : 2.0 * pi;
-        } else {
-            dv = *v;
-            dl = *l;
-            const Residual rv = residual(dv, tp), rl = residual(dl, tp);
-            const double dg = reducedGibbsDensityPart(dv, std::log(dv), rv) -
-                              reducedGibbsDensityPart(dl, std::log(dl), rl);
-            if (dg > 0) hi = pi; else lo = pi;
-            const double slope = 1.0 / dv - 1.0 / dl;
-            next = pi - dg / slope;
-            if (std::abs(next - pi) <= 1e-14 * pi) return Sat{next * rhoc * R * T, dl, dv};
-            if (!(next > lo && next < hi)) next = std::isfinite(hi) ? 0.5 * (lo + hi) : 2.0 * pi;
+            both = false;
+            return NewtonProbe::rootBelow();  // above the vapour spinodal
         }
-        if (std::isfinite(hi) && hi - lo <= 1e-15 * hi) {
-            if (v && l) return Sat{pi * rhoc * R * T, dl, dv};
-            return std::nullopt;
+        const auto l = solveDelta(tp, pi, Branch::Liquid, divider, kDeltaMax, dl);
+        if (!l) {
+            both = false;
+            return NewtonProbe::rootAbove();  // below the liquid spinodal
         }
-        pi = next;
-    }
-    return std::nullopt;
+        both = true;
+        dv = *v;
+        dl = *l;
+        const Residual rv = residual(dv, tp), rl = residual(dl, tp);
+        const double dg = reducedGibbsDensityPart(dv, std::log(dv), rv) - reducedGibbsDensityPart(dl, std::log(dl), rl);
+        return NewtonProbe{dg, pi * (1.0 / dv - 1.0 / dl)};  // d(dg)/d ln pi
+    };
+    // Newton in ln pi, the bracket open at both ends until probes bound it,
+    // doubling or halving pi from the last bound.
+    const auto x = safeguardedNewton(probe, piStart, 0.0, std::numeric_limits<double>::infinity(), /*rising=*/true,
+                                     {1e-14, 1e-15, 0.0, 200, /*logScale=*/true,
+                                      std::numeric_limits<double>::infinity(), 0.5});
+    if (!x || !x->converged() || !both) return std::nullopt;
+    const double piSat = x->end == NewtonRoot::End::Step ? x->x : pi;
+    return Sat{piSat * rhoc * R * T, dl, dv};
 }
 
 std::optional<Sat> satNewton(double T, double dl, double dv) {

@@ -29,9 +29,9 @@ struct Sat {
     double dl = 0, dv = 0;        // reduced densities
 };
 
-// Saturation at tau by Newton on the reduced pressure pi with equal Gibbs
-// energies: d(g/RT)/dpi = 1/delta at fixed T, so the difference's slope is
-// 1/dv - 1/dl. Each pressure gets the two roots on either side of
+// Saturation at tau by Newton on ln pi (pi the reduced pressure) with equal
+// Gibbs energies: d(g/RT)/dpi = 1/delta at fixed T, so the difference's
+// slope in ln pi is pi (1/dv - 1/dl). Each pressure gets the two roots on either side of
 // `divider`, a reduced density inside the unstable region. Robust (a missing
 // root moves the pressure bracket) but slower than satNewton below; used to
 // build the ancillary table and as the fallback.

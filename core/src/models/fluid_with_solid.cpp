@@ -8,6 +8,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <optional>
 
 namespace heatchain::detail {
 
@@ -89,30 +90,30 @@ Result<double> FluidWithSolidModel::sublimationPressure(double T) const {
     // Start: Clausius–Clapeyron from the triple point with Δh_sub there;
     // then Newton in ln P on (g_v - g_s)/(R T), whose slope is
     // P (v_v - v_s)/(R T), kept inside a shrinking bracket (the vapour root
-    // vanishes above the vapour spinodal: too high).
-    double P = Ptp_ * std::exp(-dh / Rs_ * (1.0 / T - 1.0 / Ttp_));
-    double lo = 0, hi = Ptp_;
-    for (int it = 0; it < 200; ++it) {
-        P = std::clamp(P, 1e-300, Ptp_);
+    // vanishes above the vapour spinodal: too high). The bracket is open
+    // below and steps down three decades at a time until a probe bounds it;
+    // steps are cut to e^±5.
+    const double P0 = Ptp_ * std::exp(-dh / Rs_ * (1.0 / T - 1.0 / Ttp_));
+    double lastP = P0;
+    std::optional<Error> failed;
+    auto probe = [&](double P) {
+        lastP = P;
         const auto gv = vapourGibbs(T, P);
-        double next = -1;
-        if (!gv) {
-            hi = P;
-        } else {
-            const auto gs = solidGibbs(T, P);
-            if (!gs) return gs.error();
-            const double f = (gv->g - gs->g) / (Rs_ * T);  // > 0: solid favoured, P too high
-            if (f > 0) hi = P; else lo = P;
-            const double df = P * (gv->v - gs->v) / (Rs_ * T);  // df/dlnP
-            const double step = -f / df;
-            if (std::abs(step) < lineTolerance_) return P;
-            next = P * std::exp(std::clamp(step, -5.0, 5.0));
+        if (!gv) return NewtonProbe::rootBelow();
+        const auto gs = solidGibbs(T, P);
+        if (!gs) {
+            failed = gs.error();
+            return NewtonProbe{};
         }
-        if (!(next > lo && next < hi)) next = lo > 0 ? std::sqrt(lo * hi) : 1e-3 * hi;
-        if (hi - lo < 1e-14 * hi) return P;
-        P = next;
-    }
-    return makeError("the sublimation pressure of " + who() + " at " + numberText(T) + " K did not converge");
+        // f > 0: the solid is favoured, P too high.
+        return NewtonProbe{(gv->g - gs->g) / (Rs_ * T), P * (gv->v - gs->v) / (Rs_ * T)};
+    };
+    const auto x = safeguardedNewton(probe, std::min(P0, Ptp_), 0.0, Ptp_, /*rising=*/true,
+                                     {lineTolerance_, 1e-14, 0.0, 200, /*logScale=*/true, 5.0, 1e-3});
+    if (failed) return *failed;
+    if (!x || !x->converged())
+        return makeError("the sublimation pressure of " + who() + " at " + numberText(T) + " K did not converge");
+    return lastP;  // the point probed last, where the Newton step was below the tolerance or the bracket closed
 }
 
 Result<double> FluidWithSolidModel::sublimationTemperature(double P) const {

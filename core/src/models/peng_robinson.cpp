@@ -378,41 +378,32 @@ Result<PengRobinsonModel::Saturation> PengRobinsonModel::saturation(double T, do
     // Start: Wilson's correlation (ln Pr = 5.373 (1 + ω)(1 - 1/Tr)), from memory.
     double P = pStart > 0 ? pStart : Pc_ * std::exp(5.373 * (1.0 + omega_) * (1.0 - Tc_ / T));
     P = std::min(P, Pc_ * 0.999999);
-    double lo = 0, hi = Pc_;  // bracket on P
-    // Equal fugacities: f(lnP) = lnφ_L - lnφ_V, with df/dlnP = Z_L - Z_V exactly.
-    for (int it = 0; it < 200; ++it) {
-        const Roots r = roots(T, P, al);
-        double next;
-        if (r.two) {
-            const RootEval l = evalRoot(T, P, r.liquid, al, false);
-            const RootEval v = evalRoot(T, P, r.vapor, al, false);
-            const double f = l.lnPhi - v.lnPhi;
-            if (f > 0) lo = P; else hi = P;
-            const double step = -f / (l.Z - v.Z);
-            next = P * std::exp(std::clamp(step, -2.0, 2.0));
-            if (std::abs(step) < 1e-12 || f == 0) {
-                out.P = P;
-                out.liquid = evalRoot(T, P, r.liquid, al, true);
-                out.vapor = evalRoot(T, P, r.vapor, al, true);
-                return out;
-            }
-        } else {
-            // One root: vapour-like means P is below the liquid spinodal (too low).
-            if (r.singleIsLiquidLike) hi = P; else lo = P;
-            next = -1;
-        }
-        if (!(next > lo && next < hi)) next = lo > 0 ? std::sqrt(lo * hi) : 0.1 * hi;
-        if (hi - lo < 1e-14 * hi) {  // bracket collapsed onto a merged-root region
-            next = 0.5 * (lo + hi);
-            const Roots rr = roots(T, next, al);
-            out.P = next;
-            out.liquid = evalRoot(T, next, rr.liquid, al, true);
-            out.vapor = evalRoot(T, next, rr.vapor, al, true);
-            return out;
-        }
-        P = next;
-    }
-    return makeError("the saturation pressure of " + who() + " at " + numberText(T) + " K did not converge");
+    // Equal fugacities: Newton in ln P on f = lnφ_L - lnφ_V, which falls with
+    // P, with df/dlnP = Z_L - Z_V exactly. One root only: vapour-like means P
+    // is below the liquid spinodal (too low), liquid-like above the vapour
+    // spinodal (too high). The bracket is open below (P > 0) and steps down a
+    // decade at a time until a probe bounds it; steps are cut to e^±2.
+    Roots last{};
+    double lastP = P;
+    auto probe = [&](double p) {
+        lastP = p;
+        last = roots(T, p, al);
+        if (!last.two)
+            return last.singleIsLiquidLike ? detail::NewtonProbe::rootBelow() : detail::NewtonProbe::rootAbove();
+        const RootEval l = evalRoot(T, p, last.liquid, al, false);
+        const RootEval v = evalRoot(T, p, last.vapor, al, false);
+        return detail::NewtonProbe{l.lnPhi - v.lnPhi, l.Z - v.Z};
+    };
+    const auto x = detail::safeguardedNewton(probe, P, 0.0, Pc_, /*rising=*/false,
+                                             {1e-12, 1e-14, 0.0, 200, /*logScale=*/true, 2.0, 0.1});
+    if (!x || !x->converged())
+        return makeError("the saturation pressure of " + who() + " at " + numberText(T) + " K did not converge");
+    // The point probed last: the saturation (its Newton step was below the
+    // tolerance), or where the bracket collapsed onto a merged-root region.
+    out.P = lastP;
+    out.liquid = evalRoot(T, lastP, last.liquid, al, true);
+    out.vapor = evalRoot(T, lastP, last.vapor, al, true);
+    return out;
 }
 
 Result<double> PengRobinsonModel::boilingTemperature(double P) const {

@@ -5,8 +5,11 @@
 //  - safeguardedNewton: Newton steps when the model gives f and its slope
 //    from one evaluation (dh/dT = cp, Clapeyron, Gibbs–Helmholtz), kept
 //    inside a bracket that shrinks on the sign of f, with a bisection
-//    wherever Newton would leave the bracket or has no usable slope.
-// Both never leave the bracket and stop after a bounded number of steps.
+//    wherever Newton would leave the bracket or has no usable slope; an
+//    end may be open, and the bracket then grows outward from the start;
+//  - newtonPolish: plain Newton from a close start, no bracket.
+// All stop after a bounded number of steps.
+#include <algorithm>
 #include <cmath>
 #include <limits>
 #include <optional>
@@ -104,6 +107,17 @@ struct NewtonOptions {
     double bracketTolerance = 1e-13;  // converged when hi - lo <= bracketTolerance * |hi|
     double residualTolerance = 0;     // converged when |f| <= residualTolerance
     int maxIterations = 100;
+    // Newton in ln x for a positive x that spans decades (a vapour
+    // pressure): the probe's slope is df/d(ln x), a step multiplies x by
+    // e^step, cut to e^±maxLnStep, stepTolerance is absolute in ln x, and a
+    // bisection takes the geometric mean. The bracket may then be open
+    // (lo = 0 or hi = +inf): where a bisection is due while one end is
+    // still open, the next point is hi·openFactor or lo/openFactor, so the
+    // bracket grows outward from the start until probes bound it (bracket
+    // expansion, Press et al., Numerical Recipes, 3rd ed., sec. 9.1).
+    bool logScale = false;
+    double maxLnStep = std::numeric_limits<double>::infinity();
+    double openFactor = 0.5;
 };
 
 struct NewtonRoot {
@@ -128,26 +142,43 @@ template <class Probe>
 std::optional<NewtonRoot> safeguardedNewton(Probe&& probe, double x, double lo, double hi, bool rising,
                                             const NewtonOptions& opt = {}) {
     if (!(hi > lo)) return std::nullopt;
+    auto middle = [&] {
+        if (!opt.logScale) return 0.5 * (lo + hi);
+        if (!(lo > 0)) return hi * opt.openFactor;
+        if (std::isinf(hi)) return lo / opt.openFactor;
+        return std::sqrt(lo * hi);
+    };
     double last = x;
     for (int it = 0; it < opt.maxIterations; ++it) {
-        if (!(x > lo && x < hi)) x = 0.5 * (lo + hi);
+        if (!(x > lo && x < hi)) x = middle();
         const NewtonProbe p = probe(x);
         last = x;
         double next;
         if (!std::isfinite(p.f)) {
             if (p.rootSide == 0) return std::nullopt;
             if (p.rootSide > 0) lo = x; else hi = x;
-            next = 0.5 * (lo + hi);
+            next = middle();
         } else {
             if (std::fabs(p.f) <= opt.residualTolerance) return NewtonRoot{x, NewtonRoot::End::Residual, true};
             if ((p.f > 0) == rising) hi = x; else lo = x;
             const bool usable = std::isfinite(p.slope) && (rising ? p.slope > 0 : p.slope < 0);
-            next = usable ? x - p.f / p.slope : 0.5 * (lo + hi);
-            if (usable && std::fabs(next - x) <= opt.stepTolerance * std::fabs(x))
-                return NewtonRoot{next, NewtonRoot::End::Step, next == x};
-            if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+            if (!usable) {
+                next = middle();
+            } else if (opt.logScale) {
+                const double step = -p.f / p.slope;
+                if (std::fabs(step) <= opt.stepTolerance)
+                    return NewtonRoot{x * std::exp(step), NewtonRoot::End::Step, step == 0};
+                next = x * std::exp(std::clamp(step, -opt.maxLnStep, opt.maxLnStep));
+            } else {
+                next = x - p.f / p.slope;
+                if (std::fabs(next - x) <= opt.stepTolerance * std::fabs(x))
+                    return NewtonRoot{next, NewtonRoot::End::Step, next == x};
+            }
+            if (!(next > lo && next < hi)) next = middle();
         }
-        if (hi - lo <= opt.bracketTolerance * std::fabs(hi)) return NewtonRoot{x, NewtonRoot::End::Bracket, true};
+        const double width = hi - lo;  // infinite while the bracket is open above
+        if (std::isfinite(width) && width <= opt.bracketTolerance * std::fabs(hi))
+            return NewtonRoot{x, NewtonRoot::End::Bracket, true};
         x = next;
     }
     return NewtonRoot{last, NewtonRoot::End::Iterations, true};
