@@ -68,39 +68,35 @@ std::optional<Sat> satByPressure(double T, double divider, double piStart, doubl
 std::optional<Sat> satNewton(double T, double dl, double dv) {
     const double tau = Tc / T;
     const TauPowers tp = tauPowers(tau);
-    Residual rl = residual(dl, tp), rv = residual(dv, tp);
-    for (int it = 0; it < 40; ++it) {
-        const double Jl = reducedPressure(dl, rl), Jv = reducedPressure(dv, rv);
-        const double Kl = reducedGibbsDensityPart(dl, std::log(dl), rl);
-        const double Kv = reducedGibbsDensityPart(dv, std::log(dv), rv);
-        const double Jdl = reducedPressureSlope(dl, rl), Jdv = reducedPressureSlope(dv, rv);
-        if (!(Jdl > 0 && Jdv > 0)) return std::nullopt;
-        const double F1 = Jv - Jl, F2 = Kv - Kl;
-        // Jacobian rows (d/d dl, d/d dv): F1: (-Jdl, Jdv); F2: (-Jdl/dl, Jdv/dv).
-        const double det = Jdl * Jdv * (1.0 / dl - 1.0 / dv);
-        if (!(std::abs(det) > 0)) return std::nullopt;
-        // Solve [-Jdl Jdv; -Jdl/dl Jdv/dv] [x; y] = -[F1; F2].
-        const double x = (-F1 * Jdv / dv + F2 * Jdv) / det;
-        const double y = (-Jdl * (-F2) - (-Jdl / dl) * (-F1)) / det;
+    // Unknowns (dl, dv); equations F1 = Jv - Jl, F2 = Kv - Kl, with
+    // dJ/ddelta = J' and dK/ddelta = J'/delta.
+    auto probe = [&](const std::array<double, 2>& d) {
+        const Residual rl = residual(d[0], tp), rv = residual(d[1], tp);
+        const double Jdl = reducedPressureSlope(d[0], rl), Jdv = reducedPressureSlope(d[1], rv);
+        Newton2Probe p;
+        if (!(Jdl > 0 && Jdv > 0)) return p;  // a density inside the spinodal: give up
+        p.f = {reducedPressure(d[1], rv) - reducedPressure(d[0], rl),
+               reducedGibbsDensityPart(d[1], std::log(d[1]), rv) - reducedGibbsDensityPart(d[0], std::log(d[0]), rl)};
+        p.j = {{{-Jdl, Jdv}, {-Jdl / d[0], Jdv / d[1]}}};
+        return p;
+    };
+    // Halve a step until the liquid stays denser than the vapour, the vapour
+    // positive and the liquid inside the searched range.
+    auto limit = [](const std::array<double, 2>& d, std::array<double, 2>& step) {
         double lam = 1.0;
-        double nl = dl + x, nv = dv + y;
+        double nl = d[0] + step[0], nv = d[1] + step[1];
         for (int k = 0; k < 30 && !(nl > nv && nv > 0 && nl < kDeltaMax); ++k) {
             lam *= 0.5;
-            nl = dl + lam * x;
-            nv = dv + lam * y;
+            nl = d[0] + lam * step[0];
+            nv = d[1] + lam * step[1];
         }
-        if (!(nl > nv && nv > 0)) return std::nullopt;
-        const bool done = std::abs(nl - dl) <= 1e-13 * dl && std::abs(nv - dv) <= 1e-13 * dv;
-        dl = nl;
-        dv = nv;
-        rl = residual(dl, tp);
-        rv = residual(dv, tp);
-        if (done) {
-            const double J = reducedPressure(dv, rv);
-            return Sat{J * rhoc * R * T, dl, dv};
-        }
-    }
-    return std::nullopt;
+        step = {lam * step[0], lam * step[1]};
+        return nl > nv && nv > 0;
+    };
+    const auto d = newton2(probe, {dl, dv}, limit, {1e-13, 40});
+    if (!d) return std::nullopt;
+    const double J = reducedPressure((*d)[1], residual((*d)[1], tp));
+    return Sat{J * rhoc * R * T, (*d)[0], (*d)[1]};
 }
 
 const Ancillary& ancillary() {

@@ -7,9 +7,12 @@
 //    inside a bracket that shrinks on the sign of f, with a bisection
 //    wherever Newton would leave the bracket or has no usable slope; an
 //    end may be open, and the bracket then grows outward from the start;
-//  - newtonPolish: plain Newton from a close start, no bracket.
+//  - newtonPolish: plain Newton from a close start, no bracket;
+//  - newton2: Newton on two equations in two unknowns, each step passed
+//    through the caller's limit (a phase-equilibrium pair, (rho, T)).
 // All stop after a bounded number of steps.
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <limits>
 #include <optional>
@@ -206,6 +209,47 @@ std::optional<double> newtonPolish(Probe&& probe, double x, const PolishOptions&
         const double step = p.f / p.slope;
         x -= step;
         if (x > 0 && std::fabs(step) <= opt.stepTolerance * x) return x;
+    }
+    return std::nullopt;
+}
+
+// Newton's method on two equations F(x) = 0 in two unknowns, the linear
+// step J dx = -F solved by Cramer's rule. The caller's probe gives F and the
+// Jacobian J at x, or says the residuals are small enough there (`done`), or
+// gives up (NaN in F). Each step passes through limit(x, dx), which may
+// shorten dx in place (keep densities ordered, stay near a good start) or
+// return false to give up. Returns x where the probe said done, or x after a
+// step with |dx_i| <= stepTolerance·|x_i| for both unknowns; nothing when it
+// gives up, J is singular, or the iterations run out.
+struct Newton2Probe {
+    std::array<double, 2> f{std::numeric_limits<double>::quiet_NaN(), std::numeric_limits<double>::quiet_NaN()};
+    std::array<std::array<double, 2>, 2> j{};  // j[r][c] = dF_r/dx_c
+    bool done = false;
+};
+
+struct Newton2Options {
+    double stepTolerance = -1;  // negative: no step test
+    int maxIterations = 20;
+};
+
+template <class Probe, class Limit>
+std::optional<std::array<double, 2>> newton2(Probe&& probe, std::array<double, 2> x, Limit&& limit,
+                                             const Newton2Options& opt) {
+    for (int it = 0; it < opt.maxIterations; ++it) {
+        const Newton2Probe p = probe(std::as_const(x));
+        if (p.done) return x;
+        if (!std::isfinite(p.f[0]) || !std::isfinite(p.f[1])) return std::nullopt;
+        const auto& j = p.j;
+        const double det = j[0][0] * j[1][1] - j[0][1] * j[1][0];
+        if (!(std::fabs(det) > 0) || !std::isfinite(det)) return std::nullopt;
+        std::array<double, 2> dx{-(p.f[0] * j[1][1] - p.f[1] * j[0][1]) / det,
+                                 -(j[0][0] * p.f[1] - j[1][0] * p.f[0]) / det};
+        if (!limit(std::as_const(x), dx)) return std::nullopt;
+        const bool small = std::fabs(dx[0]) <= opt.stepTolerance * std::fabs(x[0]) &&
+                           std::fabs(dx[1]) <= opt.stepTolerance * std::fabs(x[1]);
+        x[0] += dx[0];
+        x[1] += dx[1];
+        if (small) return x;
     }
     return std::nullopt;
 }
