@@ -13,7 +13,7 @@
 #include <vector>
 
 #include "heatchain/constants.hpp"
-#include "models/cubic.hpp"
+#include "numerics/cubic.hpp"
 #include "models/fluid_with_solid.hpp"
 #include "models/number_text.hpp"
 #include "numerics/root.hpp"
@@ -37,20 +37,10 @@ struct CriticalOmegas {
 const CriticalOmegas& criticalOmegas() {
     static const CriticalOmegas k = [] {
         // Matching Z^3 - (1-B) Z^2 + (A - 3B^2 - 2B) Z - (AB - B^2 - B^3) with
-        // (Z - Zc)^3: Zc = (1-B)/3, A = 3Zc^2 + 3B^2 + 2B, and
-        // F(B) = AB - B^2 - B^3 - Zc^3 = 0, solved by Newton from 0.0778.
-        auto F = [](double B) {
-            const double Zc = (1.0 - B) / 3.0;
-            const double A = 3.0 * Zc * Zc + 3.0 * B * B + 2.0 * B;
-            return A * B - B * B - B * B * B - Zc * Zc * Zc;
-        };
-        double B = 0.0778;
-        for (int i = 0; i < 50; ++i) {
-            const double h = 1e-7;
-            const double step = F(B) / ((F(B + h) - F(B - h)) / (2 * h));
-            B -= step;
-            if (std::abs(step) < 1e-17) break;
-        }
+        // (Z - Zc)^3: Zc = (1-B)/3, A = 3Zc^2 + 3B^2 + 2B = (1 + 4B + 10B^2)/3,
+        // and AB - B^2 - B^3 = Zc^3 leaves 64 B^3 + 6 B^2 + 12 B - 1 = 0,
+        // whose one real root is B.
+        const double B = detail::solveCubic(6.0 / 64.0, 12.0 / 64.0, -1.0 / 64.0).z[0];
         const double Zc = (1.0 - B) / 3.0;
         return CriticalOmegas{3.0 * Zc * Zc + 3.0 * B * B + 2.0 * B, B};
     }();

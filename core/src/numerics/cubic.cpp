@@ -1,4 +1,4 @@
-#include "models/cubic.hpp"
+#include "numerics/cubic.hpp"
 
 #include <algorithm>
 #include <limits>
