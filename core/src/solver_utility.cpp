@@ -11,6 +11,7 @@
 #include <limits>
 #include <string>
 
+#include "numerics/minimum.hpp"
 #include "solver_internal.hpp"
 
 namespace heatchain {
@@ -230,29 +231,19 @@ Result<StepUtility> serveByUtility(const Ctx& c, const Step& step, std::size_t i
                 const double Tu = u.temperatureAt(std::clamp(*q / o.Q, 0.0, 1.0));
                 return asSource ? Tu - st->T : st->T - Tu;
             };
-            const double gr = 0.5 * (std::sqrt(5.0) - 1.0);
-            double a = cv[lo].T, b = cv[hi].T;
-            double Tm1 = 0, Tm2 = 0, q1 = 0, q2 = 0;
-            double x1 = b - gr * (b - a), x2 = a + gr * (b - a);
-            double f1 = approachAt(x1, &Tm1, &q1), f2 = approachAt(x2, &Tm2, &q2);
-            for (int it = 0; it < 20 && std::fabs(b - a) > 1e-9; ++it) {
-                if (f1 < f2) {
-                    b = x2; x2 = x1; f2 = f1; Tm2 = Tm1; q2 = q1;
-                    x1 = b - gr * (b - a);
-                    f1 = approachAt(x1, &Tm1, &q1);
-                } else {
-                    a = x1; x1 = x2; f1 = f2; Tm1 = Tm2; q1 = q2;
-                    x2 = a + gr * (b - a);
-                    f2 = approachAt(x2, &Tm2, &q2);
-                }
-            }
-            const double f = std::min(f1, f2);
-            if (f < su.minApproach) {
-                const bool one = f1 <= f2;
-                su.minApproach = f;
-                su.Tmaterial = one ? Tm1 : Tm2;
-                su.approachDuty = std::fabs(one ? q1 : q2);
-                su.Tutility = u.temperatureAt(std::clamp((one ? q1 : q2) / o.Q, 0.0, 1.0));
+            const auto best = detail::goldenSection(
+                [&](double T) {
+                    double Tm = 0, q = 0;
+                    return approachAt(T, &Tm, &q);
+                },
+                cv[lo].T, cv[hi].T, 1e-9, 20);
+            if (best.f < su.minApproach) {
+                double Tm = 0, q = 0;
+                approachAt(best.x, &Tm, &q);
+                su.minApproach = best.f;
+                su.Tmaterial = Tm;
+                su.approachDuty = std::fabs(q);
+                su.Tutility = u.temperatureAt(std::clamp(q / o.Q, 0.0, 1.0));
                 su.position = "inside";
             }
         }

@@ -9,6 +9,7 @@
 #include <string>
 
 #include "heatchain/transfer.hpp"
+#include "numerics/root.hpp"
 #include "solver_internal.hpp"
 
 namespace heatchain::solver_detail {
@@ -239,12 +240,7 @@ Result<std::optional<Step>> resolveTransferTarget(const Ctx& c, const Step& step
     };
     // The area and the time grow with the duty without bound toward the
     // limit: bisect on the duty.
-    double lo = 0, hi = Qmax;
-    for (int it = 0; it < 200 && hi - lo > 1e-13 * Qmax; ++it) {
-        const double mid = 0.5 * (lo + hi);
-        if (measure(mid) < target) lo = mid;
-        else hi = mid;
-    }
+    const auto [lo, hi] = detail::bisect([&](double Q) { return measure(Q) < target; }, 0.0, Qmax, 1e-13 * Qmax, 200);
     const double duty = 0.5 * (lo + hi);
     if (hi >= Qmax * (1 - 1e-12) && measure(hi) < target)
         return stepError(step, idx, std::string(step.to.time ? "in " + step.to.time->text : "with the area given") +

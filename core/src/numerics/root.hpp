@@ -9,7 +9,9 @@
 //    end may be open, and the bracket then grows outward from the start;
 //  - newtonPolish: plain Newton from a close start, no bracket;
 //  - newton2: Newton on two equations in two unknowns, each step passed
-//    through the caller's limit (a phase-equilibrium pair, (rho, T)).
+//    through the caller's limit (a phase-equilibrium pair, (rho, T));
+//  - bisect: halving for a monotone test that may jump or be infinite,
+//    where no interpolation helps.
 // All stop after a bounded number of steps.
 #include <algorithm>
 #include <array>
@@ -252,6 +254,22 @@ std::optional<std::array<double, 2>> newton2(Probe&& probe, std::array<double, 2
         if (small) return x;
     }
     return std::nullopt;
+}
+
+// Bisection of [lo, hi] on a test that holds below some point and fails
+// above it (a monotone quantity against a target), for a quantity that may
+// jump or be infinite where interpolation has nothing to work with. Halves
+// until hi - lo <= width or after maxIterations halvings; returns the final
+// (lo, hi), the point lying between them. below(lo) is assumed to hold and
+// below(hi) to fail; neither is evaluated.
+template <class Below>
+std::pair<double, double> bisect(Below&& below, double lo, double hi, double width, int maxIterations) {
+    for (int it = 0; it < maxIterations && hi - lo > width; ++it) {
+        const double mid = 0.5 * (lo + hi);
+        if (below(mid)) lo = mid;
+        else hi = mid;
+    }
+    return {lo, hi};
 }
 
 }  // namespace heatchain::detail
