@@ -17,9 +17,8 @@
 // then unknown top-level fields in their original order, then steps (last, because it is the long
 // part a reviewer scrolls through). Inside a step: id, kind, to, at,
 // fraction, path, n, efficiency, source, sink, note, then unknown fields.
-// Dimensionless numbers are written as nlohmann/json prints the parsed
-// double (shortest form that reads back to the same value: "2.50" becomes
-// "2.5" on the first save, and stays so).
+// Dimensionless numbers are written with the characters typed in the file
+// ("2.50" stays "2.50").
 #include "heatchain/project_file.hpp"
 
 #include <cerrno>

@@ -1,14 +1,15 @@
 // Writing *.hchain project files, format version 1 (shared design:
-// project-format.md). The writer mirrors the reader: one object per write, one
-// member per part of the file, in the reader's key order (project_file.cpp's
-// header gives it). Writing is stable: fixed key order, 2-space indent,
-// quantities exactly as typed, unknown fields written back where they were.
+// project-format.md). The writer mirrors the reader: one member function per
+// part of the file, in the reader's key order (project_file.cpp's header
+// gives it), writing the text directly through JsonWriter (json_writer.hpp).
+// Writing is stable: fixed key order, 2-space indent, quantities and numbers
+// exactly as typed, unknown fields written back where they were.
 #include <sstream>
 #include <string>
 #include <string_view>
-#include <vector>
 
 #include "heatchain/project_file.hpp"
+#include "json_writer.hpp"
 #include "project_file_parts.hpp"
 
 namespace heatchain {
@@ -17,7 +18,6 @@ namespace {
 
 using detail::kProjectFormatName;
 
-
 // The SI base unit of a dimension, for a quantity built in code without text.
 std::string_view siSymbol(Dimension d) {
     for (const UnitInfo& u : knownUnits())
@@ -25,7 +25,7 @@ std::string_view siSymbol(Dimension d) {
     return "";
 }
 
-Json quantityJson(const Quantity& q, Dimension d) {
+std::string quantityText(const Quantity& q, Dimension d) {
     if (!q.text.empty()) return q.text;
     std::ostringstream s;
     s.precision(17);
@@ -33,225 +33,242 @@ Json quantityJson(const Quantity& q, Dimension d) {
     return s.str();
 }
 
-void appendExtra(Json& j, const Json& extra) {
-    if (!extra.is_object()) return;
-    for (auto it = extra.begin(); it != extra.end(); ++it)
-        if (!j.contains(it.key())) j[it.key()] = it.value();
-}
-
-// The writer mirrors the reader: one object per write, one member per part
-// of the file. Numbers typed in a file are written through placeholders
-// (when `typed` is given) that writeProject swaps for their original
-// characters after the dump: nlohmann/json always reprints a double in its
-// own shortest form.
+// The writer mirrors the reader: one member function per part of the file,
+// each writing its object straight into the text in the reader's key order,
+// with the unknown fields after the known ones.
 class Writer {
 public:
-    explicit Writer(std::vector<std::string>* typed) : typed_(typed) {}
+    explicit Writer(detail::JsonWriter& w) : w_(w) {}
 
-    std::string project(const Project& p) const;
+    void project(const Project& p);
 
 private:
-    std::vector<std::string>* typed_;  // null: numbers in nlohmann/json's form
+    detail::JsonWriter& w_;
 
-    Json number(const Number& n) const {
-        if (typed_ && !n.text.empty() && n.raw.is_number()) {
-            typed_->push_back(n.text);
-            return "\x01hcnum" + std::to_string(typed_->size() - 1) + "\x01";
-        }
-        if (n.raw.is_number() || n.raw.is_string()) return n.raw;
-        return n.value;
+    static void quantity(detail::ObjectWriter& o, std::string_view key, const Quantity& q, Dimension d) {
+        o.key(key).string(quantityText(q, d));
     }
 
-    static Json reservoir(const Reservoir& r) {
-        Json j = Json::object();
-        if (r.T) j["T"] = quantityJson(*r.T, Dimension::Temperature);
-        if (r.utility) j["utility"] = *r.utility;
-        appendExtra(j, r.extra);
-        return j;
+    // A number as typed ("0.60" stays "0.60"); one made in code without
+    // characters in its shortest form.
+    static void number(detail::ObjectWriter& o, std::string_view key, const Number& n) {
+        detail::JsonWriter& w = o.key(key);
+        if (!n.text.empty() && n.raw.is_number())
+            w.typedNumber(n.text);
+        else if (n.raw.is_number() || n.raw.is_string())
+            w.value(n.raw);
+        else
+            w.number(n.value);
     }
 
-    Json step(const Step& s, SystemKind system) const {
-        Json j = Json::object();
-        j["id"] = s.id;
-        j["kind"] = std::string(stepKindId(s.kind));
+    void reservoir(const Reservoir& r) {
+        detail::ObjectWriter o(w_);
+        if (r.T) quantity(o, "T", *r.T, Dimension::Temperature);
+        if (r.utility) o.key("utility").string(*r.utility);
+        o.unknown(r.extra);
+        o.end();
+    }
+
+    void target(const StepTarget& t, SystemKind system) {
+        detail::ObjectWriter o(w_);
+        if (t.T) quantity(o, "T", *t.T, Dimension::Temperature);
+        if (t.P) quantity(o, "P", *t.P, Dimension::Pressure);
+        if (t.duty) quantity(o, "duty", *t.duty, system == SystemKind::Closed ? Dimension::Energy : Dimension::Power);
+        if (t.quality) number(o, "quality", *t.quality);
+        if (t.ratio) number(o, "ratio", *t.ratio);
+        if (t.rated) o.key("rated").boolean(true);
+        if (t.time) quantity(o, "time", *t.time, Dimension::Time);
+        o.unknown(t.extra);
+        o.end();
+    }
+
+    void step(const Step& s, SystemKind system) {
+        detail::ObjectWriter o(w_);
+        o.key("id").string(s.id);
+        o.key("kind").string(stepKindId(s.kind));
         if (s.hasTo) {
-            Json to = Json::object();
-            if (s.to.T) to["T"] = quantityJson(*s.to.T, Dimension::Temperature);
-            if (s.to.P) to["P"] = quantityJson(*s.to.P, Dimension::Pressure);
-            if (s.to.duty)
-                to["duty"] = quantityJson(*s.to.duty, system == SystemKind::Closed ? Dimension::Energy : Dimension::Power);
-            if (s.to.quality) to["quality"] = number(*s.to.quality);
-            if (s.to.ratio) to["ratio"] = number(*s.to.ratio);
-            if (s.to.rated) to["rated"] = true;
-            if (s.to.time) to["time"] = quantityJson(*s.to.time, Dimension::Time);
-            appendExtra(to, s.to.extra);
-            j["to"] = std::move(to);
+            o.key("to");
+            target(s.to, system);
         }
-        if (s.at) j["at"] = *s.at == HeatingAt::ConstantVolume ? "constant-volume" : "constant-pressure";
-        if (s.fraction) j["fraction"] = number(*s.fraction);
-        if (s.path) j["path"] = std::string(pathId(*s.path));
-        if (s.n) j["n"] = number(*s.n);
-        if (s.efficiency) j["efficiency"] = number(*s.efficiency);
-        if (s.source) j["source"] = reservoir(*s.source);
-        if (s.sink) j["sink"] = reservoir(*s.sink);
-        if (s.transfer) j["transfer"] = transfer(*s.transfer);
-        if (s.duration) j["duration"] = quantityJson(*s.duration, Dimension::Time);
-        if (s.heatLoss) j["heatLoss"] = heatLoss(*s.heatLoss);
-        if (s.note) j["note"] = *s.note;
-        appendExtra(j, s.extra);
-        return j;
+        if (s.at) o.key("at").string(*s.at == HeatingAt::ConstantVolume ? "constant-volume" : "constant-pressure");
+        if (s.fraction) number(o, "fraction", *s.fraction);
+        if (s.path) o.key("path").string(pathId(*s.path));
+        if (s.n) number(o, "n", *s.n);
+        if (s.efficiency) number(o, "efficiency", *s.efficiency);
+        if (s.source) {
+            o.key("source");
+            reservoir(*s.source);
+        }
+        if (s.sink) {
+            o.key("sink");
+            reservoir(*s.sink);
+        }
+        if (s.transfer) {
+            o.key("transfer");
+            transfer(*s.transfer);
+        }
+        if (s.duration) quantity(o, "duration", *s.duration, Dimension::Time);
+        if (s.heatLoss) {
+            o.key("heatLoss");
+            heatLoss(*s.heatLoss);
+        }
+        if (s.note) o.key("note").string(*s.note);
+        o.unknown(s.extra);
+        o.end();
     }
 
     // Key order: U, area, UA, then unknown fields; a per-zone U keeps the file's order.
-    static Json transfer(const HeatTransferSpec& t) {
-        Json j = Json::object();
+    void transfer(const HeatTransferSpec& t) {
+        detail::ObjectWriter o(w_);
         if (t.U) {
-            j["U"] = quantityJson(*t.U, Dimension::HeatTransferCoefficient);
+            quantity(o, "U", *t.U, Dimension::HeatTransferCoefficient);
         } else if (!t.zoneU.empty()) {
-            Json u = Json::object();
-            for (const auto& [zone, q] : t.zoneU) u[zone] = quantityJson(q, Dimension::HeatTransferCoefficient);
-            appendExtra(u, t.Uextra);
-            j["U"] = std::move(u);
+            o.key("U");
+            detail::ObjectWriter u(w_);
+            for (const auto& [zone, q] : t.zoneU) quantity(u, zone, q, Dimension::HeatTransferCoefficient);
+            u.unknown(t.Uextra);
+            u.end();
         }
-        if (t.area) j["area"] = quantityJson(*t.area, Dimension::Area);
-        if (t.UA) j["UA"] = quantityJson(*t.UA, Dimension::ThermalConductance);
-        appendExtra(j, t.extra);
-        return j;
+        if (t.area) quantity(o, "area", *t.area, Dimension::Area);
+        if (t.UA) quantity(o, "UA", *t.UA, Dimension::ThermalConductance);
+        o.unknown(t.extra);
+        o.end();
     }
 
-    static Json heatLoss(const HeatLossSpec& h) {
-        Json j = Json::object();
-        j["UA"] = quantityJson(h.UA, Dimension::ThermalConductance);
-        appendExtra(j, h.extra);
-        return j;
+    void heatLoss(const HeatLossSpec& h) {
+        detail::ObjectWriter o(w_);
+        quantity(o, "UA", h.UA, Dimension::ThermalConductance);
+        o.unknown(h.extra);
+        o.end();
     }
 
     // Key order: id, kind, name, P, in, out, cp, density, T, flow, then unknown fields.
-    static Json utility(const Utility& u) {
-        Json j = Json::object();
-        j["id"] = u.id;
-        j["kind"] = std::string(utilityKindId(u.kind));
-        if (u.name) j["name"] = *u.name;
-        if (u.P) j["P"] = quantityJson(*u.P, Dimension::Pressure);
-        if (u.Tin) j["in"] = quantityJson(*u.Tin, Dimension::Temperature);
-        if (u.Tout) j["out"] = quantityJson(*u.Tout, Dimension::Temperature);
-        if (u.cp) j["cp"] = quantityJson(*u.cp, Dimension::SpecificEntropy);
-        if (u.density) j["density"] = quantityJson(*u.density, Dimension::Density);
-        if (u.T) j["T"] = quantityJson(*u.T, Dimension::Temperature);
-        if (u.flow) j["flow"] = quantityJson(*u.flow, Dimension::MassFlow);
-        appendExtra(j, u.extra);
-        return j;
+    void utility(const Utility& u) {
+        detail::ObjectWriter o(w_);
+        o.key("id").string(u.id);
+        o.key("kind").string(utilityKindId(u.kind));
+        if (u.name) o.key("name").string(*u.name);
+        if (u.P) quantity(o, "P", *u.P, Dimension::Pressure);
+        if (u.Tin) quantity(o, "in", *u.Tin, Dimension::Temperature);
+        if (u.Tout) quantity(o, "out", *u.Tout, Dimension::Temperature);
+        if (u.cp) quantity(o, "cp", *u.cp, Dimension::SpecificEntropy);
+        if (u.density) quantity(o, "density", *u.density, Dimension::Density);
+        if (u.T) quantity(o, "T", *u.T, Dimension::Temperature);
+        if (u.flow) quantity(o, "flow", *u.flow, Dimension::MassFlow);
+        o.unknown(u.extra);
+        o.end();
+    }
+
+    void meta(const Meta& m) {
+        detail::ObjectWriter o(w_);
+        auto put = [&](const char* key, const std::string& value) {
+            if (!value.empty()) o.key(key).string(value);
+        };
+        put("title", m.title);
+        put("author", m.author);
+        put("revision", m.revision);
+        put("created", m.created);
+        put("modified", m.modified);
+        put("notes", m.notes);
+        o.unknown(m.extra);
+        o.end();
+    }
+
+    void basis(const Basis& b) {
+        detail::ObjectWriter o(w_);
+        switch (b.kind) {
+            case Basis::Kind::Mass: quantity(o, "mass", b.amount, Dimension::Mass); break;
+            case Basis::Kind::Amount: quantity(o, "amount", b.amount, Dimension::Amount); break;
+            case Basis::Kind::MassFlow: quantity(o, "massFlow", b.amount, Dimension::MassFlow); break;
+            case Basis::Kind::MolarFlow: quantity(o, "molarFlow", b.amount, Dimension::MolarFlow); break;
+        }
+        o.unknown(b.extra);
+        o.end();
+    }
+
+    void start(const StartSpec& s) {
+        detail::ObjectWriter o(w_);
+        if (s.T) quantity(o, "T", *s.T, Dimension::Temperature);
+        if (s.P) quantity(o, "P", *s.P, Dimension::Pressure);
+        if (s.quality) number(o, "quality", *s.quality);
+        if (s.meltFraction) number(o, "meltFraction", *s.meltFraction);
+        o.unknown(s.extra);
+        o.end();
     }
 };
 
-}  // namespace
-
-std::string writeProject(const Project& p) {
-    std::vector<std::string> typed;
-    std::string out = Writer(&typed).project(p);
-    if (typed.empty()) return out;
-    // Swap each placeholder for the typed characters; if a placeholder is not
-    // found exactly once (a string value that happens to look like one), write
-    // the numbers in nlohmann/json's form instead.
-    // One pass over the dump (a search per placeholder made writing quadratic).
-    const std::string_view open = "\"\\u0001hcnum", close = "\\u0001\"";
-    std::vector<int> seen(typed.size(), 0);
-    std::string swapped;
-    swapped.reserve(out.size());
-    std::size_t from = 0;
-    for (std::size_t at = out.find(open); at != std::string::npos; at = out.find(open, at + 1)) {
-        std::size_t k = 0, q = at + open.size();
-        const std::size_t digits = q;
-        while (q < out.size() && out[q] >= '0' && out[q] <= '9' && q - digits < 12) k = k * 10 + std::size_t(out[q++] - '0');
-        if (q == digits || out.compare(q, close.size(), close) != 0) continue;  // not a placeholder
-        if (k >= typed.size() || ++seen[k] > 1) return Writer(nullptr).project(p);
-        swapped.append(std::string_view(out).substr(from, at - from)).append(typed[k]);
-        from = q + close.size();
-    }
-    swapped.append(std::string_view(out).substr(from));
-    for (int n : seen)
-        if (n != 1) return Writer(nullptr).project(p);
-    return swapped;
+bool anyMeta(const Meta& m) {
+    const bool extra = m.extra.is_object() && !m.extra.empty();
+    return extra || !m.title.empty() || !m.author.empty() || !m.revision.empty() || !m.created.empty() ||
+           !m.modified.empty() || !m.notes.empty();
 }
 
-std::string Writer::project(const Project& p) const {
-    Json j = Json::object();
-    j["format"] = std::string(kProjectFormatName);
-    j["version"] = p.version;
-
-    Json meta = Json::object();
-    auto put = [&](const char* key, const std::string& value) {
-        if (!value.empty()) meta[key] = value;
-    };
-    put("title", p.meta.title);
-    put("author", p.meta.author);
-    put("revision", p.meta.revision);
-    put("created", p.meta.created);
-    put("modified", p.meta.modified);
-    put("notes", p.meta.notes);
-    appendExtra(meta, p.meta.extra);
-    if (!meta.empty()) j["meta"] = std::move(meta);
-
-    Json display = Json::object();
-    display["units"] = std::string(unitSystemId(p.displayUnits));
-    appendExtra(display, p.displayExtra);
-    j["display"] = std::move(display);
-
-    j["system"] = std::string(systemId(p.system));
-    j["model"] = std::string(modelId(p.model));
+void Writer::project(const Project& p) {
+    detail::ObjectWriter o(w_);
+    o.key("format").string(kProjectFormatName);
+    o.key("version").integer(p.version);
+    if (anyMeta(p.meta)) {
+        o.key("meta");
+        meta(p.meta);
+    }
+    {
+        o.key("display");
+        detail::ObjectWriter d(w_);
+        d.key("units").string(unitSystemId(p.displayUnits));
+        d.unknown(p.displayExtra);
+        d.end();
+    }
+    o.key("system").string(systemId(p.system));
+    o.key("model").string(modelId(p.model));
     if (p.customSubstanceJson)
-        j["substance"] = *p.customSubstanceJson;
+        o.key("substance").value(*p.customSubstanceJson);
     else
-        j["substance"] = p.substanceId;
-
-    Json basis = Json::object();
-    switch (p.basis.kind) {
-        case Basis::Kind::Mass: basis["mass"] = quantityJson(p.basis.amount, Dimension::Mass); break;
-        case Basis::Kind::Amount: basis["amount"] = quantityJson(p.basis.amount, Dimension::Amount); break;
-        case Basis::Kind::MassFlow: basis["massFlow"] = quantityJson(p.basis.amount, Dimension::MassFlow); break;
-        case Basis::Kind::MolarFlow: basis["molarFlow"] = quantityJson(p.basis.amount, Dimension::MolarFlow); break;
-    }
-    appendExtra(basis, p.basis.extra);
-    j["basis"] = std::move(basis);
-
-    if (p.hasAtmosphere) j["atmosphere"] = quantityJson(p.atmosphere, Dimension::Pressure);
+        o.key("substance").string(p.substanceId);
+    o.key("basis");
+    basis(p.basis);
+    if (p.hasAtmosphere) quantity(o, "atmosphere", p.atmosphere, Dimension::Pressure);
     if (p.hasSurroundings) {
-        Json s = Json::object();
-        s["T"] = quantityJson(p.surroundingsT, Dimension::Temperature);
-        s["P"] = quantityJson(p.surroundingsP, Dimension::Pressure);
-        appendExtra(s, p.surroundingsExtra);
-        j["surroundings"] = std::move(s);
+        o.key("surroundings");
+        detail::ObjectWriter s(w_);
+        quantity(s, "T", p.surroundingsT, Dimension::Temperature);
+        quantity(s, "P", p.surroundingsP, Dimension::Pressure);
+        s.unknown(p.surroundingsExtra);
+        s.end();
     }
-
-    Json start = Json::object();
-    if (p.start.T) start["T"] = quantityJson(*p.start.T, Dimension::Temperature);
-    if (p.start.P) start["P"] = quantityJson(*p.start.P, Dimension::Pressure);
-    if (p.start.quality) start["quality"] = number(*p.start.quality);
-    if (p.start.meltFraction) start["meltFraction"] = number(*p.start.meltFraction);
-    appendExtra(start, p.start.extra);
-    j["start"] = std::move(start);
+    o.key("start");
+    start(p.start);
 
     // Utilities and minApproach: after start, before the unknown fields.
-    if (p.minApproach) j["minApproach"] = quantityJson(*p.minApproach, Dimension::TemperatureDifference);
+    if (p.minApproach) quantity(o, "minApproach", *p.minApproach, Dimension::TemperatureDifference);
     if (p.hasUtilities || !p.utilities.empty()) {
-        Json list = Json::array();
-        for (const Utility& u : p.utilities) list.push_back(utility(u));
-        j["utilities"] = std::move(list);
+        o.key("utilities").beginArray();
+        for (const Utility& u : p.utilities) utility(u);
+        w_.endArray();
     }
-    if (p.heatLoss) j["heatLoss"] = heatLoss(*p.heatLoss);
+    if (p.heatLoss) {
+        o.key("heatLoss");
+        heatLoss(*p.heatLoss);
+    }
 
     // Unknown top-level fields keep their order, before the long list of steps.
-    Json extra = p.extra;
-    if (extra.is_object() && extra.contains("steps")) extra.erase("steps");
-    appendExtra(j, extra);
+    o.unknown(p.extra, "steps");
 
-    Json steps = Json::array();
-    for (const Step& s : p.steps) steps.push_back(step(s, p.system));
-    j["steps"] = std::move(steps);
+    o.key("steps").beginArray();
+    for (const Step& s : p.steps) step(s, p.system);
+    w_.endArray();
+    o.end();
+}
 
-    // Invalid UTF-8 cannot come from a parsed file; from code it is replaced
-    // rather than thrown (writeProject cannot fail).
-    return j.dump(2, ' ', false, Json::error_handler_t::replace) + "\n";
+}  // namespace
+
+// Invalid UTF-8 cannot come from a parsed file; from code it is replaced
+// rather than thrown (writeProject cannot fail).
+std::string writeProject(const Project& p) {
+    std::string out;
+    detail::JsonWriter w(out);
+    Writer(w).project(p);
+    out += '\n';
+    return out;
 }
 
 Result<Project> resolveProject(const Project& project) {

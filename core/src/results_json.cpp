@@ -3,9 +3,11 @@
 #include "heatchain/results_json.hpp"
 
 #include "heatchain/rules.hpp"
+#include "json_writer.hpp"
 
 #include <cmath>
 #include <cstdio>
+#include <ostream>
 #include <sstream>
 
 namespace heatchain {
@@ -211,44 +213,31 @@ Json resultsToJson(const Project& project, const SequenceResult& r) {
     return j;
 }
 
-namespace {
-
-// `value` as Json::dump(2) writes it when it sits `depth` levels deep: its
-// lines after the first carry the indentation of that depth. (A newline
-// inside a string is escaped in JSON, so every raw newline is structure.)
-void writeNested(std::ostream& out, const Json& value, int depth) {
-    const std::string text = value.dump(2);
-    const std::string pad(static_cast<std::size_t>(depth) * 2, ' ');
-    std::size_t from = 0;
-    for (std::size_t nl; (nl = text.find('\n', from)) != std::string::npos; from = nl + 1) {
-        out.write(text.data() + from, static_cast<std::streamsize>(nl + 1 - from));
-        out << pad;
-    }
-    out.write(text.data() + from, static_cast<std::streamsize>(text.size() - from));
-}
-
-}  // namespace
-
 void writeResultsJson(std::ostream& out, const Project& project, const SequenceResult& r, const Json& more) {
     Json head = resultsHead(project, r);
     for (auto it = more.begin(); it != more.end(); ++it) head[it.key()] = it.value();
-    out << '{';
-    bool first = true;
+    std::string text;
+    detail::JsonWriter w(text);
+    auto flush = [&] {
+        out.write(text.data(), static_cast<std::streamsize>(text.size()));
+        text.clear();
+    };
+    w.beginObject();
     for (auto it = head.begin(); it != head.end(); ++it) {
-        out << (first ? "\n  " : ",\n  ") << Json(it.key()).dump() << ": ";
-        first = false;
-        if (it.key() != "steps" || r.steps.empty()) {
-            writeNested(out, it.value(), 1);
+        w.key(it.key());
+        if (it.key() != "steps") {
+            w.value(it.value());
             continue;
         }
-        out << '[';
-        for (std::size_t i = 0; i < r.steps.size(); ++i) {
-            out << (i == 0 ? "\n    " : ",\n    ");
-            writeNested(out, stepResultToJson(project, r, r.steps[i]), 2);
+        w.beginArray();
+        for (const StepResult& s : r.steps) {
+            w.value(stepResultToJson(project, r, s));
+            flush();
         }
-        out << "\n  ]";
+        w.endArray();
     }
-    out << "\n}";
+    w.endObject();
+    flush();
 }
 
 std::string resultsToCsv(const Project& project, const SequenceResult& r) {
