@@ -54,16 +54,9 @@ constexpr std::string_view kFormatName = detail::kProjectFormatName;
 void readMeta(const Reader& r, const Json& v, Meta& meta) {
     const JsonPath path{{"meta", -1}};
     r.object(v, path, "meta");
-    auto field = [&](std::string_view key, std::string& out) {
-        if (auto s = r.optionalString(v, path, key)) out = *s;
-    };
-    field("title", meta.title);
-    field("author", meta.author);
-    field("revision", meta.revision);
-    field("created", meta.created);
-    field("modified", meta.modified);
-    field("notes", meta.notes);
-    meta.extra = Reader::unknownFields(v, {"title", "author", "revision", "created", "modified", "notes"});
+    for (const detail::MetaField& f : detail::kMetaFields)
+        if (auto s = r.optionalString(v, path, f.key)) meta.*f.member = *s;
+    meta.extra = Reader::unknownFields(v, detail::kMetaKeys);
 }
 
 void readSubstance(const Reader& r, const Json& v, std::string_view text, std::string_view file, Project& p) {

@@ -26,6 +26,16 @@ inline constexpr int kMaxJsonDepth = 64;
 inline constexpr std::size_t kMaxSteps = 250'000;
 inline constexpr std::size_t kMaxJsonValues = 8'000'000;
 
+// The text fields of "meta" in the file's order, for the reader and the writer.
+struct MetaField {
+    std::string_view key;
+    std::string Meta::*member;
+};
+inline constexpr MetaField kMetaFields[] = {{"title", &Meta::title},       {"author", &Meta::author},
+                                            {"revision", &Meta::revision}, {"created", &Meta::created},
+                                            {"modified", &Meta::modified}, {"notes", &Meta::notes}};
+inline constexpr std::string_view kMetaKeys[] = {"title", "author", "revision", "created", "modified", "notes"};
+
 // The bytes of a project file of either format version, refused with a
 // reason when it is a folder, unreadable or larger than a project can be.
 Result<std::string> readProjectText(const std::filesystem::path& file);

@@ -4,6 +4,8 @@
 // gives it), writing the text directly through JsonWriter (json_writer.hpp).
 // Writing is stable: fixed key order, 2-space indent, quantities and numbers
 // exactly as typed, unknown fields written back where they were.
+#include <algorithm>
+#include <iterator>
 #include <sstream>
 #include <string>
 #include <string_view>
@@ -161,15 +163,8 @@ private:
 
     void meta(const Meta& m) {
         detail::ObjectWriter o(w_);
-        auto put = [&](const char* key, const std::string& value) {
-            if (!value.empty()) o.key(key).string(value);
-        };
-        put("title", m.title);
-        put("author", m.author);
-        put("revision", m.revision);
-        put("created", m.created);
-        put("modified", m.modified);
-        put("notes", m.notes);
+        for (const detail::MetaField& f : detail::kMetaFields)
+            if (!(m.*f.member).empty()) o.key(f.key).string(m.*f.member);
         o.unknown(m.extra);
         o.end();
     }
@@ -199,8 +194,8 @@ private:
 
 bool anyMeta(const Meta& m) {
     const bool extra = m.extra.is_object() && !m.extra.empty();
-    return extra || !m.title.empty() || !m.author.empty() || !m.revision.empty() || !m.created.empty() ||
-           !m.modified.empty() || !m.notes.empty();
+    return extra || std::any_of(std::begin(detail::kMetaFields), std::end(detail::kMetaFields),
+                                [&](const detail::MetaField& f) { return !(m.*f.member).empty(); });
 }
 
 void Writer::project(const Project& p) {
