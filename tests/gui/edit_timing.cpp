@@ -20,6 +20,7 @@
 #include "commands.hpp"
 #include "heatchain/project_file.hpp"
 #include "main_window.hpp"
+#include "support/hundred_steps.hpp"
 
 using namespace heatchain;
 
@@ -47,20 +48,7 @@ int main(int argc, char** argv) {
     QApplication app(argc, argv);
     QCoreApplication::setOrganizationName(QStringLiteral("HeatchainTiming"));
 
-    // 100 steps of our own: liquid water heated and cooled by 10 K in turn,
-    // each against a source or sink, so no step changes phase.
-    std::string text = R"({"format":"heatchain-project","version":1,"meta":{"title":"100 steps"},)"
-                       R"("display":{"units":"metric-engineering"},"system":"steady-flow",)"
-                       R"("model":"reference","substance":"water","basis":{"massFlow":"1 kg/s"},)"
-                       R"("start":{"T":"40 degC","P":"3 bar"},"steps":[)";
-    for (int i = 0; i < 100; ++i) {
-        if (i) text += ",";
-        if (i % 2 == 0)
-            text += R"({"id":"h)" + std::to_string(i) + R"(","kind":"heat","to":{"T":"50 degC"},"source":{"T":"90 degC"}})";
-        else
-            text += R"({"id":"c)" + std::to_string(i) + R"(","kind":"cool","to":{"T":"40 degC"},"sink":{"T":"20 degC"}})";
-    }
-    text += "]}";
+    const std::string text = heatchain::testing::hundredStepWorksheet();
     auto project = parseProject(text, "timing");
     if (!project) {
         std::fprintf(stderr, "cannot build the timing worksheet: %s\n", project.error().text().c_str());
