@@ -12,6 +12,9 @@
 namespace heatchain::gui {
 
 ExergyWidget::ExergyWidget(ProjectDocument* doc, QWidget* parent) : QWidget(parent), doc_(doc) {
+    // paintEvent fills every pixel (paintPanelHeading): the dock, tab and
+    // splitter beneath need not paint first.
+    setAttribute(Qt::WA_OpaquePaintEvent);
     connect(doc_, &ProjectDocument::changed, this, &ExergyWidget::refresh);
     connect(doc_, &ProjectDocument::selectionChanged, this, [this](int i) {
         chart_.setSelectedStep(i);
@@ -24,7 +27,13 @@ void ExergyWidget::refresh() {
     chart_.setStepColours(doc_->stepColours());
     chart_.setData(doc_->project(), doc_->result());
     chart_.setSelectedStep(doc_->selectedStep());
-    updateGeometry();
+    // Only a new number of bars (up to a dozen) changes the room asked for.
+    // Asking again on every edit relaid the charts' dock, and with it
+    // repainted the whole window.
+    if (const QSize wanted = minimumSizeHint(); wanted != askedFor_) {
+        askedFor_ = wanted;
+        updateGeometry();
+    }
     update();
 }
 

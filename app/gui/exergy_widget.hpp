@@ -30,6 +30,7 @@ private:
     QRectF chartRect() const;
     ProjectDocument* doc_;
     view::ExergyBarChart chart_;
+    QSize askedFor_;
 };
 
 }  // namespace heatchain::gui

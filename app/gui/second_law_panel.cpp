@@ -1,5 +1,6 @@
 #include "second_law_panel.hpp"
 
+#include <QEvent>
 #include <QHeaderView>
 #include <QStyle>
 #include <algorithm>
@@ -28,7 +29,7 @@ SecondLawPanel::SecondLawPanel(ProjectDocument* doc, QWidget* parent) : QTableWi
     setShowGrid(false);
     setAlternatingRowColors(true);
     setWordWrap(false);
-    connect(doc_, &ProjectDocument::changed, this, &SecondLawPanel::refresh);
+    connect(doc_, &ProjectDocument::changed, this, &SecondLawPanel::documentChanged);
     connect(this, &QTableWidget::currentCellChanged, this, [this](int row) {
         if (row >= 0 && row < int(stepOfRow_.size()) && stepOfRow_[std::size_t(row)] >= 0 &&
             stepOfRow_[std::size_t(row)] != doc_->selectedStep())
@@ -37,19 +38,40 @@ SecondLawPanel::SecondLawPanel(ProjectDocument* doc, QWidget* parent) : QTableWi
     refresh();
 }
 
+void SecondLawPanel::documentChanged() {
+    // Tabbed behind the ledger the panel counts as visible but shows nothing
+    // (an empty visible region); rebuilding its hundred rows there was a
+    // sixth of an edit on a long sheet. It catches up when shown or painted.
+    if (isVisible() && !visibleRegion().isEmpty()) refresh();
+    else stale_ = true;
+}
+
+void SecondLawPanel::catchUp() const {
+    if (stale_) const_cast<SecondLawPanel*>(this)->refresh();
+}
+
+bool SecondLawPanel::viewportEvent(QEvent* e) {
+    // Its tab chosen: the first paint finds the rows of the latest edit.
+    if (e->type() == QEvent::Paint) catchUp();
+    return QTableWidget::viewportEvent(e);
+}
+
 int SecondLawPanel::rowOfStep(int index) const {
+    catchUp();
     for (std::size_t r = 0; r < stepOfRow_.size(); ++r)
         if (stepOfRow_[r] == index) return int(r);
     return -1;
 }
 
 int SecondLawPanel::rowOfUtility(const QString& id) const {
+    catchUp();
     for (std::size_t r = 0; r < utilityOfRow_.size(); ++r)
         if (utilityOfRow_[r] == id) return int(r);
     return -1;
 }
 
 void SecondLawPanel::refresh() {
+    stale_ = false;
     const Project& p = doc_->project();
     const SequenceResult& r = doc_->result();
     const UnitSystem u = p.displayUnits;
@@ -187,7 +209,8 @@ void SecondLawPanel::fitColumns() {
 
 void SecondLawPanel::showEvent(QShowEvent* e) {
     QTableWidget::showEvent(e);
-    if (columnsStale_) fitColumns();
+    if (stale_) refresh();
+    else if (columnsStale_) fitColumns();
 }
 
 }  // namespace heatchain::gui

@@ -14,7 +14,8 @@ class SecondLawPanel : public QTableWidget {
 public:
     explicit SecondLawPanel(ProjectDocument* doc, QWidget* parent = nullptr);
     enum Column { ColStep, ColUtility, ColUse, ColApproach, ColWhere, ColSupplied, ColDestroyed, ColShare, ColEta, ColumnCount };
-    // Row of step `index` (−1 when not shown), for tests and selection.
+    // Row of step `index` (−1 when not shown), for tests and selection;
+    // brings a panel that was out of sight up to date first.
     int rowOfStep(int index) const;
     int rowOfUtility(const QString& id) const;
 
@@ -23,10 +24,15 @@ public slots:
 
 protected:
     void showEvent(QShowEvent* e) override;
+    bool viewportEvent(QEvent* e) override;
 
 private:
+    // An edit: rebuilt now when the panel can be seen, else when it next is.
+    void documentChanged();
+    void catchUp() const;
     void fitColumns();
     bool columnsStale_ = false;
+    bool stale_ = false;
 
     ProjectDocument* doc_;
     std::vector<int> stepOfRow_;
