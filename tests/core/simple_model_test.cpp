@@ -10,7 +10,9 @@
 #include "heatchain/models/simple_model.hpp"
 
 #include <cmath>
+#include <optional>
 #include <string>
+#include <vector>
 
 #include <gtest/gtest.h>
 
@@ -529,6 +531,58 @@ TEST(SimpleModel, TemperatureDependentInversionsRoundTrip) {
             EXPECT_EQ(a->phase, st->phase);
         }
     }
+}
+
+// The phase-change ends of recent isobars are kept per thread (a table of
+// 256 pressures shared by every simple model); a state must not depend on
+// which isobars were asked before it. Two models and 600 pressures, asked
+// once in order and once interleaved (so that the table evicts and rebuilds
+// throughout), give the same states to the last bit.
+TEST(SimpleModel, StatesDoNotDependOnTheOrderOfPressuresAsked) {
+    auto lib = SubstanceLibrary::builtin().find("water");
+    ASSERT_NE(lib, nullptr);
+    const std::shared_ptr<const PropertyModel> models[2] = {model(*lib), model(wax(true))};
+    ASSERT_NE(models[0], nullptr);
+    ASSERT_NE(models[1], nullptr);
+    struct Ask {
+        int model;
+        double P, h;
+    };
+    std::vector<Ask> asks;
+    for (int i = 0; i < 600; ++i) {
+        const double P = 200.0 * std::pow(1.013, i);  // 200 Pa to 0.5 MPa
+        for (int k = 0; k < 2; ++k) {
+            // Solid, melting, liquid, boiling and vapour enthalpies of each isobar.
+            for (double h : {-5e5, -1e5, 2e5, 1.2e6, 3.2e6}) asks.push_back({k, P, h});
+        }
+    }
+    auto solveAll = [&](const std::vector<std::size_t>& order) {
+        std::vector<std::optional<State>> out(asks.size());
+        for (std::size_t i : order) {
+            auto s = models[asks[i].model]->statePH(asks[i].P, asks[i].h);
+            if (s) out[i] = *s;
+        }
+        return out;
+    };
+    std::vector<std::size_t> inOrder(asks.size()), interleaved;
+    for (std::size_t i = 0; i < asks.size(); ++i) inOrder[i] = i;
+    // A stride coprime to the count visits every ask once, jumping between
+    // isobars and models at every step.
+    for (std::size_t i = 0, j = 0; i < asks.size(); ++i, j = (j + 1237) % asks.size()) interleaved.push_back(j);
+    const auto a = solveAll(inOrder), b = solveAll(interleaved);
+    int compared = 0;
+    for (std::size_t i = 0; i < asks.size(); ++i) {
+        ASSERT_EQ(a[i].has_value(), b[i].has_value()) << i;
+        if (!a[i]) continue;
+        ++compared;
+        EXPECT_EQ(a[i]->T, b[i]->T) << i;
+        EXPECT_EQ(a[i]->h, b[i]->h) << i;
+        EXPECT_EQ(a[i]->s, b[i]->s) << i;
+        EXPECT_EQ(a[i]->phase, b[i]->phase) << i;
+        EXPECT_EQ(a[i]->quality, b[i]->quality) << i;
+        EXPECT_EQ(a[i]->warnings, b[i]->warnings) << i;
+    }
+    EXPECT_GT(compared, 5000);
 }
 
 }  // namespace heatchain

@@ -8,9 +8,11 @@
 #include <algorithm>
 #include <array>
 #include <atomic>
+#include <bit>
 #include <cstdint>
 #include <cmath>
 #include <cstdio>
+#include <memory>
 #include <optional>
 #include <string>
 
@@ -75,6 +77,17 @@ public:
         HeatCapacity cp;
         double a = 0;  // enthalpy constant, J/kg
         double b = 0;  // entropy constant, J/(kg K)
+        // A constant cp (one constant piece) read once: inside its range
+        // HeatCapacity gives c T + hOffset, c ln T + sOffset and c, and so do
+        // the shortcuts below, term for term (the same numbers), without its
+        // clamping and piece search.
+        bool flat = false;
+        double flatC = 0, flatH = 0, flatS = 0, flatTmin = 0, flatTmax = 0;
+        double enthalpy(double T) const { return flat && T >= flatTmin && T <= flatTmax ? flatC * T + flatH : cp.enthalpy(T); }
+        double entropy(double T) const {
+            return flat && T >= flatTmin && T <= flatTmax ? flatC * std::log(T) + flatS : cp.entropy(T);
+        }
+        double heatCapacity(double T) const { return flat && T >= flatTmin && T <= flatTmax ? flatC : cp.cp(T); }
     };
 
     SimpleModel(Substance s, ModelKind kind) : sub_(std::move(s)), kind_(kind), id_(++modelCount) {}
@@ -118,11 +131,11 @@ private:
     // Phase functions with the constants of the model.
     double H(int p, double T, double P) const {
         const auto& d = ph_[p];
-        return d.a + d.cp.enthalpy(T) + (p == kVapor ? 0.0 : v_ * (P - Pref_));
+        return d.a + d.enthalpy(T) + (p == kVapor ? 0.0 : v_ * (P - Pref_));
     }
     double S(int p, double T, double P) const {
         const auto& d = ph_[p];
-        return d.b + d.cp.entropy(T) - (p == kVapor ? R_ * std::log(P / Pref_) : 0.0);
+        return d.b + d.entropy(T) - (p == kVapor ? R_ * std::log(P / Pref_) : 0.0);
     }
     double G(int p, double T, double P) const { return H(p, T, P) - T * S(p, T, P); }
 
@@ -150,8 +163,11 @@ private:
     // (solid or liquid) and the vapour whose temperatures span [lo, hi].
     bool condensedSide(int lower, double T, double P, double lo, double hi) const;
 
-    // The phase-change ends of one isobar, kept per thread for the last
-    // pressure asked (an isobaric step asks hundreds of times at one P).
+    // The phase-change ends of one isobar, kept per thread in a small table
+    // of recent pressures: an isobaric step asks hundreds of times at one P,
+    // and a worksheet returns to the same few pressures (the points of a
+    // compression curve recur in every cycle), so most asks find their ends
+    // without the line search and the four end states being built again.
     struct Isobar {
         std::uint64_t model = 0;
         double P = -1;
@@ -225,6 +241,15 @@ Status SimpleModel::build() {
         d.available = true;
         d.cp = kind_ == ModelKind::ConstantCp ? HeatCapacity::constant((*cps[p])->cp(anchorT[p]))
                                               : **cps[p];
+        if (d.cp.isConstant() && !d.cp.pieces()[0].c.empty()) {
+            const auto& piece = d.cp.pieces()[0];
+            d.flat = true;
+            d.flatC = piece.c[0];
+            d.flatH = piece.hOffset;
+            d.flatS = piece.sOffset;
+            d.flatTmin = piece.Tmin;
+            d.flatTmax = piece.Tmax;
+        }
     }
 
     if (sub_.liquidDensity && *sub_.liquidDensity > 0) v_ = 1.0 / *sub_.liquidDensity;
@@ -435,7 +460,7 @@ Result<State> SimpleModel::phaseState(Phase phase, double T, double P) const {
         default:
             return makeError("phaseState takes a single phase, not " + std::string(phaseLabel(phase)), sub_.id);
     }
-    if (auto ok = phaseAvailable(p); !ok) return ok.error();
+    if (!ph_[p].available) return makeError(ph_[p].missing, sub_.id);
     const auto& d = ph_[p];
     State st;
     st.T = T;
@@ -443,7 +468,7 @@ Result<State> SimpleModel::phaseState(Phase phase, double T, double P) const {
     st.phase = phase;
     st.h = H(p, T, P);
     st.s = S(p, T, P);
-    st.cp = d.cp.cp(T);
+    st.cp = d.heatCapacity(T);
     if (p == kVapor) {
         st.v = R_ * T / P;
         st.u = st.h - R_ * T;  // u = h − P v = h − R T
@@ -579,8 +604,43 @@ Result<double> SimpleModel::transitionPressure(Transition t, double T) const {
 }
 
 const SimpleModel::Isobar& SimpleModel::isobar(double P) const {
-    static thread_local Isobar c;
-    if (c.model == id_ && c.P == P) return c;
+    // Four ways in each of 64 sets, chosen by the bits of P and the model's
+    // number; a hit is the very isobar built before (the same numbers), a
+    // miss rebuilds the way used least recently. 256 isobars of about 600
+    // bytes hold the distinct pressures of a long worksheet (a hundred-step
+    // cycle has about a hundred).
+    constexpr int kSetBits = 6, kWays = 4;
+    struct Set {
+        std::array<Isobar, kWays> way;
+        std::array<std::uint8_t, kWays> age{0, 1, 2, 3};  // 0: used last
+    };
+    using Table = std::array<Set, std::size_t(1) << kSetBits>;
+    // On the heap on first use: a thread that never asks pays no 150 kB of
+    // thread-local storage at its start.
+    static thread_local std::unique_ptr<Table> table;
+    static thread_local const Isobar* last = nullptr;  // most asks repeat the one before
+    if (last && last->model == id_ && last->P == P) return *last;
+    if (!table) table = std::make_unique<Table>();
+    const std::uint64_t key = (std::bit_cast<std::uint64_t>(P) ^ (id_ * 0xD6E8FEB86659FD93ull)) * 0x9E3779B97F4A7C15ull;
+    Set& set = (*table)[std::size_t(key >> (64 - kSetBits))];
+    auto touch = [&set](int w) {
+        for (auto& a : set.age)
+            if (a < set.age[std::size_t(w)]) ++a;
+        set.age[std::size_t(w)] = 0;
+    };
+    int victim = 0;
+    for (int w = 0; w < kWays; ++w) {
+        const Isobar& e = set.way[std::size_t(w)];
+        if (e.model == id_ && e.P == P) {
+            touch(w);
+            last = &e;
+            return e;
+        }
+        if (set.age[std::size_t(w)] > set.age[std::size_t(victim)]) victim = w;
+    }
+    touch(victim);
+    Isobar& c = set.way[std::size_t(victim)];
+    last = &c;
     c.model = id_;
     c.P = P;
     c.tr = PropertyModel::transitionsAt(P);
@@ -607,7 +667,7 @@ std::optional<State> SimpleModel::invertOnIsobar(int p, double P, Property which
         // Closed forms along an isobar: h − h_from = cp (T − T_from) and
         // s − s_from = cp ln(T / T_from) for the incompressible phases and
         // the ideal gas alike (simple_model.hpp).
-        const double c = cp.cp(from.T);
+        const double c = ph_[p].heatCapacity(from.T);
         T = byH ? from.T + (value - from.h) / c : from.T * std::exp((value - from.s) / c);
     } else {
         // Newton on T with dh/dT = cp and ds/dT = cp/T, from the closed form
