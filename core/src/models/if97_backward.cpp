@@ -141,9 +141,9 @@ double b2bcEnthalpy(double P) {
 double region2T_ph(double P, double h) {
     const double pi = P / 1e6;  // p* = 1 MPa, T* = 1 K
     const double eta = h / 2000e3;  // h* = 2000 kJ/kg
-    if (P <= kP2ab) return series<0, 7, 0, 44>(k2aH, pi, eta - 2.1);
-    if (P <= b2bcPressure(h)) return series<0, 9, 0, 40>(k2bH, pi - 2.0, eta - 2.6);
-    return series<-7, 6, 0, 22>(k2cH, pi + 25.0, eta - 1.8);
+    if (P <= kP2ab) return series<k2aH, 0, 7, 0, 44>(pi, eta - 2.1);
+    if (P <= b2bcPressure(h)) return series<k2bH, 0, 9, 0, 40>(pi - 2.0, eta - 2.6);
+    return series<k2cH, -7, 6, 0, 22>(pi + 25.0, eta - 1.8);
 }
 
 double region2T_ps(double P, double s) {
@@ -157,8 +157,8 @@ double region2T_ps(double P, double s) {
         for (const QTerm& t : k2aS) sum += t.n * pq[t.I4] * ps[t.J];
         return sum;
     }
-    if (s >= kS2ab) return series<-6, 5, 0, 12>(k2bS, pi, 10.0 - s / 0.7853e3);
-    return series<-2, 7, 0, 5>(k2cS, pi, 2.0 - s / 2.9251e3);
+    if (s >= kS2ab) return series<k2bS, -6, 5, 0, 12>(pi, 10.0 - s / 0.7853e3);
+    return series<k2cS, -2, 7, 0, 5>(pi, 2.0 - s / 2.9251e3);
 }
 
 }  // namespace heatchain::if97

@@ -74,14 +74,21 @@ struct Term {
 };
 
 // Σ n x^I y^J over a table (the backward equations), with power tables
-// spanning the exponents: [LoI, HiI] for x, [LoJ, HiJ] for y.
-template <int LoI, int HiI, int LoJ, int HiJ, std::size_t N>
-double series(const Term (&terms)[N], double x, double y) {
+// spanning the exponents: [LoI, HiI] for x, [LoJ, HiJ] for y. Unrolled at
+// compile time in the table's order (the same sum as a plain loop's to the
+// last bit), so that the powers no term uses are never formed.
+template <const auto& Terms, class PX, class PY, std::size_t... K>
+inline double seriesOf(const PX& px, const PY& py, std::index_sequence<K...>) {
+    double sum = 0;
+    ((sum += Terms[K].n * px[Terms[K].I] * py[Terms[K].J]), ...);
+    return sum;
+}
+
+template <const auto& Terms, int LoI, int HiI, int LoJ, int HiJ>
+double series(double x, double y) {
     const PowTable<LoI, HiI> px(x);
     const PowTable<LoJ, HiJ> py(y);
-    double sum = 0;
-    for (const Term& t : terms) sum += t.n * px[t.I] * py[t.J];
-    return sum;
+    return seriesOf<Terms>(px, py, std::make_index_sequence<std::size(Terms)>{});
 }
 
 // The sums over the terms of Σ n x^I y^J from which gamma and its first and
@@ -132,6 +139,34 @@ inline SeriesSums seriesSumsLoop(const Terms& terms, const PX& px, const PY& py)
         m.SIJ += t.I * t.J * v;
     }
     return m;
+}
+
+// Only the sums h, s and cp need: Σ v, Σ J v and Σ J(J−1) v, term for term
+// as addTerm forms them (the same values).
+template <int I, int J, class PX, class PY>
+inline void addTermHSCp(double n, const PX& px, const PY& py, SeriesSums& m) {
+    const double v = n * px[I] * py[J];
+    m.S += v;
+    if constexpr (J != 0) m.SJ += J * v;
+    if constexpr (J != 0 && J != 1) m.SJJ += J * (J - 1) * v;
+}
+
+template <const auto& Terms, class PX, class PY, std::size_t... K>
+inline SeriesSums seriesSumsHSCpOf(const PX& px, const PY& py, std::index_sequence<K...>) {
+    SeriesSums m;
+    (addTermHSCp<Terms[K].I, Terms[K].J>(Terms[K].n, px, py, m), ...);
+    return m;
+}
+
+template <const auto& Terms, class PX, class PY>
+inline SeriesSums seriesSumsHSCp(const PX& px, const PY& py) {
+    return seriesSumsHSCpOf<Terms>(px, py, std::make_index_sequence<std::size(Terms)>{});
+}
+
+// h, s and cp from gamma, written as propsFromGamma writes them.
+inline HSCp hsCpFromGamma(double T, double tau, const Gamma& G) {
+    const double RT = R * T;
+    return {RT * tau * G.gt, R * (tau * G.gt - G.g), -R * tau * tau * G.gtt};
 }
 
 // Only the sums h and s need: Σ v and Σ J v, the same values as above.

@@ -85,24 +85,30 @@ HS region1HS(double T, double P) {
     return {RT * tau * gt, R * (tau * gt - S)};
 }
 
+HSCp region1HSCp(double T, double P) {
+    const double pi = P / kPstar;
+    const double tau = kTstar / T;
+    const double y = tau - 1.222;
+    const detail::PowTable<0, 32> px(7.1 - pi);
+    const detail::PowTable<-41, 17> py(y);
+    const detail::SeriesSums m = detail::seriesSumsHSCp<kRegion1>(px, py);
+    detail::Gamma G;
+    G.g = m.S;
+    G.gt = m.SJ / y;
+    G.gtt = m.SJJ / (y * y);
+    return detail::hsCpFromGamma(T, tau, G);
+}
+
 double region1T_ph(double P, double h) {
     const double pi = P / 1e6;               // p* = 1 MPa
     const double eta1 = h / 2500e3 + 1.0;    // h* = 2500 kJ/kg
-    const detail::PowTable<0, 6> pp(pi);
-    const detail::PowTable<0, 32> pe(eta1);
-    double theta = 0;
-    for (const Term& t : kBackTph) theta += t.n * pp[t.I] * pe[t.J];
-    return theta;  // T* = 1 K
+    return detail::series<kBackTph, 0, 6, 0, 32>(pi, eta1);  // theta = T / T*, T* = 1 K
 }
 
 double region1T_ps(double P, double s) {
     const double pi = P / 1e6;          // p* = 1 MPa
     const double sig2 = s / 1e3 + 2.0;  // s* = 1 kJ/(kg K)
-    const detail::PowTable<0, 4> pp(pi);
-    const detail::PowTable<0, 32> ps(sig2);
-    double theta = 0;
-    for (const Term& t : kBackTps) theta += t.n * pp[t.I] * ps[t.J];
-    return theta;
+    return detail::series<kBackTps, 0, 4, 0, 32>(pi, sig2);
 }
 
 }  // namespace heatchain::if97

@@ -114,7 +114,36 @@ HS evaluateHS(double T, double P, double n01, double n02) {
     return {RT * tau * gt, R * (tau * gt - g)};
 }
 
+// h, s and cp alone, written as evaluate() and propsFromGamma write them.
+template <const auto& Res, int MaxI, int MaxJ>
+HSCp evaluateHSCp(double T, double P, double n01, double n02) {
+    const double pi = P / kPstar;
+    const double tau = kTstar / T;
+    const detail::PowTable<-7, 3> pt(tau);
+    double g0 = std::log(pi), g0t = 0, g0tt = 0;
+    for (int i = 0; i < 9; ++i) {
+        const double n = i == 0 ? n01 : (i == 1 ? n02 : kIdeal[i].n);
+        const int J = kIdeal[i].J;
+        g0 += n * pt[J];
+        g0t += n * J * pt[J - 1];
+        g0tt += n * J * (J - 1) * pt[J - 2];
+    }
+    const double y = tau - 0.5;
+    const detail::PowTable<0, MaxI> pp(pi);
+    const detail::PowTable<0, MaxJ> py(y);
+    const detail::SeriesSums m = detail::seriesSumsHSCp<Res>(pp, py);
+    detail::Gamma G;
+    G.g = g0 + m.S;
+    G.gt = g0t + m.SJ / y;
+    G.gtt = g0tt + m.SJJ / (y * y);
+    return detail::hsCpFromGamma(T, tau, G);
+}
+
 }  // namespace
+
+HSCp region2HSCp(double T, double P) {
+    return evaluateHSCp<kResidual, 24, 58>(T, P, kIdeal[0].n, kIdeal[1].n);
+}
 
 Props region2(double T, double P) {
     return evaluate<kResidual, 24, 58>(T, P, kIdeal[0].n, kIdeal[1].n);

@@ -169,8 +169,8 @@ double region3abEnthalpy(double P) {
 double region3T_ph(double P, double h) {
     const double pi = P / 100e6;
     if (h <= region3abEnthalpy(P))
-        return 760.0 * series<-12, 12, 0, 22>(kT3aH, pi + 0.240, h / 2300e3 - 0.615);
-    return 860.0 * series<-12, 8, 0, 16>(kT3bH, pi + 0.298, h / 2800e3 - 0.720);
+        return 760.0 * series<kT3aH, -12, 12, 0, 22>(pi + 0.240, h / 2300e3 - 0.615);
+    return 860.0 * series<kT3bH, -12, 8, 0, 16>(pi + 0.298, h / 2800e3 - 0.720);
 }
 
 // Eqs. 4 and 5 (3a: v* = 0.0028 m3/kg, h* = 2100 kJ/kg; 3b: v* = 0.0088
@@ -178,8 +178,8 @@ double region3T_ph(double P, double h) {
 double region3v_ph(double P, double h) {
     const double pi = P / 100e6;
     if (h <= region3abEnthalpy(P))
-        return 0.0028 * series<-12, 8, 0, 22>(kV3aH, pi + 0.128, h / 2100e3 - 0.727);
-    return 0.0088 * series<-12, 2, 0, 10>(kV3bH, pi + 0.0661, h / 2800e3 - 0.720);
+        return 0.0028 * series<kV3aH, -12, 8, 0, 22>(pi + 0.128, h / 2100e3 - 0.727);
+    return 0.0088 * series<kV3bH, -12, 2, 0, 10>(pi + 0.0661, h / 2800e3 - 0.720);
 }
 
 // Eqs. 6 and 7 (3a: s* = 4.4 kJ/(kg K), T* = 760 K; 3b: s* = 5.3 kJ/(kg K),
@@ -187,8 +187,8 @@ double region3v_ph(double P, double h) {
 double region3T_ps(double P, double s) {
     const double pi = P / 100e6;
     if (s <= kS3ab)
-        return 760.0 * series<-12, 10, 0, 36>(kT3aS, pi + 0.240, s / 4.4e3 - 0.703);
-    return 860.0 * series<-12, 14, 0, 24>(kT3bS, pi + 0.760, s / 5.3e3 - 0.818);
+        return 760.0 * series<kT3aS, -12, 10, 0, 36>(pi + 0.240, s / 4.4e3 - 0.703);
+    return 860.0 * series<kT3bS, -12, 14, 0, 24>(pi + 0.760, s / 5.3e3 - 0.818);
 }
 
 // Eqs. 8 and 9 (3a: v* = 0.0028 m3/kg, s* = 4.4 kJ/(kg K); 3b: v* = 0.0088
@@ -196,20 +196,20 @@ double region3T_ps(double P, double s) {
 double region3v_ps(double P, double s) {
     const double pi = P / 100e6;
     if (s <= kS3ab)
-        return 0.0028 * series<-12, 6, 0, 28>(kV3aS, pi + 0.187, s / 4.4e3 - 0.755);
-    return 0.0088 * series<-12, 2, 0, 12>(kV3bS, pi + 0.298, s / 5.3e3 - 0.816);
+        return 0.0028 * series<kV3aS, -12, 6, 0, 28>(pi + 0.187, s / 4.4e3 - 0.755);
+    return 0.0088 * series<kV3bS, -12, 2, 0, 12>(pi + 0.298, s / 5.3e3 - 0.816);
 }
 
 // Eq. 10 (p* = 22 MPa, h* = 2600 kJ/kg).
 double region3SaturationPressure_h(double h) {
     const double eta = h / 2600e3;
-    return 22e6 * series<0, 36, 0, 36>(kPsatH, eta - 1.02, eta - 0.608);
+    return 22e6 * series<kPsatH, 0, 36, 0, 36>(eta - 1.02, eta - 0.608);
 }
 
 // Eq. 11 (p* = 22 MPa, s* = 5.2 kJ/(kg K)).
 double region3SaturationPressure_s(double s) {
     const double sig = s / 5.2e3;
-    return 22e6 * series<0, 32, 0, 36>(kPsatS, sig - 1.03, sig - 0.699);
+    return 22e6 * series<kPsatS, 0, 32, 0, 36>(sig - 1.03, sig - 0.699);
 }
 
 }  // namespace heatchain::if97

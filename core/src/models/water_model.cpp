@@ -115,10 +115,21 @@ State labelledFluid(const w::Props& p, Phase ph, std::string_view src, double T,
 // backward agree to 1e-9, the model's promise; see water_model_test.cpp).
 constexpr double kDirectTol = 5e-10;
 
-template <class Eval>
-bool newtonOnIsobar(Eval eval, bool H, double value, double T, w::Props& out) {
+// The first probe, at the backward equation's temperature, is almost never
+// the answer (tens of mK off): it forms only h, s and cp (`first`, the same
+// values as `eval`), and the full state is formed where the residual may
+// already be within the tolerance, so one full evaluation usually ends it.
+template <class First, class Eval>
+bool newtonOnIsobar(First first, Eval eval, bool H, double value, double T, w::Props& out) {
     const double tol = kDirectTol * std::max(std::fabs(value), H ? 1e3 : 1.0);
+    bool atStart = true;
     auto probe = [&](double t) {
+        if (atStart) {
+            atStart = false;
+            const w::HSCp c = first(t);
+            const double f = (H ? c.h : c.s) - value;
+            if (!(std::fabs(f) <= tol)) return detail::NewtonProbe{f, H ? c.cp : c.cp / t};
+        }
         out = eval(t);
         return detail::NewtonProbe{(H ? out.h : out.s) - value, H ? out.cp : out.cp / t};
     };
@@ -128,7 +139,9 @@ bool newtonOnIsobar(Eval eval, bool H, double value, double T, w::Props& out) {
 
 std::optional<State> directRegion1(double P, bool H, double value, double T0) {
     w::Props p;
-    if (!newtonOnIsobar([P](double T) { return w::region1(T, P); }, H, value, T0, p)) return std::nullopt;
+    if (!newtonOnIsobar([P](double T) { return w::region1HSCp(T, P); }, [P](double T) { return w::region1(T, P); }, H,
+                        value, T0, p))
+        return std::nullopt;
     // Compressed liquid of region 1 (above the triple-point temperature,
     // so never supercooled): T ≤ 623.15 K and P above ps(T).
     if (!(p.T >= w::Tt && p.T <= w::T13) || P < w::saturationPressure(p.T) * (1 + kLineSlack)) return std::nullopt;
@@ -138,7 +151,9 @@ std::optional<State> directRegion1(double P, bool H, double value, double T0) {
 
 std::optional<State> directRegion2(double P, bool H, double value, double T0) {
     w::Props p;
-    if (!newtonOnIsobar([P](double T) { return w::region2(T, P); }, H, value, T0, p)) return std::nullopt;
+    if (!newtonOnIsobar([P](double T) { return w::region2HSCp(T, P); }, [P](double T) { return w::region2(T, P); }, H,
+                        value, T0, p))
+        return std::nullopt;
     const double T = p.T;
     if (!(T >= w::Tt && T <= w::T25)) return std::nullopt;
     if (T <= w::T13) {

@@ -55,6 +55,15 @@ struct HS {
 };
 HS region1HS(double T, double P);
 HS region2HS(double T, double P);
+// h, s and cp alone, for a Newton step on an isobar (dh/dT = cp): the same
+// values as region1 / region2 give, without v, u, cv and w.
+struct HSCp {
+    double h = 0;   // J/kg
+    double s = 0;   // J/(kg K)
+    double cp = 0;  // J/(kg K)
+};
+HSCp region1HSCp(double T, double P);
+HSCp region2HSCp(double T, double P);
 Props region2(double T, double P);             // eq. 15, Tables 10 and 11
 Props region2Metastable(double T, double P);   // eq. 18, Tables 16 and 17
 Props region3(double rho, double T);           // eq. 28, Table 30 (density input)
