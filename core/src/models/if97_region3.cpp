@@ -1,11 +1,13 @@
 // IF97 region 3 (near-critical): Helmholtz free energy f(rho, T), eq. 28 of
 // IAPWS R7-97(2012), and its density root at given (T, P) found on the
-// forward equation (no backward v(p,T) equations are used).
+// forward equation by the bracketed Newton of numerics/root.hpp (no backward
+// v(p,T) equations are used).
 #include <algorithm>
 #include <cmath>
 #include <initializer_list>
 
 #include "models/if97_detail.hpp"
+#include "numerics/root.hpp"
 
 namespace heatchain::if97 {
 namespace {
@@ -170,34 +172,46 @@ bool region3Density(double T, double P, Branch branch, double& rho) {
         }
     }
     if (hi == 0) return false;
-    double x = dense ? hi : std::min(P / (R * T), 0.5 * hi);
-    for (int it = 0; it < 200; ++it) {
+    const double start = dense ? hi : std::min(P / (R * T), 0.5 * hi);
+    // Newton in a bracket (numerics/root.hpp) on p(rho) − P, which rises
+    // with rho outside the spinodal loop. Inside the loop (dp/drho ≤ 0) a
+    // probe says on which side the root lies: above on the dense branch,
+    // below on the dilute one, as it came from there. The bracket the
+    // finder keeps is followed here too, so that a bracket closed before the
+    // residual is met can be judged at its middle.
+    double lastSlope = 0, blo = lo, bhi = hi;
+    const double tol = 1e-12 * P;
+    auto probe = [&](double x) {
         double p, dp;
         iso.pressureAndSlope(x, p, dp);
         const double f = p - P;
-        if (std::fabs(f) <= 1e-12 * P) {
-            if (dp <= 0) return false;  // stopped on the unstable part of the loop
-            // Below Tc each branch lies on its own side of the critical density.
-            if (T < Tc && (dense ? x < rhoc : x > rhoc)) return false;
-            rho = x;
-            return true;
-        }
+        lastSlope = dp;
+        if (std::fabs(f) <= tol) return heatchain::detail::NewtonProbe{f, dp};
         if (dp > 0) {
-            if (f > 0) hi = std::min(hi, x); else lo = std::max(lo, x);
-        } else {
-            // Inside the spinodal: step back toward the side we came from.
-            if (dense) lo = std::max(lo, x); else hi = std::min(hi, x);
+            if (f > 0) bhi = x; else blo = x;
+            return heatchain::detail::NewtonProbe{f, dp};
         }
-        double next = dp > 0 ? x - f / dp : 0.5 * (lo + hi);
-        if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-        if (hi - lo <= 1e-14 * hi) {
-            rho = 0.5 * (lo + hi);
-            iso.pressureAndSlope(rho, p, dp);
-            return dp > 0 && std::fabs(p - P) <= 1e-9 * P;
-        }
-        x = next;
+        if (dense) blo = x; else bhi = x;
+        return dense ? heatchain::detail::NewtonProbe::rootAbove() : heatchain::detail::NewtonProbe::rootBelow();
+    };
+    // The dense start is the bracket's upper end itself (a density where
+    // p > P is known); the finder probes only inside its bracket, so that
+    // end is passed one representable number higher (the first probe, at
+    // the start, then brings it back to the start).
+    const double hiOpen = dense ? std::nextafter(hi, 2 * hi) : hi;
+    const auto root = heatchain::detail::safeguardedNewton(probe, start, lo, hiOpen, /*rising=*/true, {-1.0, 1e-14, tol, 200});
+    if (!root || !root->converged()) return false;
+    if (root->end == heatchain::detail::NewtonRoot::End::Bracket) {
+        rho = 0.5 * (blo + bhi);
+        double p, dp;
+        iso.pressureAndSlope(rho, p, dp);
+        return dp > 0 && std::fabs(p - P) <= 1e-9 * P;
     }
-    return false;
+    if (lastSlope <= 0) return false;  // stopped on the unstable part of the loop
+    // Below Tc each branch lies on its own side of the critical density.
+    if (T < Tc && (dense ? root->x < rhoc : root->x > rhoc)) return false;
+    rho = root->x;
+    return true;
 }
 
 }  // namespace heatchain::if97
