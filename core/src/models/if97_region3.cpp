@@ -3,6 +3,7 @@
 // forward equation by the bracketed Newton of numerics/root.hpp (no backward
 // v(p,T) equations are used).
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <initializer_list>
 
@@ -108,48 +109,55 @@ Props region3(double rho, double T) { return propsFromPhi(rho, T, phi(rho / rhoc
 
 bool region3Solve(double P, double value, Given given, double& rho, double& T, Props& out) {
     // Newton in two unknowns (rho, T) on p(rho, T) = P and h or s (rho, T) =
-    // value, with the analytic Jacobian of eq. 28 (R7-97(2012), Table 31
-    // derivatives). From the SR3-03 start two or three steps suffice.
+    // value (numerics newton2), with the analytic Jacobian of eq. 28
+    // (R7-97(2012), Table 31 derivatives). From the SR3-03 start two or
+    // three steps suffice.
     const bool H = given == Given::Enthalpy;
     const double tolP = kRegion3SolveTol * P;
     const double tolX = kRegion3SolveTol * std::max(std::fabs(value), H ? 1e3 : 1.0);
-    for (int it = 0; it < 12; ++it) {
-        if (!(rho > 0 && T > 0) || !std::isfinite(rho) || !std::isfinite(T)) return false;
-        const double delta = rho / rhoc;
-        const double tau = Tc / T;
+    auto probe = [&](const std::array<double, 2>& x) {
+        heatchain::detail::Newton2Probe r;  // NaN residuals: give up
+        const double rh = x[0], t = x[1];
+        if (!(rh > 0 && t > 0) || !std::isfinite(rh) || !std::isfinite(t)) return r;
+        const double delta = rh / rhoc;
+        const double tau = Tc / t;
         const Phi f = phi(delta, tau);
-        const double p = rho * R * T * delta * f.fd;
-        const double x = H ? R * T * (tau * f.ft + delta * f.fd) : R * (tau * f.ft - f.f);
-        const double F1 = p - P, F2 = x - value;
-        if (std::fabs(F1) <= tolP && std::fabs(F2) <= tolX) {
-            out = propsFromPhi(rho, T, f);
-            return true;
+        const double p = rh * R * t * delta * f.fd;
+        const double v = H ? R * t * (tau * f.ft + delta * f.fd) : R * (tau * f.ft - f.f);
+        r.f = {p - P, v - value};
+        if (std::fabs(r.f[0]) <= tolP && std::fabs(r.f[1]) <= tolX) {
+            out = propsFromPhi(rh, t, f);
+            r.done = true;
+            return r;
         }
-        const double dpdr = R * T * (2 * delta * f.fd + delta * delta * f.fdd);
-        const double dpdT = rho * R * (delta * f.fd - delta * tau * f.fdt);
+        const double dpdr = R * t * (2 * delta * f.fd + delta * delta * f.fdd);
+        const double dpdT = rh * R * (delta * f.fd - delta * tau * f.fdt);
         double dxdr, dxdT;
         if (H) {
-            dxdr = R * T / rho * (delta * tau * f.fdt + delta * f.fd + delta * delta * f.fdd);
+            dxdr = R * t / rh * (delta * tau * f.fdt + delta * f.fd + delta * delta * f.fdd);
             dxdT = R * (-tau * tau * f.ftt + delta * f.fd - delta * tau * f.fdt);
         } else {
-            dxdr = R / rho * (delta * tau * f.fdt - delta * f.fd);
-            dxdT = -R * tau * tau * f.ftt / T;
+            dxdr = R / rh * (delta * tau * f.fdt - delta * f.fd);
+            dxdT = -R * tau * tau * f.ftt / t;
         }
-        const double det = dpdr * dxdT - dpdT * dxdr;
-        if (!(std::fabs(det) > 0) || !std::isfinite(det)) return false;
-        double dr = -(F1 * dxdT - F2 * dpdT) / det;
-        double dT = -(dpdr * F2 - dxdr * F1) / det;
-        // Keep a step from leaving the neighbourhood of the start: the
-        // backward equations are within a few tenths of a percent.
-        const double lim = std::max(std::fabs(dr) / (0.2 * rho), std::fabs(dT) / (0.05 * T));
+        r.j = {{{dpdr, dpdT}, {dxdr, dxdT}}};
+        return r;
+    };
+    // Keep a step from leaving the neighbourhood of the start: the backward
+    // equations are within a few tenths of a percent.
+    auto limit = [](const std::array<double, 2>& x, std::array<double, 2>& dx) {
+        const double lim = std::max(std::fabs(dx[0]) / (0.2 * x[0]), std::fabs(dx[1]) / (0.05 * x[1]));
         if (lim > 1) {
-            dr /= lim;
-            dT /= lim;
+            dx[0] /= lim;
+            dx[1] /= lim;
         }
-        rho += dr;
-        T += dT;
-    }
-    return false;
+        return true;
+    };
+    const auto x = heatchain::detail::newton2(probe, {rho, T}, limit, {-1, 12});
+    if (!x) return false;
+    rho = (*x)[0];
+    T = (*x)[1];
+    return true;
 }
 
 bool region3Density(double T, double P, Branch branch, double& rho) {
