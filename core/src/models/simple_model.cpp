@@ -441,6 +441,23 @@ bool SimpleModel::condensedSide(int lower, double T, double P, double lo, double
 
 bool SimpleModel::departsFromWatson(double T, double P) const {
     if (!hasWatson_ || T < boilLo_ || T > boilHi_) return false;
+    // Far below the dome (P < Psat/2) the answer is no. vapourLinePressure's
+    // f(y) is convex and falls on its branch, so the point of its first
+    // Newton step (the zero of the tangent at its start) lies at or below
+    // the root, and its later steps only rise to it: where P is below half
+    // of that bound (less a margin far above the round-off of the steps),
+    // it is below half of Psat, and the rest of the iteration is not needed.
+    if (v_ > 0) {
+        const double C = G(kLiquid, T, Pref_) - G(kVapor, T, Pref_);
+        const double RT = R_ * T;
+        const double y0 = C / RT;
+        if (y0 < 700) {
+            const double e = std::exp(y0);
+            const double f = C + v_ * Pref_ * (e - 1) - RT * y0;
+            const double df = v_ * Pref_ * e - RT;
+            if (df < 0 && P < 0.5 * Pref_ * std::exp(y0 - f / df) * (1 - 1e-9)) return false;
+        }
+    }
     auto Psat = vapourLinePressure(kLiquid, T);
     if (!Psat || P < 0.5 * *Psat) return false;  // far below the dome the latent heat does not matter
     const double kirchhoff = H(kVapor, T, *Psat) - H(kLiquid, T, *Psat);
@@ -710,7 +727,9 @@ Result<State> SimpleModel::stateP(double P, Property which, double value) const 
         const auto& e = c.tr.entries[std::size_t(i)];
         const State& lo = c.ends[std::size_t(i)][0];
         const State& up = c.ends[std::size_t(i)][1];
-        const double a = propertyOf(lo, which), b = propertyOf(up, which);
+        // `which` is h or s here (above); read in place of propertyOf's call.
+        const bool byH = which == Property::Enthalpy;
+        const double a = byH ? lo.h : lo.s, b = byH ? up.h : up.s;
         if (value < a) {
             const double Tmin = i == 0 ? minTemperature() : c.tr.entries[std::size_t(i - 1)].T;
             if (auto st = invertOnIsobar(phaseIndex(lowerPhase(e.kind)), P, which, value, lo, Tmin, e.T)) return *st;
