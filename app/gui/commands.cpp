@@ -8,59 +8,55 @@ namespace heatchain::gui {
 
 static QString qs(const std::string& s) { return QString::fromStdString(s); }
 
-// Undo and redo act on the stream the command was made on.
-static void onStream(ProjectDocument* doc, int stream) {
-    if (doc->currentStream() != stream) doc->setCurrentStream(stream, -1);
+void StepCommand::onStream() const {
+    if (doc_->currentStream() != stream_) doc_->setCurrentStream(stream_, -1);
 }
+
+StepInOrOut::StepInOrOut(ProjectDocument* doc, int index, Step step, bool insertOnRedo, int selectAfterErase)
+    : StepCommand(doc), index_(index), step_(std::move(step)), insertOnRedo_(insertOnRedo),
+      selectAfterErase_(selectAfterErase) {}
+
+void StepInOrOut::insert() {
+    onStream();
+    doc_->mutate([&](Project& p) { p.steps.insert(p.steps.begin() + index_, step_); });
+    doc_->setSelectedStep(index_);
+}
+
+void StepInOrOut::erase() {
+    onStream();
+    doc_->mutate([&](Project& p) { p.steps.erase(p.steps.begin() + index_); });
+    doc_->setSelectedStep(std::min(selectAfterErase_, int(doc_->project().steps.size()) - 1));
+}
+
+static int clampedInsert(const ProjectDocument* doc, int index) {
+    return std::clamp(index, 0, int(doc->project().steps.size()));
+}
+
+static const Step& stepAt(const ProjectDocument* doc, int index) { return doc->project().steps.at(std::size_t(index)); }
 
 AddStep::AddStep(ProjectDocument* doc, int index, Step step)
-    : doc_(doc), stream_(doc->currentStream()), index_(std::clamp(index, 0, int(doc->project().steps.size()))), step_(std::move(step)) {
-    setText(QStringLiteral("Add step %1").arg(qs(step_.id)));
-}
-void AddStep::redo() {
-    onStream(doc_, stream_);
-    doc_->mutate([&](Project& p) { p.steps.insert(p.steps.begin() + index_, step_); });
-    doc_->setSelectedStep(index_);
-}
-void AddStep::undo() {
-    onStream(doc_, stream_);
-    doc_->mutate([&](Project& p) { p.steps.erase(p.steps.begin() + index_); });
-    doc_->setSelectedStep(std::min(index_, int(doc_->project().steps.size()) - 1));
+    : StepInOrOut(doc, clampedInsert(doc, index), step, true, clampedInsert(doc, index)) {
+    setText(QStringLiteral("Add step %1").arg(qs(step.id)));
 }
 
-RemoveStep::RemoveStep(ProjectDocument* doc, int index)
-    : doc_(doc), stream_(doc->currentStream()), index_(index), step_(doc->project().steps.at(std::size_t(index))) {
-    setText(QStringLiteral("Delete step %1").arg(qs(step_.id)));
-}
-void RemoveStep::redo() {
-    onStream(doc_, stream_);
-    doc_->mutate([&](Project& p) { p.steps.erase(p.steps.begin() + index_); });
-    doc_->setSelectedStep(std::min(index_, int(doc_->project().steps.size()) - 1));
-}
-void RemoveStep::undo() {
-    onStream(doc_, stream_);
-    doc_->mutate([&](Project& p) { p.steps.insert(p.steps.begin() + index_, step_); });
-    doc_->setSelectedStep(index_);
+RemoveStep::RemoveStep(ProjectDocument* doc, int index) : StepInOrOut(doc, index, stepAt(doc, index), false, index) {
+    setText(QStringLiteral("Delete step %1").arg(qs(stepAt(doc, index).id)));
 }
 
+static Step copyOf(const ProjectDocument* doc, int index) {
+    Step copy = stepAt(doc, index);
+    copy.id = uniqueStepId(doc->project(), copy.id);
+    return copy;
+}
+
+// Taken out again, the copy leaves the original selected.
 DuplicateStep::DuplicateStep(ProjectDocument* doc, int index)
-    : doc_(doc), stream_(doc->currentStream()), index_(index), copy_(doc->project().steps.at(std::size_t(index))) {
-    copy_.id = uniqueStepId(doc->project(), copy_.id);
-    setText(QStringLiteral("Duplicate step %1").arg(qs(doc->project().steps[std::size_t(index)].id)));
-}
-void DuplicateStep::redo() {
-    onStream(doc_, stream_);
-    doc_->mutate([&](Project& p) { p.steps.insert(p.steps.begin() + index_ + 1, copy_); });
-    doc_->setSelectedStep(index_ + 1);
-}
-void DuplicateStep::undo() {
-    onStream(doc_, stream_);
-    doc_->mutate([&](Project& p) { p.steps.erase(p.steps.begin() + index_ + 1); });
-    doc_->setSelectedStep(index_);
+    : StepInOrOut(doc, index + 1, copyOf(doc, index), true, index) {
+    setText(QStringLiteral("Duplicate step %1").arg(qs(stepAt(doc, index).id)));
 }
 
-MoveStep::MoveStep(ProjectDocument* doc, int from, int to) : doc_(doc), stream_(doc->currentStream()), from_(from), to_(to) {
-    setText(QStringLiteral("Move step %1").arg(qs(doc->project().steps.at(std::size_t(from)).id)));
+MoveStep::MoveStep(ProjectDocument* doc, int from, int to) : StepCommand(doc), from_(from), to_(to) {
+    setText(QStringLiteral("Move step %1").arg(qs(stepAt(doc, from).id)));
 }
 static void moveIn(Project& p, int from, int to) {
     Step s = std::move(p.steps[std::size_t(from)]);
@@ -68,42 +64,42 @@ static void moveIn(Project& p, int from, int to) {
     p.steps.insert(p.steps.begin() + to, std::move(s));
 }
 void MoveStep::redo() {
-    onStream(doc_, stream_);
+    onStream();
     doc_->mutate([&](Project& p) { moveIn(p, from_, to_); });
     doc_->setSelectedStep(to_);
 }
 void MoveStep::undo() {
-    onStream(doc_, stream_);
+    onStream();
     doc_->mutate([&](Project& p) { moveIn(p, to_, from_); });
     doc_->setSelectedStep(from_);
 }
 
 EditStepField::EditStepField(ProjectDocument* doc, int index, Step after, const QString& fieldName)
-    : doc_(doc), stream_(doc->currentStream()), index_(index), before_(doc->project().steps.at(std::size_t(index))),
+    : StepCommand(doc), index_(index), before_(stepAt(doc, index)),
       after_(std::move(after)) {
     setText(QStringLiteral("Edit %1 of %2").arg(fieldName, qs(before_.id)));
 }
 void EditStepField::redo() {
-    onStream(doc_, stream_);
+    onStream();
     doc_->mutate([&](Project& p) { p.steps[std::size_t(index_)] = after_; });
     doc_->setSelectedStep(index_);
 }
 void EditStepField::undo() {
-    onStream(doc_, stream_);
+    onStream();
     doc_->mutate([&](Project& p) { p.steps[std::size_t(index_)] = before_; });
     doc_->setSelectedStep(index_);
 }
 
 EditProjectSettings::EditProjectSettings(ProjectDocument* doc, Project after, const QString& what)
-    : doc_(doc), stream_(doc->currentStream()), before_(doc->project()), after_(std::move(after)) {
+    : StepCommand(doc), before_(doc->project()), after_(std::move(after)) {
     setText(what);
 }
 void EditProjectSettings::redo() {
-    onStream(doc_, stream_);
+    onStream();
     doc_->setProject(after_);
 }
 void EditProjectSettings::undo() {
-    onStream(doc_, stream_);
+    onStream();
     doc_->setProject(before_);
 }
 

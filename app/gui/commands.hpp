@@ -9,76 +9,80 @@
 
 namespace heatchain::gui {
 
-class AddStep : public QUndoCommand {
+// A command on one step of the stream that was current when it was made.
+class StepCommand : public QUndoCommand {
+protected:
+    explicit StepCommand(ProjectDocument* doc) : doc_(doc), stream_(doc->currentStream()) {}
+    // Makes the command's stream current again (undo and redo act on it).
+    void onStream() const;
+    ProjectDocument* doc_;
+    int stream_;
+};
+
+// Adding, removing and duplicating a step are one change run one way or the
+// other: a step at `index` that redo puts in (or takes out) and undo takes
+// out (or puts back), with the step selected afterwards on either side.
+class StepInOrOut : public StepCommand {
+public:
+    void redo() override { insertOnRedo_ ? insert() : erase(); }
+    void undo() override { insertOnRedo_ ? erase() : insert(); }
+
+protected:
+    StepInOrOut(ProjectDocument* doc, int index, Step step, bool insertOnRedo, int selectAfterErase);
+
+private:
+    void insert();
+    void erase();
+    int index_;
+    Step step_;
+    bool insertOnRedo_;
+    int selectAfterErase_;  // the step selected once it is out (clamped to the sequence)
+};
+
+class AddStep : public StepInOrOut {
 public:
     AddStep(ProjectDocument* doc, int index, Step step);
-    void redo() override;
-    void undo() override;
-private:
-    ProjectDocument* doc_;
-    int stream_;
-    int index_;
-    Step step_;
 };
 
-class RemoveStep : public QUndoCommand {
+class RemoveStep : public StepInOrOut {
 public:
     RemoveStep(ProjectDocument* doc, int index);
-    void redo() override;
-    void undo() override;
-private:
-    ProjectDocument* doc_;
-    int stream_;
-    int index_;
-    Step step_;
 };
 
-class DuplicateStep : public QUndoCommand {
+// A copy of the step at `index`, with a new id, just after it.
+class DuplicateStep : public StepInOrOut {
 public:
     DuplicateStep(ProjectDocument* doc, int index);
-    void redo() override;
-    void undo() override;
-private:
-    ProjectDocument* doc_;
-    int stream_;
-    int index_;
-    Step copy_;
 };
 
-class MoveStep : public QUndoCommand {
+class MoveStep : public StepCommand {
 public:
     MoveStep(ProjectDocument* doc, int from, int to);
     void redo() override;
     void undo() override;
 private:
-    ProjectDocument* doc_;
-    int stream_;
     int from_, to_;
 };
 
 // A change of one field of one step (the whole step before and after is kept,
 // which also covers a change of kind that resets the kind's options).
-class EditStepField : public QUndoCommand {
+class EditStepField : public StepCommand {
 public:
     EditStepField(ProjectDocument* doc, int index, Step after, const QString& fieldName);
     void redo() override;
     void undo() override;
 private:
-    ProjectDocument* doc_;
-    int stream_;
     int index_;
     Step before_, after_;
 };
 
 // Title, substance, model, start state, units …: the project before and after.
-class EditProjectSettings : public QUndoCommand {
+class EditProjectSettings : public StepCommand {
 public:
     EditProjectSettings(ProjectDocument* doc, Project after, const QString& what);
     void redo() override;
     void undo() override;
 private:
-    ProjectDocument* doc_;
-    int stream_;
     Project before_, after_;
 };
 

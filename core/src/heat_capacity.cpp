@@ -212,24 +212,25 @@ double HeatCapacity::cp(double T) const {
     return rawCp(pieceFor(Tc), Tc);
 }
 
-double HeatCapacity::enthalpy(double T) const {
+// h or s at T: the fitted integral inside [Tmin, Tmax]; beyond it, the end's
+// cp held constant, dh = cp dT and ds = cp dT / T (`beyond` gives the factor
+// of cp from the range's end Tc to T).
+template <class Raw, class Beyond>
+double HeatCapacity::integral(double T, Raw raw, double Piece::*offset, Beyond beyond) const {
     if (pieces_.empty()) return 0.0;
-    const double lo = Tmin(), hi = Tmax();
-    const double Tc = std::clamp(T, lo, hi);
+    const double Tc = std::clamp(T, Tmin(), Tmax());
     const auto& p = pieceFor(Tc);
-    double h = rawEnthalpy(p, Tc) + p.hOffset;
-    if (T != Tc) h += cp(Tc) * (T - Tc);
-    return h;
+    double v = raw(p, Tc) + p.*offset;
+    if (T != Tc) v += cp(Tc) * beyond(T, Tc);
+    return v;
+}
+
+double HeatCapacity::enthalpy(double T) const {
+    return integral(T, rawEnthalpy, &Piece::hOffset, [](double t, double tc) { return t - tc; });
 }
 
 double HeatCapacity::entropy(double T) const {
-    if (pieces_.empty()) return 0.0;
-    const double lo = Tmin(), hi = Tmax();
-    const double Tc = std::clamp(T, lo, hi);
-    const auto& p = pieceFor(Tc);
-    double s = rawEntropy(p, Tc) + p.sOffset;
-    if (T != Tc) s += cp(Tc) * std::log(T / Tc);
-    return s;
+    return integral(T, rawEntropy, &Piece::sOffset, [](double t, double tc) { return std::log(t / tc); });
 }
 
 bool HeatCapacity::isConstant() const {

@@ -218,27 +218,24 @@ UtilityPlan placeUtilities(const Targets& targets, std::span<const UtilityLevel>
         return k + 1;
     };
 
-    double hotLeft = targets.hotUtilityMin;
-    for (std::size_t i : hotOrder) {
-        UtilityPlacement& u = plan.levels[i];
-        const double q = std::clamp(std::min(hotLeft, leastBeyond(u.Tshifted, true)), 0.0, hotLeft);
-        u.duty = q;
-        hotLeft -= q;
-        const std::size_t cut = splitAt(u.Tshifted, true);  // the heat enters between flow[cut - 1] and flow[cut]
-        for (std::size_t k = 0; k < cut; ++k) flow[k].Q -= q;
-    }
-    plan.hotUnmet = hotLeft;
+    // Each level in turn takes what its side still needs, up to what the
+    // cascade can pass at its temperature; the heat leaves the flow above a
+    // hot level's cut (it enters there) and below a cold level's.
+    auto place = [&](const std::vector<std::size_t>& order, double need, bool hot) {
+        for (std::size_t i : order) {
+            UtilityPlacement& u = plan.levels[i];
+            const double q = std::clamp(std::min(need, leastBeyond(u.Tshifted, hot)), 0.0, need);
+            u.duty = q;
+            need -= q;
+            const std::size_t cut = splitAt(u.Tshifted, hot);  // the heat passes between flow[cut - 1] and flow[cut]
+            const std::size_t from = hot ? 0 : cut, to = hot ? cut : flow.size();
+            for (std::size_t k = from; k < to; ++k) flow[k].Q -= q;
+        }
+        return need;
+    };
+    plan.hotUnmet = place(hotOrder, targets.hotUtilityMin, true);
     // Cold levels see the cascade as the hot levels left it.
-    double coldLeft = targets.coldUtilityMin;
-    for (std::size_t i : coldOrder) {
-        UtilityPlacement& u = plan.levels[i];
-        const double q = std::clamp(std::min(coldLeft, leastBeyond(u.Tshifted, false)), 0.0, coldLeft);
-        u.duty = q;
-        coldLeft -= q;
-        const std::size_t cut = splitAt(u.Tshifted, false);
-        for (std::size_t k = cut; k < flow.size(); ++k) flow[k].Q -= q;
-    }
-    plan.coldUnmet = coldLeft;
+    plan.coldUnmet = place(coldOrder, targets.coldUtilityMin, false);
     return plan;
 }
 

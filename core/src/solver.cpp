@@ -44,15 +44,20 @@ std::string Ctx::E(double v) const {
     return quantityText(v, closed ? Dimension::Energy : Dimension::Power, project.displayUnits, project.unitContext());
 }
 
-Outcome nullStep(const Ctx& c, const State& a, double Qcum, const std::string& what) {
+Outcome staysAt(const State& a, double Qcum, const std::string& label, bool withCurve) {
     Outcome o;
     o.end = a;
     SegmentResult seg;
-    seg.label = "no change";
+    seg.label = label;
     seg.start = a;
     seg.end = a;
-    if (c.points > 0) seg.curve.assign(2, CurvePoint{a.T, a.s, Qcum, a.P, a.h});
+    if (withCurve) seg.curve.assign(2, CurvePoint{a.T, a.s, Qcum, a.P, a.h});
     o.segments.push_back(std::move(seg));
+    return o;
+}
+
+Outcome nullStep(const Ctx& c, const State& a, double Qcum, const std::string& what) {
+    Outcome o = staysAt(a, Qcum, "no change", c.points > 0);
     o.warnings.push_back(what + ": the step changes nothing");
     return o;
 }

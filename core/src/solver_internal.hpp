@@ -43,6 +43,10 @@ std::string num(double v, int digits = 4);
 // A value in display units for messages: "80 °C", "12 bar", "176 °F".
 std::string quantityText(double si, Dimension d, UnitSystem units, const UnitContext& context, int digits = 5);
 
+// One segment from a to itself, labelled, at the cumulative duty Qcum (with a
+// two-point curve when asked): a step during which nothing changes.
+Outcome staysAt(const State& a, double Qcum, const std::string& label, bool withCurve);
+
 // A step whose target is where the material already is: it is computed, with
 // nothing exchanged and one segment from the start to itself, and `what`
 // (e.g. "the target 80 °C is the start temperature") as its warning.

@@ -76,15 +76,7 @@ double lossUAOf(const Ctx& c, const Step& step) {
 
 Result<Outcome> holdStep(const Ctx& c, const Step& step, std::size_t idx, const State& a, double Qcum) {
     if (!c.closed) return stepError(step, idx, "a hold step belongs to a closed system (a batch)");
-    Outcome o;
-    o.end = a;
-    SegmentResult seg;
-    seg.label = "holding";
-    seg.start = a;
-    seg.end = a;
-    seg.curve.assign(2, CurvePoint{a.T, a.s, Qcum, a.P, a.h});
-    o.segments.push_back(std::move(seg));
-    return o;
+    return staysAt(a, Qcum, "holding", true);
 }
 
 Status applyTransfer(const Ctx& c, const Step& step, std::size_t idx, StepResult& sr,

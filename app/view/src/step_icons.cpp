@@ -55,6 +55,27 @@ void rightArrow(QPainter& p, double y) {
     p.drawPath(a);
 }
 
+// A bar with two arrows: pressing on it from both sides (compress) or
+// leaving it outwards (expand).
+void pressureArrows(QPainter& p, bool inward) {
+    p.drawLine(QPointF(12, 4), QPointF(12, 20));
+    QPainterPath a;
+    // From x0 to the head at x1 on the centre line.
+    auto arrow = [&a](double x0, double x1) {
+        const double back = x1 > x0 ? -2.5 : 2.5;
+        a.moveTo(x0, 12); a.lineTo(x1, 12);
+        a.moveTo(x1 + back, 9.5); a.lineTo(x1, 12); a.lineTo(x1 + back, 14.5);
+    };
+    if (inward) {
+        arrow(2, 9);
+        arrow(22, 15);
+    } else {
+        arrow(9.5, 2);
+        arrow(14.5, 22);
+    }
+    p.drawPath(a);
+}
+
 }  // namespace
 
 void drawStepIcon(QPainter& p, const QRectF& box, StepKind kind, const QColor& ink) {
@@ -78,24 +99,8 @@ void drawStepIcon(QPainter& p, const QRectF& box, StepKind kind, const QColor& i
     case StepKind::Condense: bubbles(p, left); rightArrow(p, 12); drop(p, right); break;
     case StepKind::Sublimate: block(p, left); rightArrow(p, 12); bubbles(p, right); break;
     case StepKind::Deposit: bubbles(p, left); rightArrow(p, 12); block(p, right); break;
-    case StepKind::Compress: {
-        // Two arrows pressing on a bar from both sides.
-        p.drawLine(QPointF(12, 4), QPointF(12, 20));
-        QPainterPath a;
-        a.moveTo(2, 12); a.lineTo(9, 12); a.moveTo(6.5, 9.5); a.lineTo(9, 12); a.lineTo(6.5, 14.5);
-        a.moveTo(22, 12); a.lineTo(15, 12); a.moveTo(17.5, 9.5); a.lineTo(15, 12); a.lineTo(17.5, 14.5);
-        p.drawPath(a);
-        break;
-    }
-    case StepKind::Expand: {
-        // Arrows leaving a bar outwards.
-        p.drawLine(QPointF(12, 4), QPointF(12, 20));
-        QPainterPath a;
-        a.moveTo(9.5, 12); a.lineTo(2, 12); a.moveTo(4.5, 9.5); a.lineTo(2, 12); a.lineTo(4.5, 14.5);
-        a.moveTo(14.5, 12); a.lineTo(22, 12); a.moveTo(19.5, 9.5); a.lineTo(22, 12); a.lineTo(19.5, 14.5);
-        p.drawPath(a);
-        break;
-    }
+    case StepKind::Compress: pressureArrows(p, true); break;
+    case StepKind::Expand: pressureArrows(p, false); break;
     case StepKind::Hold:
         // A clock face: the batch stays put for a time.
         p.drawEllipse(QPointF(12, 12), 8.5, 8.5);

@@ -9,26 +9,6 @@
 
 namespace heatchain::view {
 
-namespace {
-
-// Decimals a tick label needs for its spacing (2.5 → 1).
-int tickDecimals(double step) {
-    int d = 0;
-    double v = step;
-    while (d < 6 && std::fabs(v - std::round(v)) > 1e-6 * std::max(1.0, std::fabs(v))) {
-        v *= 10;
-        ++d;
-    }
-    return d;
-}
-
-QString tickText(double v, double step) {
-    return QString::number(std::fabs(v) < step * 1e-6 ? 0.0 : v, 'f', tickDecimals(step))
-        .replace(QLatin1Char('-'), QChar(0x2212));
-}
-
-}  // namespace
-
 void TimeChart::setData(const Project& project, const SequenceResult& result) {
     series_.clear();
     const UnitSystem us = project.displayUnits;
@@ -106,7 +86,7 @@ void TimeChart::paint(QPainter& p, const QRectF& rect) const {
     };
     auto widest = [&](double from, double to, double step) {
         double w = 0;
-        for (double v = from; v <= to + 1e-9 * step; v += step) w = std::max(w, fm.horizontalAdvance(tickText(v, step)));
+        for (double v = from; v <= to + 1e-9 * step; v += step) w = std::max(w, fm.horizontalAdvance(tickLabel(v, step)));
         return w;
     };
     double left = lineH + 3 * gap + fm.horizontalAdvance(QStringLiteral("000.0"));
@@ -142,7 +122,7 @@ void TimeChart::paint(QPainter& p, const QRectF& rect) const {
         p.setPen(QPen(ink::grid(), 1));
         p.drawLine(QPointF(a.x(), plot.top()), QPointF(a.x(), plot.bottom()));
         p.setPen(ink::muted());
-        p.drawText(QRectF(a.x() - 50, plot.bottom() + 3, 100, lineH), Qt::AlignHCenter, tickText(x, xs));
+        p.drawText(QRectF(a.x() - 50, plot.bottom() + 3, 100, lineH), Qt::AlignHCenter, tickLabel(x, xs));
     }
     for (double y = std::ceil(ymin_ / ys) * ys; y <= ymax_ + 1e-9 * ys; y += ys) {
         const QPointF a = map({0, y});
@@ -150,7 +130,7 @@ void TimeChart::paint(QPainter& p, const QRectF& rect) const {
         p.drawLine(QPointF(plot.left(), a.y()), QPointF(plot.right(), a.y()));
         p.setPen(ink::muted());
         p.drawText(QRectF(plot.left() - gap - 200, a.y() - lineH / 2, 200, lineH), Qt::AlignRight | Qt::AlignVCenter,
-                   tickText(y, ys));
+                   tickLabel(y, ys));
     }
     for (double d = 0; d <= dmax_ + 1e-9 * ds; d += ds) {
         const QPointF a = mapDuty({0, d});
@@ -159,7 +139,7 @@ void TimeChart::paint(QPainter& p, const QRectF& rect) const {
         p.drawLine(QPointF(plot.right(), a.y()), QPointF(plot.right() + 3, a.y()));
         p.setPen(ink::muted());
         p.drawText(QRectF(plot.right() + gap, a.y() - lineH / 2, 200, lineH), Qt::AlignLeft | Qt::AlignVCenter,
-                   tickText(d, ds));
+                   tickLabel(d, ds));
     }
     p.setPen(QPen(ink::axis(), 1));
     p.setBrush(Qt::NoBrush);

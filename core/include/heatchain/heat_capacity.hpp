@@ -68,6 +68,8 @@ public:
 
 private:
     const Piece& pieceFor(double T) const;
+    template <class Raw, class Beyond>
+    double integral(double T, Raw raw, double Piece::*offset, Beyond beyond) const;
     std::vector<Piece> pieces_;
     double fitResidual_ = 0.0;
 };

@@ -96,6 +96,19 @@ DeltaParts deltaParts(double delta) {
     return p;
 }
 
+// One term's delta^d exp(-delta^c) tau^t part (`base`) and its A and B.
+struct TermDelta {
+    double base, A, B;
+};
+
+inline TermDelta termDelta(int i, const DeltaParts& dp, const TauPowers& tp) {
+    const Term& t = kTerms[i];
+    const double base = tp.p[i] * dp.dpow[t.d] * dp.e[t.c];
+    const double cdc = t.c * dp.dc[t.c];
+    const double A = t.d - cdc;
+    return {base, A, A * (A - 1.0) - t.c * cdc};
+}
+
 }  // namespace
 
 Residual residual(double delta, const TauPowers& tp) {
@@ -103,11 +116,7 @@ Residual residual(double delta, const TauPowers& tp) {
     Residual r;
     double s0 = 0, s1 = 0, s2 = 0;  // sums of phir, delta phir_d, delta^2 phir_dd
     for (int i = 0; i < 21; ++i) {
-        const Term& t = kTerms[i];
-        const double base = tp.p[i] * dp.dpow[t.d] * dp.e[t.c];
-        const double cdc = t.c * dp.dc[t.c];
-        const double A = t.d - cdc;
-        const double B = A * (A - 1.0) - t.c * cdc;
+        const auto [base, A, B] = termDelta(i, dp, tp);
         s0 += base;
         s1 += base * A;
         s2 += base * B;
@@ -124,12 +133,8 @@ Helmholtz evaluate(double delta, double tau) {
     Helmholtz h;
     double s0 = 0, s1 = 0, s2 = 0, st = 0, stt = 0, sdt = 0;
     for (int i = 0; i < 21; ++i) {
-        const Term& t = kTerms[i];
-        const double tt = 0.5 * t.t2;
-        const double base = tp.p[i] * dp.dpow[t.d] * dp.e[t.c];
-        const double cdc = t.c * dp.dc[t.c];
-        const double A = t.d - cdc;
-        const double B = A * (A - 1.0) - t.c * cdc;
+        const double tt = 0.5 * kTerms[i].t2;
+        const auto [base, A, B] = termDelta(i, dp, tp);
         s0 += base;
         s1 += base * A;
         s2 += base * B;
