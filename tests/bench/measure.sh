@@ -84,4 +84,44 @@ PY
   echo "pages: $(pdfinfo "$work/thirty.pdf" | sed -n 's/^Pages: *//p'); wall median $(median <"$work/report.s") s;" \
        "peak RSS median $(($(median <"$work/report.kb" | cut -d. -f1) / 1024)) MB"
 fi
+# The command line on long worksheets: compute --json and check of a
+# 10,000-step file, and both on a 200,000-step file (the loader's limit is
+# 250,000 steps a stream), wall time and peak memory of whole runs.
+if [ -x "$app/app/cli/heatchain-cli" ]; then
+  /usr/bin/python3 - "$work" <<'PY'
+import json, sys
+cycle = [
+    {"id": "pump", "kind": "compress", "to": {"P": "14 bar"}, "path": "adiabatic", "efficiency": 0.7},
+    {"id": "eco", "kind": "heat", "to": {"T": "180 degC"}, "source": {"T": "240 degC"}},
+    {"id": "boil", "kind": "boil", "source": {"T": "240 degC"}},
+    {"id": "sh", "kind": "heat", "to": {"T": "265 degC"}, "source": {"T": "420 degC"}},
+    {"id": "turbine", "kind": "expand", "to": {"P": "1.4 bar"}, "path": "adiabatic", "efficiency": 0.8},
+    {"id": "cond", "kind": "condense", "sink": {"T": "30 degC"}},
+    {"id": "sub", "kind": "cool", "to": {"T": "48 degC"}, "sink": {"T": "30 degC"}},
+]
+for n in (10000, 200000):
+    steps = []
+    for i in range(n):
+        s = dict(cycle[i % 7]); s["id"] = f"{s['id']}-{i // 7}"; steps.append(s)
+    doc = {"format": "heatchain-project", "version": 1, "meta": {"title": f"{n}-step timing"},
+           "system": "steady-flow", "model": "reference", "substance": "water",
+           "basis": {"massFlow": "4.2 t/h"}, "start": {"T": "48 degC", "P": "1.4 bar"}, "steps": steps}
+    json.dump(doc, open(f"{sys.argv[1]}/s{n}.hchain", "w"), indent=1)
+PY
+  for n in 10000 200000; do
+    runs=$reps; [ "$n" -gt 10000 ] && runs=1
+    for verb in "compute --json" check; do
+      rm -f "$work/cli.s" "$work/cli.kb"
+      for i in $(seq $runs); do
+        # shellcheck disable=SC2086
+        /usr/bin/time -v "$app/app/cli/heatchain-cli" $verb "$work/s$n.hchain" >/dev/null 2>"$work/cli.time"
+        sed -n 's/.*Elapsed (wall clock) time (h:mm:ss or m:ss): //p' "$work/cli.time" |
+          awk -F: '{ print $(NF - 1) * 60 + $NF }' >>"$work/cli.s"
+        sed -n 's/.*Maximum resident set size (kbytes): //p' "$work/cli.time" >>"$work/cli.kb"
+      done
+      echo "== $verb, $n steps ($(($(stat -c %s "$work/s$n.hchain") / 1024)) KiB): wall median $(median <"$work/cli.s") s;" \
+           "peak RSS median $(($(median <"$work/cli.kb" | cut -d. -f1) / 1024)) MB ($runs runs)"
+    done
+  done
+fi
 echo "load after: $(cut -d' ' -f1-3 /proc/loadavg)"
