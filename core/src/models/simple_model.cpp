@@ -400,20 +400,16 @@ Result<double> SimpleModel::vapourLinePressure(int lower, double T) const {
     const double RT = R_ * T;
     double y = C / RT;
     if (v_ > 0) {
-        bool converged = false;
-        for (int i = 0; i < kMaxIterations && y < 700; ++i) {
-            const double e = std::exp(y);
-            const double f = C + v_ * Pref_ * (e - 1) - RT * y;
-            const double df = v_ * Pref_ * e - RT;
-            if (!(df < 0)) break;
-            const double step = f / df;
-            y -= step;
-            if (std::abs(step) <= 1e-15 * std::max(1.0, std::abs(y))) {
-                converged = true;
-                break;
-            }
-        }
-        if (!converged || !(v_ * Pref_ * std::exp(y) < RT))
+        auto probe = [&](double yy) {
+            const double e = std::exp(yy);
+            return detail::NewtonProbe{C + v_ * Pref_ * (e - 1) - RT * yy, v_ * Pref_ * e - RT};
+        };
+        // ln P of either sign, f falling; beyond y = 700 P would overflow.
+        const auto root = detail::newtonPolish(probe, y, {.residualTolerance = -1, .stepTolerance = 1e-15,
+                                                          .maxIterations = kMaxIterations, .positive = false,
+                                                          .rising = false, .stepFloor = 1.0, .below = 700});
+        if (root) y = *root;
+        if (!root || !(v_ * Pref_ * std::exp(y) < RT))
             return makeError("no " + std::string(lower == kSolid ? "sublimation" : "vapour") + " pressure at " +
                                  fmt(T, "K") + ": the vapour would be denser than the condensed phase",
                              sub_.id);

@@ -189,28 +189,35 @@ std::optional<NewtonRoot> safeguardedNewton(Probe&& probe, double x, double lo, 
     return NewtonRoot{last, NewtonRoot::End::Iterations, true};
 }
 
-// Plain Newton from a close start (a backward equation, a closed form) on a
-// positive variable, with no bracket: stops with the point probed when
-// |f| <= residualTolerance, or with the point reached when a step was at most
-// stepTolerance·|x| there; nothing when x leaves (0, ∞), the slope is not
-// positive and finite, or the iterations run out. A negative tolerance
+// Plain Newton from a close start (a backward equation, a closed form), with
+// no bracket: stops with the point probed when |f| <= residualTolerance, or
+// with the point reached when a step was at most stepTolerance·max(stepFloor,
+// |x|) there; nothing when x leaves its domain ((0, ∞), or (−∞, below) for a
+// variable of either sign), the slope is not of the expected sign (rising or
+// falling) and finite, or the iterations run out. A negative tolerance
 // switches its test off.
 struct PolishOptions {
     double residualTolerance = -1;
     double stepTolerance = -1;
     int maxIterations = 8;
+    bool positive = true;   // x is a positive variable (a temperature); else any sign (a logarithm)
+    bool rising = true;     // f rises with x (slope > 0) or falls
+    double stepFloor = 0;   // the step test's scale near x = 0, for a variable of either sign
+    double below = std::numeric_limits<double>::infinity();  // x must stay below (e.g. ln P under overflow)
 };
 
 template <class Probe>
 std::optional<double> newtonPolish(Probe&& probe, double x, const PolishOptions& opt) {
+    auto inDomain = [&](double v) { return (opt.positive ? v > 0 : v < opt.below) && std::isfinite(v); };
     for (int it = 0; it < opt.maxIterations; ++it) {
-        if (!(x > 0) || !std::isfinite(x)) return std::nullopt;
+        if (!inDomain(x)) return std::nullopt;
         const NewtonProbe p = probe(x);
         if (std::fabs(p.f) <= opt.residualTolerance) return x;
-        if (!(p.slope > 0) || !std::isfinite(p.slope)) return std::nullopt;
+        if (!(opt.rising ? p.slope > 0 : p.slope < 0) || !std::isfinite(p.slope)) return std::nullopt;
         const double step = p.f / p.slope;
         x -= step;
-        if (x > 0 && std::fabs(step) <= opt.stepTolerance * x) return x;
+        if ((!opt.positive || x > 0) && std::fabs(step) <= opt.stepTolerance * std::max(opt.stepFloor, std::fabs(x)))
+            return x;
     }
     return std::nullopt;
 }
