@@ -1,6 +1,7 @@
 #include "heatchain_view/exergy_chart.hpp"
 
 #include <QFontMetricsF>
+#include <QPaintEngine>
 #include <algorithm>
 #include <cmath>
 
@@ -31,6 +32,36 @@ void ExergyBarChart::setData(const Project& project, const SequenceResult& resul
         b.noSource = noSourceGiven(s);
         bars_.push_back(b);
     }
+}
+
+namespace {
+bool sameIds(const std::vector<QString>& ids, const std::vector<ExergyBarChart::Bar>& bars) {
+    return ids.size() == bars.size() &&
+           std::equal(ids.begin(), ids.end(), bars.begin(), [](const QString& id, const ExergyBarChart::Bar& b) { return id == b.id; });
+}
+std::vector<QString> idsOf(const std::vector<ExergyBarChart::Bar>& bars) {
+    std::vector<QString> ids;
+    ids.reserve(bars.size());
+    for (const ExergyBarChart::Bar& b : bars) ids.push_back(b.id);
+    return ids;
+}
+}  // namespace
+
+const std::vector<QStaticText>& ExergyBarChart::nameTexts(const QFont& font, double width) const {
+    if (names_.width == width && names_.font == font && sameIds(names_.ids, bars_)) return names_.texts;
+    const QFontMetricsF fm(font);
+    names_.font = font;
+    names_.width = width;
+    names_.ids = idsOf(bars_);
+    names_.texts.clear();
+    names_.texts.reserve(bars_.size());
+    for (const Bar& b : bars_) {
+        QStaticText t(fm.elidedText(b.id, Qt::ElideMiddle, width - 2));
+        t.setTextFormat(Qt::PlainText);
+        t.prepare(QTransform(), font);
+        names_.texts.push_back(std::move(t));
+    }
+    return names_.texts;
 }
 
 ExergyBarChart::Layout ExergyBarChart::layout(const QRectF& rect, const QFontMetricsF& fm) const {
@@ -96,15 +127,27 @@ void ExergyBarChart::paint(QPainter& p, const QRectF& rect) const {
     QFont nameFont = normal;
     if (crowded) nameFont.setPointSizeF(std::max(5.5, normal.pointSizeF() * L.rowHeight / (fm.height() * 0.95)));
     const QFontMetricsF nfm(nameFont);
-    for (const Bar& b : bars_) {
+    // On screen the names are laid out once (nameTexts); a printer or PDF
+    // lays them out as it draws, as before.
+    const bool onScreen = p.paintEngine() && p.paintEngine()->type() == QPaintEngine::Raster;
+    const std::vector<QStaticText>* names = onScreen ? &nameTexts(nameFont, L.labelWidth) : nullptr;
+    for (std::size_t k = 0; k < bars_.size(); ++k) {
+        const Bar& b = bars_[k];
         const QRectF row(rect.left(), y, rect.width(), L.rowHeight);
         if (b.step == selected_) p.fillRect(row, QColor(255, 244, 200));
         const bool words = !crowded || b.share >= 0.05 || b.step == selected_;
         const QRectF textRow(rect.left(), y + L.rowHeight / 2 - fm.height() / 2, rect.width(), fm.height());
         p.setPen(ink::text());
         p.setFont(nameFont);
-        p.drawText(QRectF(rect.left() + 2, y, L.labelWidth, L.rowHeight), Qt::AlignRight | Qt::AlignVCenter,
-                   nfm.elidedText(b.id, Qt::ElideMiddle, L.labelWidth - 2));
+        if (names) {
+            // Where drawText would put it: right-aligned, centred in the row.
+            const QStaticText& name = (*names)[k];
+            const QSizeF size = name.size();
+            p.drawStaticText(QPointF(rect.left() + 2 + L.labelWidth - size.width(), y + (L.rowHeight - size.height()) / 2), name);
+        } else {
+            p.drawText(QRectF(rect.left() + 2, y, L.labelWidth, L.rowHeight), Qt::AlignRight | Qt::AlignVCenter,
+                       nfm.elidedText(b.id, Qt::ElideMiddle, L.labelWidth - 2));
+        }
         p.setFont(normal);
         const double len = std::max(0.0, b.display) / L.max * L.plot.width();
         const QRectF bar(L.plot.left(), y + (L.rowHeight - thick) / 2, len, thick);

@@ -4,7 +4,9 @@
 // step's own colour and labelled with its value and its share of the
 // sequence total. Drawn with QPainter for the window and the PDF report.
 #include <QColor>
+#include <QFont>
 #include <QPainter>
+#include <QStaticText>
 #include <QString>
 #include <vector>
 
@@ -43,6 +45,17 @@ private:
         double labelWidth = 0, max = 1, rowHeight = 20;
     };
     Layout layout(const QRectF& rect, const QFontMetricsF& fm) const;
+    // The step names laid out once and kept between paints on screen: an
+    // edit rarely renames a step, and laying out a hundred names on every
+    // paint was most of the chart's time on a long sheet.
+    const std::vector<QStaticText>& nameTexts(const QFont& font, double width) const;
+    struct NameCache {
+        QFont font;
+        double width = -1;
+        std::vector<QString> ids;
+        std::vector<QStaticText> texts;
+    };
+    mutable NameCache names_;
 
     std::vector<Bar> bars_;
     std::vector<QColor> colours_;
