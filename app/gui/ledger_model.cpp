@@ -61,7 +61,15 @@ void LedgerModel::refresh() {
     decimals_[std::size_t(ColUQ)] = decimals_[std::size_t(ColQ)];
     decimals_[std::size_t(ColUW)] = decimals_[std::size_t(ColW)];
     endResetModel();
-    emit headerDataChanged(Qt::Horizontal, 0, ColumnCount - 1);
+    // The headings name the display units: tell the header only when one of
+    // them reads differently (telling it on every edit cost the header a
+    // relayout each time).
+    QStringList headings;
+    for (int c = 0; c < ColumnCount; ++c) headings << headerData(c, Qt::Horizontal, Qt::DisplayRole).toString();
+    if (headings != headings_) {
+        headings_ = std::move(headings);
+        emit headerDataChanged(Qt::Horizontal, 0, ColumnCount - 1);
+    }
 }
 
 const SequenceResult& LedgerModel::resultOf(const Row& r) const { return doc_->results()[std::size_t(r.stream)]; }

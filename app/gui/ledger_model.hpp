@@ -92,6 +92,7 @@ private:
     // Decimals of each numeric column, from its largest value, so a column
     // reads with one number of decimals from top to bottom.
     std::vector<int> decimals_;
+    QStringList headings_;  // as last told to the header
 };
 
 }  // namespace heatchain::gui
