@@ -27,7 +27,7 @@ echo "compiler: $(g++ --version | head -1); build type: $(grep CMAKE_BUILD_TYPE:
 echo "load before: $(cut -d' ' -f1-3 /proc/loadavg)"
 
 # Google Benchmark programs: median aggregates of $reps repetitions.
-for b in bench_solver bench_if97 bench_peng_robinson bench_ammonia bench_utilities; do
+for b in bench_solver bench_if97 bench_peng_robinson bench_ammonia bench_utilities bench_gui_edit; do
   [ -x "$bench/tests/$b" ] || { echo "($b not built)"; continue; }
   echo "== $b (median of $reps)"
   "$bench/tests/$b" --benchmark_repetitions=$reps --benchmark_report_aggregates_only=true \
