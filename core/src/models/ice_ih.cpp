@@ -121,11 +121,17 @@ double meltingPressureMax() {
 double meltingTemperature(double P) {
     const double nan = std::numeric_limits<double>::quiet_NaN();
     if (!(P >= kPt * (1 - 1e-12)) || P > meltingPressureMax() * (1 + 1e-12)) return nan;
-    // p(T) falls steeply and smoothly with T; Newton on a bisection bracket.
+    // p(T) falls steeply and smoothly with T; Newton on a bisection bracket,
+    // with the slope of eq. 1, dp/dT = -(pt/Tt) sum a_i b_i theta^(b_i - 1).
     auto probe = [P](double T) {
-        const double h = 1e-6;
-        return detail::NewtonProbe{meltingPressure(T) - P,
-                                   (meltingPressure(T + h) - meltingPressure(T - h)) / (2 * h)};
+        const double th = T / kTt;
+        double sum = 0, slope = 0;
+        for (int i = 0; i < 3; ++i) {
+            const double pw = std::pow(th, kMeltB[i]);
+            sum += kMeltA[i] * (1.0 - pw);
+            slope -= kMeltA[i] * kMeltB[i] * pw / th;
+        }
+        return detail::NewtonProbe{kPt * (1.0 + sum) - P, kPt / kTt * slope};
     };
     const auto T = detail::safeguardedNewton(probe, kTt - (P - kPt) / 13.5e6, kMeltTmin, kTt, /*rising=*/false,
                                              {1e-12, 0.0, 0.0, 100});
