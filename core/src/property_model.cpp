@@ -268,17 +268,29 @@ Result<State> PropertyModel::stateP(double P, Property which, double value) cons
     // crosses (the lever rule between their two ends). Along an isobar h, s
     // and u rise with T; v mostly does (the liquid-water density maximum is
     // handled because each span is searched by bracketing, not by slope).
+    // h and s also rise across every phase change (the latent heat is
+    // positive), so a value above a line's upper end lies above the span
+    // below it too, and that span is not searched.
+    const bool risesAcrossLines = which == Property::Enthalpy || which == Property::Entropy;
     const auto tr = transitionsAt(P);
     double Tlo = minTemperature();
     for (int i = 0; i <= tr.count; ++i) {
         const double Thi = i < tr.count ? tr.entries[i].T : maxTemperature();
+        std::optional<Result<State>> upper;
+        if (i < tr.count && risesAcrossLines) {
+            upper = phaseState(upperPhase(tr.entries[i].kind), Thi, P);
+            if (*upper && value > propertyOf(**upper, which)) {
+                Tlo = Thi;
+                continue;
+            }
+        }
         auto st = solveOnIsobarSpan(IsobarSpan{P, Tlo, Thi, i, &tr}, which, value);
         if (!st) return st.error();
         if (*st) return **st;
         if (i == tr.count) break;
         const auto t = tr.entries[i].kind;
         auto lo = phaseState(lowerPhase(t), tr.entries[i].T, P);
-        auto up = phaseState(upperPhase(t), tr.entries[i].T, P);
+        auto up = upper ? *upper : phaseState(upperPhase(t), tr.entries[i].T, P);
         if (lo && up) {
             const double a = propertyOf(*lo, which), b = propertyOf(*up, which);
             const double mn = std::min(a, b), mx = std::max(a, b);

@@ -117,7 +117,9 @@ protected:
     // The isobar walk's per-model hook (stateP walks the spans and the phase
     // changes between them; this solves one span): the state in the span
     // whose `which` equals `value`, nullopt when the span does not hold it
-    // (the walk goes on), or an error that ends the walk. The default
+    // (the walk goes on), or an error that ends the walk. For h and s the
+    // walk skips a span when the value lies above the upper end of the phase
+    // change that closes it. The default
     // brackets the span by its ends and solves by Brent, asking the model
     // for the stable phase where the span's phase is not one throughout.
     virtual Result<std::optional<State>> solveOnIsobarSpan(const IsobarSpan& span, Property which,
