@@ -1,7 +1,9 @@
 // Somewhat over 600 lines on purpose: the (P, h) and (P, s) inversion of
-// IF97 (the direct region paths and the isobar spans of regions 1 to 5 and
-// ice) depends on the region boundaries and backward equations that only
-// this model has; the equations themselves live in if97_*.cpp and ice_ih.cpp.
+// IF97 (the direct region paths, and the hook that solves one span of the
+// base class's isobar walk in pieces at the boundaries of regions 1 to 5,
+// or in ice) depends on the region boundaries and backward equations that
+// only this model has; the equations themselves live in if97_*.cpp and
+// ice_ih.cpp.
 //
 // The reference model of water. IF97 regions by (T, P) for the fluid, ice Ih
 // below the melting and sublimation curves, region 4 on the boiling line.
@@ -261,10 +263,14 @@ public:
     Result<State> stateP(double P, Property which, double value) const override;
     TransitionsAtPressure transitionsAt(double P) const override;
 
+protected:
+    Result<std::optional<State>> solveOnIsobarSpan(const IsobarSpan& span, Property which,
+                                                   double value) const override;
+
 private:
     Result<State> fluidState(Phase requested, double T, double P) const;
     Result<State> iceState(double T, double P) const;
-    Result<State> fluidOnIsobar(double P, Property which, double value, double Tlow) const;
+    Result<std::optional<State>> fluidOnIsobar(const IsobarSpan& span, Property which, double value) const;
     static std::string_view lineSource(Transition t) {
         return t == Transition::Boiling ? kSrc4 : (t == Transition::Melting ? kSrcMelt : kSrcSubl);
     }
@@ -465,18 +471,25 @@ TransitionsAtPressure WaterReferenceModel::transitionsAt(double P) const {
 
 // ---- (P, h) and (P, s) -------------------------------------------------------------
 
-// One single-phase span of an isobar: T in [a, b], a forward evaluation and
-// an optional backward-equation seed.
+// The isobar walk is the base class's (PropertyModel::stateP: the spans
+// between the phase changes of transitionsAt, the lever rule on each
+// line); this model's hook solves one span. A fluid span is cut further at
+// the IF97 region boundaries it crosses, each piece with its own forward
+// equation and, where IF97 has one, a backward-equation start.
+
+// One piece of an isobar's span: T in [a, b], a forward evaluation and an
+// optional backward-equation seed.
 struct Span {
     double a, b;
     std::function<Result<State>(double)> at;
     std::function<double(double)> seed;  // value -> T, may be empty
 };
 
-// At most five spans on one isobar (liquid, region 3 liquid, region 3
-// vapour, region 2, region 5); a fixed array keeps the solve allocation-free.
+// At most four pieces in one span (liquid, region 3 liquid; or region 3
+// vapour, region 2, region 5; or the four of a supercritical isobar); a
+// fixed array keeps the solve allocation-free.
 struct SpanList {
-    std::array<Span, 6> items;
+    std::array<Span, 4> items;
     std::size_t n = 0;
     void push_back(Span s) { items[n++] = std::move(s); }
     std::size_t size() const { return n; }
@@ -516,7 +529,11 @@ Result<State> solveSpan(const Span& sp, Property which, double value, double fa,
     return sp.at(root->x);
 }
 
-Result<State> WaterReferenceModel::fluidOnIsobar(double P, Property which, double value, double Tlow) const {
+Result<std::optional<State>> WaterReferenceModel::fluidOnIsobar(const IsobarSpan& span, Property which,
+                                                                double value) const {
+    using Found = std::optional<State>;
+    const double P = span.P;
+    const TransitionsAtPressure& tr = *span.transitions;
     auto prop = [which](const State& s) { return which == Property::Enthalpy ? s.h : s.s; };
     const bool H = which == Property::Enthalpy;
     auto liquid = [this, P](double T) { return fluidState(Phase::Liquid, T, P); };
@@ -525,113 +542,106 @@ Result<State> WaterReferenceModel::fluidOnIsobar(double P, Property which, doubl
     std::function<double(double)> seed1 = [P, H](double x) { return H ? w::region1T_ph(P, x) : w::region1T_ps(P, x); };
     std::function<double(double)> seed2 = [P, H](double x) { return H ? w::region2T_ph(P, x) : w::region2T_ps(P, x); };
 
-    // Build the spans of the isobar in rising temperature, with phase changes.
-    SpanList spans;
-    double Tsat = 0;
-    const bool subcritical = P >= w::Pt && P <= w::Pc;
+    // The span's pieces in rising temperature. Above the highest melting
+    // pressure the isobar has no phase change and starts at the lowest
+    // fluid temperature the model stretches IF97 to.
+    const bool afterBoiling = !span.first() && tr.entries[span.index - 1].kind == Transition::Boiling;
+    const bool beforeBoiling = !span.last() && tr.entries[span.index].kind == Transition::Boiling;
+    const double Tlow = span.first() ? kFluidTmin : span.Ta, top = span.Tb;
     const double p623 = w::saturationPressureAt623();
-    const double top = std::min(w::Tmax, maxTemperature());
-    if (P < w::Pt) {
+    const double T23 = std::min(w::b23Temperature(P), w::T23max);
+    SpanList spans;
+    if (P < w::Pt) {  // vapour above the sublimation line
         spans.push_back({Tlow, w::T25, vapour, seed2});
-    } else if (subcritical) {
-        Tsat = w::saturationTemperature(P);
+        spans.push_back({w::T25, top, any, {}});
+    } else if (beforeBoiling) {
         if (P <= p623) {
-            spans.push_back({Tlow, Tsat, liquid, seed1});
+            spans.push_back({Tlow, top, liquid, seed1});
         } else {
             spans.push_back({Tlow, w::T13, liquid, seed1});
-            spans.push_back({w::T13, Tsat, liquid, {}});
+            spans.push_back({w::T13, top, liquid, {}});
         }
-    } else {
+    } else if (afterBoiling) {
+        if (P > p623) spans.push_back({Tlow, T23, vapour, {}});
+        spans.push_back({P > p623 ? w::b23Temperature(P) : Tlow, w::T25, vapour, seed2});
+        if (P <= w::Pmax5) spans.push_back({w::T25, top, any, {}});
+    } else {  // above the critical pressure
         spans.push_back({Tlow, w::T13, any, seed1});
-        spans.push_back({w::T13, std::min(w::b23Temperature(P), w::T23max), any, {}});
+        spans.push_back({w::T13, T23, any, {}});
+        spans.push_back({T23, w::T25, any, seed2});
+        if (P <= w::Pmax5) spans.push_back({w::T25, top, any, {}});
     }
-    const std::size_t nLow = spans.size();
-    if (subcritical) {
-        if (P > p623) spans.push_back({Tsat, std::min(w::b23Temperature(P), w::T23max), vapour, {}});
-        spans.push_back({P > p623 ? w::b23Temperature(P) : Tsat, w::T25, vapour, seed2});
-    } else if (P >= w::Pt) {
-        spans.push_back({std::min(w::b23Temperature(P), w::T23max), w::T25, any, seed2});
-    }
-    if (P <= w::Pmax5) spans.push_back({w::T25, top, any, {}});
-
+    // The first piece above the ice is the isobar's lowest fluid state.
+    const bool lowestFluid = !afterBoiling;
     for (std::size_t i = 0; i < spans.size(); ++i) {
         const Span& sp = spans[i];
-        if (subcritical && i == nLow) {
-            // The boiling line between the liquid and vapour spans.
-            auto L = fluidState(Phase::Liquid, Tsat, P);
-            auto V = fluidState(Phase::Vapor, Tsat, P);
-            if (!L || !V) return L ? V.error() : L.error();
-            if (value <= prop(*V)) {
-                const double x = std::clamp((value - prop(*L)) / (prop(*V) - prop(*L)), 0.0, 1.0);
-                State m = mix(*L, *V, Transition::Boiling, x);
-                m.source = kSrc4;
-                return m;
-            }
-        }
         if (!(sp.b > sp.a)) continue;
         auto sb = sp.at(sp.b);
         if (!sb) return sb.error();
         const double fb = prop(*sb);
         if (value > fb) continue;
         // The lower end is only needed below the lowest fluid state or when
-        // the span has no backward equation to start from.
+        // the piece has no backward equation to start from.
         double fa = std::numeric_limits<double>::quiet_NaN();
-        if (i == 0 || !sp.seed) {
+        if ((i == 0 && lowestFluid) || !sp.seed) {
             auto sa = sp.at(sp.a);
             if (!sa) return sa.error();
             fa = prop(*sa);
-            if (value < fa && i == 0) break;  // below the lowest fluid state
+            if (value < fa && i == 0 && lowestFluid) return Found{};  // below the lowest fluid state
         }
-        return solveSpan(sp, which, value, fa, fb);
+        auto st = solveSpan(sp, which, value, fa, fb);
+        if (!st) return st.error();
+        return Found{*st};
     }
-    return makeError("no state of water at " + numberText(P) + " Pa has " + (H ? "specific enthalpy " : "specific entropy ") +
-                     numberText(value) + (H ? " J/kg" : " J/(kg K)") + " within " + rangeText());
+    return Found{};
 }
 
-Result<State> WaterReferenceModel::stateP(double P, Property which, double value) const {
-    if (which != Property::Enthalpy && which != Property::Entropy) return PropertyModel::stateP(P, which, value);
-    if (!(P > 0) || !std::isfinite(P)) return makeError("pressure must be positive, got " + numberText(P) + " Pa");
-    if (!std::isfinite(value)) return makeError("the specific enthalpy or entropy is not a finite number");
-    if (P > kFluidPmax) return makeError("pressure " + numberText(P / 1e6) + " MPa is above the model's range (" + rangeText() + ")");
+Result<std::optional<State>> WaterReferenceModel::solveOnIsobarSpan(const IsobarSpan& span, Property which,
+                                                                   double value) const {
+    if (which != Property::Enthalpy && which != Property::Entropy)
+        return PropertyModel::solveOnIsobarSpan(span, which, value);
+    using Found = std::optional<State>;
+    const double P = span.P;
+    const TransitionsAtPressure& tr = *span.transitions;
+    if (!span.first() || tr.count == 0) {
+        // Below the sublimation line at 50 K there is no line, but no fluid either.
+        if (span.first() && P < w::Pt) return transitionTemperature(Transition::Sublimation, P).error();
+        return fluidOnIsobar(span, which, value);
+    }
+    // Ice below the melting or sublimation line: h and s rise with T.
     auto prop = [which](const State& s) { return which == Property::Enthalpy ? s.h : s.s; };
-
-    // Fast path: a state clearly inside region 1, 2 or 3.
-    if (auto d = directState(P, which == Property::Enthalpy, value)) return *d;
-
-    // Clearly above the melting/sublimation line (liquid at
-    // 273.16 K or vapour at the triple-point temperature is the floor).
-    if (P >= w::Pt && P <= ice::meltingPressureMax()) {
-        const w::Props floor = w::region1(w::Tt, P);
-        if (value >= (which == Property::Enthalpy ? floor.h : floor.s)) return fluidOnIsobar(P, which, value, w::Tt);
-    }
-
-    // The low-temperature phase change: melting above the triple-point
-    // pressure, sublimation below it.
-    Transition t;
-    if (P < w::Pt) t = Transition::Sublimation;
-    else if (P <= ice::meltingPressureMax()) t = Transition::Melting;
-    else return fluidOnIsobar(P, which, value, kFluidTmin);
-    auto Ttr = transitionTemperature(t, P);
-    if (!Ttr) return Ttr.error();
-    auto solid = iceState(*Ttr, P);
-    auto fluid = fluidState(upperPhase(t), *Ttr, P);
-    if (!solid || !fluid) return solid ? fluid.error() : solid.error();
-    if (value > prop(*fluid)) return fluidOnIsobar(P, which, value, *Ttr);
-    if (value >= prop(*solid)) {
-        const double f = std::clamp((value - prop(*solid)) / (prop(*fluid) - prop(*solid)), 0.0, 1.0);
-        State m = mix(*solid, *fluid, t, f);
-        m.source = lineSource(t);
-        return m;
-    }
-    // Ice: h and s rise with T along the isobar.
-    Span sp{minTemperature(), *Ttr, [this, P](double T) { return iceState(T, P); }, {}};
+    auto solid = iceState(span.Tb, P);
+    if (!solid) return solid.error();
+    if (value >= prop(*solid)) return Found{};  // on the line or above it
+    Span sp{span.Ta, span.Tb, [this, P](double T) { return iceState(T, P); }, {}};
     auto cold = iceState(sp.a, P);
     if (!cold) return cold.error();
     if (value < prop(*cold))
         return makeError("no state of water at " + numberText(P) + " Pa has this " +
                          (which == Property::Enthalpy ? "enthalpy" : "entropy") + ": it is below ice Ih at " +
                          numberText(sp.a) + " K");
-    return solveSpan(sp, which, value, prop(*cold), prop(*solid));
+    auto st = solveSpan(sp, which, value, prop(*cold), prop(*solid));
+    if (!st) return st.error();
+    return Found{*st};
+}
+
+Result<State> WaterReferenceModel::stateP(double P, Property which, double value) const {
+    if (which == Property::Enthalpy || which == Property::Entropy) {
+        if (!(P > 0) || !std::isfinite(P)) return makeError("pressure must be positive, got " + numberText(P) + " Pa");
+        if (!std::isfinite(value)) return makeError("the specific enthalpy or entropy is not a finite number");
+        if (P > kFluidPmax)
+            return makeError("pressure " + numberText(P / 1e6) + " MPa is above the model's range (" + rangeText() + ")");
+        // Fast path: a state clearly inside region 1, 2 or 3.
+        if (auto d = directState(P, which == Property::Enthalpy, value)) return *d;
+    }
+    // Otherwise the base class walks the isobar (solveOnIsobarSpan above);
+    // a state on a phase line is labelled with the line's equation.
+    auto s = PropertyModel::stateP(P, which, value);
+    if (s && isTwoPhase(s->phase))
+        s->source = lineSource(s->phase == Phase::LiquidVapor   ? Transition::Boiling
+                               : s->phase == Phase::SolidLiquid ? Transition::Melting
+                                                                : Transition::Sublimation);
+    return s;
 }
 
 }  // namespace
