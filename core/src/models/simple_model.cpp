@@ -1,6 +1,6 @@
 // The simple models (ideal gas with incompressible condensed phases, and the
 // generalised-virial variant): one class whose parts share its private phase
-// tables and anchors. About 700 lines on purpose: building the anchors,
+// tables and anchors. About 800 lines on purpose: building the anchors,
 // each phase's state, the phase-change lines and the isobar cache all read the
 // same private state, and splitting the class across files would expose it.
 #include "heatchain/models/simple_model.hpp"
