@@ -612,11 +612,7 @@ bool MainWindow::quickAddStep(const QString& text) {
     lastError_.clear();
     Step s = std::move(step.value());
     // A quick-added step without a target takes the defaults of its kind.
-    if (!s.hasTo && !isPhaseChangeKind(s.kind)) {
-        Step d = defaultStep(doc_.project(), doc_.result(), s.kind, index);
-        s.to = d.to;
-        s.hasTo = d.hasTo;
-    }
+    if (s.to.empty() && !isPhaseChangeKind(s.kind)) s.to = defaultStep(doc_.project(), doc_.result(), s.kind, index).to;
     doc_.undoStack()->push(new AddStep(&doc_, index, std::move(s)));
     return true;
 }

@@ -110,26 +110,21 @@ Step defaultStep(const Project& project, const SequenceResult& result, StepKind 
 
     switch (kind) {
     case StepKind::Heat:
-        step.hasTo = true;
         step.to.T = displayQuantity(T + 20.0, Dimension::Temperature, project);
         break;
     case StepKind::Cool:
-        step.hasTo = true;
         step.to.T = displayQuantity(std::max(T - 20.0, 1.0), Dimension::Temperature, project);
         break;
     case StepKind::Compress:
-        step.hasTo = true;
         step.to.P = displayQuantity(2.0 * P, Dimension::Pressure, project);
         step.path = PathKind::Adiabatic;
         step.efficiency = number(0.75);
         break;
     case StepKind::Expand:
-        step.hasTo = true;
         step.to.P = displayQuantity(P / 2.0, Dimension::Pressure, project);
         step.path = PathKind::Isentropic;
         break;
     case StepKind::Throttle:
-        step.hasTo = true;
         step.to.P = displayQuantity(P / 2.0, Dimension::Pressure, project);
         break;
     case StepKind::Hold:
@@ -281,42 +276,41 @@ Result<Step> parseQuickAdd(std::string_view line, const Project& project, std::o
             if (!beforeT) return makeError("\"by\" needs the temperature where the step starts, which is not computed yet");
             const double end = step.kind == StepKind::Heat ? *beforeT + d->si : *beforeT - d->si;
             if (!(end > 0)) return makeError("cooling by " + v + " would end below absolute zero");
-            step.hasTo = true;
             step.to.T = displayQuantity(end, Dimension::Temperature, project, 0.01);
             continue;
         }
         if (key == "to") {
             // A target is a temperature, a pressure or a duty: try each.
             if (auto t = parseTypedQuantity(v, Dimension::Temperature, project)) {
-                step.hasTo = true; step.to.T = *t; continue;
+                step.to.T = *t; continue;
             }
             if (auto p = parseTypedQuantity(v, Dimension::Pressure, project)) {
-                step.hasTo = true; step.to.P = *p; continue;
+                step.to.P = *p; continue;
             }
             if (auto d = parseTypedQuantity(v, dutyDimension(project), project)) {
-                step.hasTo = true; step.to.duty = *d; continue;
+                step.to.duty = *d; continue;
             }
             return makeError("\"" + v + "\" is neither a temperature, a pressure nor a duty");
         } else if (key == "duty") {
             auto d = parseTypedQuantity(v, dutyDimension(project), project);
             if (!d) return d.error();
-            step.hasTo = true; step.to.duty = *d;
+            step.to.duty = *d;
         } else if (key == "ratio") {
             auto r = parseTypedNumber(v, BoundedField::Ratio, "pressure ratio");
             if (!r) return r.error();
-            step.hasTo = true; step.to.ratio = *r;
+            step.to.ratio = *r;
         } else if (key == "x" || key == "quality") {
             auto q = parseTypedNumber(v, BoundedField::Quality, "quality");
             if (!q) return q.error();
-            step.hasTo = true; step.to.quality = *q;
+            step.to.quality = *q;
         } else if (key == "source" || key == "from") {
             auto t = parseTypedQuantity(v, Dimension::Temperature, project);
             if (!t) return t.error();
-            step.source = Reservoir{*t, std::nullopt, Json::object()};
+            step.source = Reservoir{*t, std::nullopt, UnknownFields{}};
         } else if (key == "sink" || key == "into") {
             auto t = parseTypedQuantity(v, Dimension::Temperature, project);
             if (!t) return t.error();
-            step.sink = Reservoir{*t, std::nullopt, Json::object()};
+            step.sink = Reservoir{*t, std::nullopt, UnknownFields{}};
         } else if (key == "eff" || key == "efficiency") {
             auto e = parseTypedNumber(v, BoundedField::Efficiency, "isentropic efficiency");
             if (!e) return e.error();

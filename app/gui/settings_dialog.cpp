@@ -114,9 +114,10 @@ ProjectSettingsDialog::ProjectSettingsDialog(const Project& project, QWidget* pa
     mf->addRow(tr("Start P"), startP_);
     mf->addRow(tr("Start quality x"), startX_);
     mf->addRow(tr("Start liquid fraction"), startMelt_);
-    surrT_ = quantity(material, std::optional<Quantity>(project.surroundingsT), Dimension::Temperature, false);
-    surrP_ = quantity(material, std::optional<Quantity>(project.surroundingsP), Dimension::Pressure, false);
-    atm_ = quantity(material, std::optional<Quantity>(project.atmosphere), Dimension::Pressure, false);
+    const Surroundings& surroundings = project.surroundingsOrDefault();
+    surrT_ = quantity(material, std::optional<Quantity>(surroundings.T), Dimension::Temperature, false);
+    surrP_ = quantity(material, std::optional<Quantity>(surroundings.P), Dimension::Pressure, false);
+    atm_ = quantity(material, std::optional<Quantity>(project.atmosphereOrDefault()), Dimension::Pressure, false);
     mf->addRow(tr("Surroundings T₀"), surrT_);
     mf->addRow(tr("Surroundings P₀"), surrP_);
     mf->addRow(tr("Atmosphere (gauge zero)"), atm_);
@@ -175,13 +176,20 @@ QString ProjectSettingsDialog::build(Project& p) {
     };
     p.start.quality = num(startX_, BoundedField::Quality);
     p.start.meltFraction = num(startMelt_, BoundedField::MeltFraction);
-    if (surrT_->text().toStdString() != base_.surroundingsT.text ||
-        surrP_->text().toStdString() != base_.surroundingsP.text)
-        p.hasSurroundings = true;
-    p.surroundingsT.text = surrT_->text().toStdString();
-    p.surroundingsP.text = surrP_->text().toStdString();
-    if (atm_->text().toStdString() != base_.atmosphere.text) p.hasAtmosphere = true;
-    p.atmosphere.text = atm_->text().toStdString();
+    // Written only when the file gave them or the user changed them.
+    const Surroundings& was = base_.surroundingsOrDefault();
+    if (base_.surroundings || surrT_->text().toStdString() != was.T.text ||
+        surrP_->text().toStdString() != was.P.text) {
+        Surroundings s = was;
+        s.T.text = surrT_->text().toStdString();
+        s.P.text = surrP_->text().toStdString();
+        p.surroundings = std::move(s);
+    }
+    if (base_.atmosphere || atm_->text().toStdString() != base_.atmosphereOrDefault().text) {
+        Quantity a = base_.atmosphereOrDefault();
+        a.text = atm_->text().toStdString();
+        p.atmosphere = std::move(a);
+    }
     return {};
 }
 

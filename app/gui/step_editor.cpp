@@ -352,7 +352,7 @@ void StepEditor::applyTarget(const QString& text) {
     const Project& p = doc_->project();
     const std::string s = text.toStdString();
     StepTarget to;
-    to.extra = step() ? step()->to.extra : Json::object();
+    to.extra = step() ? step()->to.extra : UnknownFields{};
     switch (t) {
     case Target::Temperature: if (auto q = parseTypedQuantity(s, Dimension::Temperature, p)) to.T = *q; else return; break;
     case Target::Pressure: if (auto q = parseTypedQuantity(s, Dimension::Pressure, p)) to.P = *q; else return; break;
@@ -365,7 +365,6 @@ void StepEditor::applyTarget(const QString& text) {
     }
     apply(tr("target"), [&](Step& st) {
         st.to = to;
-        st.hasTo = true;
     });
 }
 

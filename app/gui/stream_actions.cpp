@@ -45,7 +45,7 @@ bool StreamActions::addStream(const QString& id, const QString& name) {
     if (!name.trimmed().isEmpty()) s.name = name.trimmed().toStdString();
     s.project = doc_->project();
     s.project.steps.clear();
-    s.project.extra = Json::object();
+    s.project.extra = {};
     const int at = doc_->currentStream() + 1;
     set.streams.insert(set.streams.begin() + at, std::move(s));
     lastError_.clear();

@@ -19,6 +19,7 @@
 #include "heatchain/tolerance.hpp"
 #include "heatchain/units.hpp"
 #include "json_locations.hpp"
+#include "unknown_fields_json.hpp"
 
 namespace heatchain::detail {
 
@@ -187,14 +188,14 @@ public:
     }
 
     // Fields not in `known`, in their original order.
-    static Json unknownFields(const Json& obj, std::initializer_list<std::string_view> known) {
+    static UnknownFields unknownFields(const Json& obj, std::initializer_list<std::string_view> known) {
         return unknownFields(obj, std::span<const std::string_view>(known.begin(), known.size()));
     }
-    static Json unknownFields(const Json& obj, std::span<const std::string_view> known) {
+    static UnknownFields unknownFields(const Json& obj, std::span<const std::string_view> known) {
         Json extra = Json::object();
         for (auto it = obj.begin(); it != obj.end(); ++it)
             if (!isOneOf(it.key(), known)) extra[it.key()] = it.value();
-        return extra;
+        return unknownFieldsOf(std::move(extra));
     }
 
     static std::string_view displayExample(Dimension d) {

@@ -13,6 +13,7 @@
 #include <vector>
 
 #include "heatchain/project.hpp"
+#include "unknown_fields_json.hpp"
 
 namespace heatchain::detail {
 
@@ -103,6 +104,7 @@ public:
     // Every member of `fields` (an object) whose key is not written yet and
     // is not `skip`, in the order they are kept.
     void unknown(const Json& fields, std::string_view skip = {});
+    void unknown(const UnknownFields& fields, std::string_view skip = {}) { unknown(jsonOf(fields), skip); }
     void end() { w_.endObject(); }
 
 private:

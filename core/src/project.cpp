@@ -92,6 +92,16 @@ const Step* Project::findStep(std::string_view id) const {
     return nullptr;
 }
 
+const Quantity& Project::atmosphereOrDefault() const {
+    static const Quantity standard{"101.325 kPa", kStandardAtmosphere};
+    return atmosphere ? *atmosphere : standard;
+}
+
+const Surroundings& Project::surroundingsOrDefault() const {
+    static const Surroundings standard;
+    return surroundings ? *surroundings : standard;
+}
+
 const Utility* Project::findUtility(std::string_view id) const {
     for (const Utility& u : utilities)
         if (u.id == id) return &u;

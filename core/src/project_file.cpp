@@ -299,12 +299,12 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
     // The atmosphere comes before every other quantity: gauge pressures need it.
     if (const Json* atm = member(root, "atmosphere")) {
         const JsonPath path{{"atmosphere", -1}};
-        p.atmosphere = r.quantity(*atm, path, Dimension::Pressure);
+        const Quantity a = r.quantity(*atm, path, Dimension::Pressure);
         // A gauge unit here would be circular: it reads differently under two atmospheres.
-        auto other = parseQuantity(p.atmosphere.text, Dimension::Pressure, UnitContext{2.0 * p.atmosphere.si});
-        if (!other || *other != p.atmosphere.si)
+        auto other = parseQuantity(a.text, Dimension::Pressure, UnitContext{2.0 * a.si});
+        if (!other || *other != a.si)
             r.fail(path, "the atmosphere must be an absolute pressure (e.g. \"101.325 kPa\"), not a gauge reading");
-        p.hasAtmosphere = true;
+        p.atmosphere = a;
     }
     r.units = p.unitContext();
 
@@ -322,10 +322,11 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
     if (const Json* surroundings = member(root, "surroundings")) {
         const JsonPath path{{"surroundings", -1}};
         r.object(*surroundings, path, "surroundings");
-        if (auto T = r.optionalQuantity(*surroundings, path, "T", Dimension::Temperature)) p.surroundingsT = *T;
-        if (auto P = r.optionalQuantity(*surroundings, path, "P", Dimension::Pressure)) p.surroundingsP = *P;
-        p.surroundingsExtra = Reader::unknownFields(*surroundings, {"T", "P"});
-        p.hasSurroundings = true;
+        Surroundings s;
+        if (auto T = r.optionalQuantity(*surroundings, path, "T", Dimension::Temperature)) s.T = *T;
+        if (auto P = r.optionalQuantity(*surroundings, path, "P", Dimension::Pressure)) s.P = *P;
+        s.extra = Reader::unknownFields(*surroundings, {"T", "P"});
+        p.surroundings = std::move(s);
     }
 
     const Json* start = member(root, "start");

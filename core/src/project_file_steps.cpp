@@ -106,13 +106,11 @@ void readTransferFields(const Reader& r, const Json& v, const JsonPath& path, co
             const JsonPath up = child(tp, "U");
             if (u->is_object()) {
                 for (auto it = u->begin(); it != u->end(); ++it) {
-                    if (!isOneOf(it.key(), kZoneKeys)) {
-                        spec.Uextra[it.key()] = it.value();
-                        continue;
-                    }
+                    if (!isOneOf(it.key(), kZoneKeys)) continue;
                     spec.zoneU.emplace_back(it.key(), positiveQuantity(r, it.value(), child(up, it.key()),
                                                                        Dimension::HeatTransferCoefficient));
                 }
+                spec.Uextra = Reader::unknownFields(*u, kZoneKeys);
                 if (spec.zoneU.empty())
                     r.fail(up, "U per zone needs at least one of " + listOf(kZoneKeys));
             } else {
@@ -229,7 +227,6 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p, std:
         if (const Json* ratio = member(*to, "ratio")) s.to.ratio = r.bounded(*ratio, child(toPath, "ratio"), BoundedField::Ratio);
         readTransferTarget(r, *to, toPath, p, s);
         s.to.extra = Reader::unknownFields(*to, kTargetFields);
-        s.hasTo = true;
     } else if (heatCool) {
         r.fail(path, "a " + kindName + " step needs a target \"to\" with T, duty or quality, e.g. "
                      "\"to\": { \"T\": \"180 degC\" }");

@@ -20,6 +20,7 @@
 #include "heatchain/streams.hpp"
 #include "json_locations.hpp"
 #include "project_file_parts.hpp"
+#include "unknown_fields_json.hpp"
 
 namespace heatchain {
 
@@ -141,13 +142,14 @@ public:
         set.shared = set.streams.front().project;
         set.shared.steps.clear();
         set.shared.version = kStreamsFormatVersion;
-        set.shared.extra = Json::object();
+        Json extra = Json::object();
         for (auto it = root_.begin(); it != root_.end(); ++it) {
             const std::string& k = it.key();
             if (k == "format" || k == "version" || k == "streams") continue;
             if (std::find(kSharedKeys.begin(), kSharedKeys.end(), k) != kSharedKeys.end()) continue;
-            set.shared.extra[k] = it.value();
+            extra[k] = it.value();
         }
+        set.shared.extra = detail::unknownFieldsOf(std::move(extra));
         return set;
     }
 
@@ -191,12 +193,14 @@ private:
             if (!(*q > 0)) fail(cPath, "the cycle time must be more than zero", label + ", cycleTime");
             out.cycleTime = Quantity{c->get<std::string>(), *q};
         }
+        Json extra = Json::object();
         for (auto it = s.begin(); it != s.end(); ++it) {
             const std::string& k = it.key();
             if (k == "id" || k == "name" || k == "dTminContribution" || k == "cycleTime") continue;
             if (std::find(kStreamKeys.begin(), kStreamKeys.end(), k) != kStreamKeys.end()) continue;
-            out.extra[k] = it.value();
+            extra[k] = it.value();
         }
+        out.extra = detail::unknownFieldsOf(std::move(extra));
 
         // The stream as a version-1 file, cut from this file's bytes.
         Assembled a;
@@ -260,8 +264,8 @@ void appendMembers(std::string& out, std::string_view v1, std::span<const std::s
     }
 }
 
-void appendExtra(std::string& out, const Json& extra, std::string_view indent, bool& first) {
-    if (!extra.is_object()) return;
+void appendExtra(std::string& out, const UnknownFields& fields, std::string_view indent, bool& first) {
+    const Json& extra = detail::jsonOf(fields);
     for (auto it = extra.begin(); it != extra.end(); ++it) {
         out += first ? "\n" : ",\n";
         first = false;
@@ -280,11 +284,7 @@ void assignShared(Project& p, const Project& shared) {
     p.displayUnits = shared.displayUnits;
     p.displayExtra = shared.displayExtra;
     p.atmosphere = shared.atmosphere;
-    p.hasAtmosphere = shared.hasAtmosphere;
-    p.surroundingsT = shared.surroundingsT;
-    p.surroundingsP = shared.surroundingsP;
-    p.hasSurroundings = shared.hasSurroundings;
-    p.surroundingsExtra = shared.surroundingsExtra;
+    p.surroundings = shared.surroundings;
     p.utilities = shared.utilities;
     p.hasUtilities = shared.hasUtilities;
     p.minApproach = shared.minApproach;
@@ -316,7 +316,7 @@ void StreamSet::takeShared(const Project& from) {
 bool StreamSet::writesAsVersion1() const {
     if (streams.size() != 1) return false;
     const Stream& s = streams.front();
-    return !s.name && !s.dTminContribution && !s.cycleTime && (!s.extra.is_object() || s.extra.empty());
+    return !s.name && !s.dTminContribution && !s.cycleTime && s.extra.empty();
 }
 
 StreamSet streamSetOf(Project project) {
@@ -387,7 +387,7 @@ std::string writeStreamSet(const StreamSet& set) {
     bool first = false;
     {
         Project shared = set.streams.empty() ? set.shared : withShared(set.streams.front().project, set.shared);
-        shared.extra = Json::object();
+        shared.extra = {};
         shared.steps.clear();
         shared.version = 1;
         const std::string v1 = writeProject(shared);
@@ -409,7 +409,7 @@ std::string writeStreamSet(const StreamSet& set) {
         if (s.cycleTime)
             out += ",\n      \"cycleTime\": " + Json(s.cycleTime->text).dump(-1, ' ', false, Json::error_handler_t::replace);
         Project p = withShared(s.project, set.shared);
-        p.extra = Json::object();
+        p.extra = {};
         p.version = 1;
         const std::string v1 = writeProject(p);
         const Json parsed = Json::parse(v1);

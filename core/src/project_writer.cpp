@@ -88,7 +88,7 @@ private:
         detail::ObjectWriter o(w_);
         o.key("id").string(s.id);
         o.key("kind").string(stepKindId(s.kind));
-        if (s.hasTo) {
+        if (!s.to.empty()) {
             o.key("to");
             target(s.to, system);
         }
@@ -193,8 +193,7 @@ private:
 };
 
 bool anyMeta(const Meta& m) {
-    const bool extra = m.extra.is_object() && !m.extra.empty();
-    return extra || std::any_of(std::begin(detail::kMetaFields), std::end(detail::kMetaFields),
+    return !m.extra.empty() || std::any_of(std::begin(detail::kMetaFields), std::end(detail::kMetaFields),
                                 [&](const detail::MetaField& f) { return !(m.*f.member).empty(); });
 }
 
@@ -221,13 +220,13 @@ void Writer::project(const Project& p) {
         o.key("substance").string(p.substanceId);
     o.key("basis");
     basis(p.basis);
-    if (p.hasAtmosphere) quantity(o, "atmosphere", p.atmosphere, Dimension::Pressure);
-    if (p.hasSurroundings) {
+    if (p.atmosphere) quantity(o, "atmosphere", *p.atmosphere, Dimension::Pressure);
+    if (p.surroundings) {
         o.key("surroundings");
         detail::ObjectWriter s(w_);
-        quantity(s, "T", p.surroundingsT, Dimension::Temperature);
-        quantity(s, "P", p.surroundingsP, Dimension::Pressure);
-        s.unknown(p.surroundingsExtra);
+        quantity(s, "T", p.surroundings->T, Dimension::Temperature);
+        quantity(s, "P", p.surroundings->P, Dimension::Pressure);
+        s.unknown(p.surroundings->extra);
         s.end();
     }
     o.key("start");

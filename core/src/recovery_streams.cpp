@@ -159,7 +159,7 @@ std::vector<UtilityLevel> utilityLevels(const StreamSet& set) {
             case UtilityKind::Steam: level.hot = asSource || !asSink; break;
             case UtilityKind::Sensible: level.hot = profile->Tin > profile->Tout; break;
             case UtilityKind::Fixed:
-                level.hot = asSource != asSink ? asSource : profile->Tin > shared.surroundingsT.si;
+                level.hot = asSource != asSink ? asSource : profile->Tin > shared.surroundingsOrDefault().T.si;
                 break;
         }
         level.T = profile->Tout;

@@ -153,7 +153,7 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
                                  "uses " + std::string(*ref));
     r.system = project.system;
     r.massBasis = project.massBasis();
-    r.T0 = project.surroundingsT.si;
+    r.T0 = project.surroundingsOrDefault().T.si;
     r.steps.reserve(project.steps.size());
     for (const auto& s : project.steps) {
         StepResult sr;

@@ -27,7 +27,7 @@ namespace heatchain::solver_detail {
 // Exergy of the steps and the sequence (definitions at the top of this file).
 void exergyAccounts(const Project& project, const PropertyModel& model, SequenceResult& r) {
     const bool closed = project.system == SystemKind::Closed;
-    r.P0 = project.surroundingsP.si;
+    r.P0 = project.surroundingsOrDefault().P.si;
     auto dead = model.stateTP(r.T0, r.P0);
     if (!dead) {
         const UnitContext uc = project.unitContext();

@@ -12,6 +12,7 @@
 #include <thread>
 
 #include "heatchain/tolerance.hpp"
+#include "unknown_fields_json.hpp"
 
 namespace heatchain {
 
@@ -137,11 +138,11 @@ Result<std::vector<InputSlot>> collectInputs(const Project& p) {
     const Dimension energy = p.system == SystemKind::Closed ? D::Energy : D::Power;
     c.quantity("basis." + basisKey(p.basis.kind), std::optional<Quantity>(p.basis.amount), basisDimension(p.basis.kind),
                [](Project& x) { return &x.basis.amount; });
-    if (p.hasSurroundings) {
-        c.quantity("surroundings.T", std::optional<Quantity>(p.surroundingsT), D::Temperature,
-                   [](Project& x) { return &x.surroundingsT; });
-        c.quantity("surroundings.P", std::optional<Quantity>(p.surroundingsP), D::Pressure,
-                   [](Project& x) { return &x.surroundingsP; });
+    if (p.surroundings) {
+        c.quantity("surroundings.T", std::optional<Quantity>(p.surroundings->T), D::Temperature,
+                   [](Project& x) { return &x.surroundings->T; });
+        c.quantity("surroundings.P", std::optional<Quantity>(p.surroundings->P), D::Pressure,
+                   [](Project& x) { return &x.surroundings->P; });
     }
     c.quantity("minApproach", p.minApproach, D::TemperatureDifference, [](Project& x) { return &*x.minApproach; }, false);
     c.quantity("start.T", p.start.T, D::Temperature, [](Project& x) { return &*x.start.T; });
@@ -489,8 +490,9 @@ Result<Sensitivities> sensitivities(const Evaluator& eval, const std::vector<Inp
 }  // namespace
 
 Result<bool> modelUncertaintyOn(const Project& project) {
-    auto it = project.extra.find("uncertainty");
-    if (it == project.extra.end()) return false;
+    const Json& kept = detail::jsonOf(project.extra);
+    auto it = kept.find("uncertainty");
+    if (it == kept.end()) return false;
     if (!it->is_object()) return makeError("must be an object such as { \"models\": true }", "uncertainty");
     for (auto f = it->begin(); f != it->end(); ++f)
         if (f.key() != "models") return makeError("unknown field \"" + f.key() + "\"; expected models", "uncertainty");

@@ -35,10 +35,11 @@ std::string pascal(double P) {
 // The balance of every computed step, to 1e-9 of its largest term.
 void checkBalance(const Project& p, const SequenceResult& r, const std::string& name) {
     ASSERT_TRUE(r.exergyAvailable) << name;
-    auto dead = r.model->stateTP(p.surroundingsT.si, p.surroundingsP.si);
+    const Surroundings& s0 = p.surroundingsOrDefault();
+    auto dead = r.model->stateTP(s0.T.si, s0.P.si);
     ASSERT_TRUE(dead.ok()) << name;
     const bool closed = p.system == SystemKind::Closed;
-    const double T0 = p.surroundingsT.si, P0 = p.surroundingsP.si, m = p.massBasis();
+    const double T0 = s0.T.si, P0 = s0.P.si, m = p.massBasis();
     auto ex = [&](const State& s) {
         return closed ? (s.u - dead->u) + P0 * (s.v - dead->v) - T0 * (s.s - dead->s)
                       : (s.h - dead->h) - T0 * (s.s - dead->s);

@@ -120,8 +120,8 @@ TEST(Streams, VersionTwoReadsEveryStreamWithTheSharedFields) {
         EXPECT_DOUBLE_EQ(s.project.minApproachK(), 10.0);
     }
     EXPECT_EQ(set->streams[1].project.steps.size(), 2u);
-    EXPECT_EQ(set->streams[1].extra["colour"], "teal");
-    EXPECT_EQ(set->shared.extra["site"], "north yard");
+    EXPECT_EQ(set->streams[1].extra.string("colour"), "teal");
+    EXPECT_EQ(set->shared.extra.string("site"), "north yard");
     // 1.8 t/h = 0.5 kg/s (1 t = 1000 kg, 1 h = 3600 s).
     EXPECT_NEAR(set->streams[0].project.basis.amount.si, 0.5, 1e-12);
     const auto results = solveStreams(*set);
@@ -170,7 +170,7 @@ TEST(Streams, AOneStreamFileStaysVersionOneByteForByte) {
     auto back = parseProject(written);
     ASSERT_TRUE(back.ok()) << back.error().text();
     EXPECT_EQ(back->steps.size(), 1u);
-    EXPECT_EQ(back->extra["site"], "north yard");
+    EXPECT_EQ(back->extra.string("site"), "north yard");
 }
 
 TEST(Streams, ACycleTimeIsReadCheckedAndWrittenBack) {
@@ -205,7 +205,7 @@ TEST(Streams, AnEditOfOneStreamsSharedFieldsBecomesEveryStreams) {
         EXPECT_EQ(s.project.utilities.size(), 1u);
     }
     EXPECT_EQ(set->streams[1].project.steps.size(), 2u);
-    EXPECT_EQ(set->shared.extra["site"], "north yard");
+    EXPECT_EQ(set->shared.extra.string("site"), "north yard");
     auto back = parseStreamSet(writeStreamSet(*set));
     ASSERT_TRUE(back.ok()) << back.error().text();
     EXPECT_EQ(back->streams[0].project.meta.title, "Two lines, revised");

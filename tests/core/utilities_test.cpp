@@ -58,13 +58,13 @@ TEST(Utilities, ReadAndWriteBack) {
     ASSERT_EQ(p->utilities.size(), 3u);
     EXPECT_EQ(p->utilities[0].kind, UtilityKind::Steam);
     EXPECT_DOUBLE_EQ(p->utilities[0].P->si, 3e5 + 101325.0);  // gauge on the default atmosphere
-    EXPECT_EQ(p->utilities[0].extra["tag"], "U-1");
+    EXPECT_EQ(p->utilities[0].extra.string("tag"), "U-1");
     EXPECT_EQ(p->utilities[1].Tin->text, "28 degC");
     EXPECT_DOUBLE_EQ(p->utilities[1].cp->si, 4180.0);
     EXPECT_DOUBLE_EQ(p->utilities[1].density->si, 995.0);
     EXPECT_DOUBLE_EQ(p->utilities[2].T->si, 1173.15);
     EXPECT_DOUBLE_EQ(p->minApproachK(), 8.0);
-    EXPECT_TRUE(p->extra.empty()) << p->extra.dump();
+    EXPECT_TRUE(p->extra.empty());
     // Stable writing: write(parse(write(p))) == write(p), texts as typed.
     const std::string written = writeProject(*p);
     auto again = parseProject(written);

@@ -89,7 +89,7 @@ private slots:
         w.setInteractive(false);
         Project base = sample("solvent-recovery");
         // The superheater first on a typed source, the way a sheet starts.
-        base.steps[2].source = Reservoir{q("160 degC", Dimension::Temperature), std::nullopt, Json::object()};
+        base.steps[2].source = Reservoir{q("160 degC", Dimension::Temperature), std::nullopt, UnknownFields{}};
         w.document()->reset(base);
         compareResults(w.document()->result(), base);
         QVERIFY(!w.document()->result().steps[2].utility);
@@ -98,7 +98,7 @@ private slots:
         QCOMPARE(w.editor()->sourceBox()->currentData().toString(), QString());  // "temperature…"
         choose(w.editor()->sourceBox(), QStringLiteral("lp-steam"));
         Project expected = base;
-        expected.steps[2].source = Reservoir{std::nullopt, std::string("lp-steam"), Json::object()};
+        expected.steps[2].source = Reservoir{std::nullopt, std::string("lp-steam"), UnknownFields{}};
         QCOMPARE(writeProject(w.document()->project()), writeProject(expected));
         compareResults(w.document()->result(), expected);
         QVERIFY(w.document()->result().steps[2].utility);
@@ -131,7 +131,7 @@ private slots:
         auto* field = w.editor()->field(QStringLiteral("source"));
         field->lineEdit()->setText(QStringLiteral("150 degC"));
         field->commit();
-        expected.steps[2].source = Reservoir{q("150 degC", Dimension::Temperature), std::nullopt, Json::object()};
+        expected.steps[2].source = Reservoir{q("150 degC", Dimension::Temperature), std::nullopt, UnknownFields{}};
         QCOMPARE(writeProject(w.document()->project()), writeProject(expected));
         compareResults(w.document()->result(), expected);
 
@@ -271,7 +271,7 @@ private slots:
         QVERIFY(std::fabs(sum - expected.totals.exergyDestroyed) <= 1e-9 * sum);
         // A worksheet with a failing step: bars for the computed steps only.
         Project broken = p;
-        broken.steps[3].sink = Reservoir{q("200 degC", Dimension::Temperature), std::nullopt, Json::object()};
+        broken.steps[3].sink = Reservoir{q("200 degC", Dimension::Temperature), std::nullopt, UnknownFields{}};
         w.document()->reset(broken);
         const SequenceResult rb = solve(broken);
         std::size_t ok = 0;

@@ -131,9 +131,8 @@ private slots:
         Step added;
         added.id = "heat";
         added.kind = StepKind::Heat;
-        added.hasTo = true;
         added.to.T = q("150 degC", Dimension::Temperature);
-        added.source = Reservoir{q("200 degC", Dimension::Temperature), std::nullopt, Json::object()};
+        added.source = Reservoir{q("200 degC", Dimension::Temperature), std::nullopt, UnknownFields{}};
         expected.steps.insert(expected.steps.begin() + 1, added);
         QCOMPARE(writeProject(w.document()->project()), writeProject(expected));
         compareLedger(*w.ledger(), expected);

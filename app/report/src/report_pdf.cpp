@@ -124,7 +124,7 @@ QStringList cautionLines(const Project& project, const SequenceResult& r) {
         text += QLatin1Char('.');
         lines << text;
     }
-    const double gauge = e.Pmax - project.atmosphere.si;
+    const double gauge = e.Pmax - project.atmosphereOrDefault().si;
     if (gauge > kPressureAboveGauge_Pa)
     {
         UnitContext absolute = ctx, gaugeCtx = ctx;
@@ -162,7 +162,7 @@ QString basisText(const Project& p) {
 std::vector<std::pair<QString, QString>> stepInputs(const Step& s) {
     std::vector<std::pair<QString, QString>> rows;
     auto num = [](const Number& n) { return qs(n.typed()); };
-    if (s.hasTo) {
+    if (!s.to.empty()) {
         if (s.to.T) rows.emplace_back(QStringLiteral("Target temperature"), qs(s.to.T->text));
         if (s.to.P) rows.emplace_back(QStringLiteral("Target pressure"), qs(s.to.P->text));
         if (s.to.duty) rows.emplace_back(QStringLiteral("Duty"), qs(s.to.duty->text));
@@ -265,9 +265,9 @@ void writeContent(Layout& L, const Content& c) {
                  {QStringLiteral("Basis"), basisText(p)},
                  {QStringLiteral("Surroundings (dead state)"),
                   QStringLiteral("T0 = %1, P0 = %2  (exergy destroyed = T0 · S_gen)")
-                      .arg(withUnit(p.surroundingsT.si, Dimension::Temperature),
-                           withUnit(p.surroundingsP.si, Dimension::Pressure))},
-                 {QStringLiteral("Atmosphere (gauge zero)"), withUnit(p.atmosphere.si, Dimension::Pressure)},
+                      .arg(withUnit(p.surroundingsOrDefault().T.si, Dimension::Temperature),
+                           withUnit(p.surroundingsOrDefault().P.si, Dimension::Pressure))},
+                 {QStringLiteral("Atmosphere (gauge zero)"), withUnit(p.atmosphereOrDefault().si, Dimension::Pressure)},
                  {QStringLiteral("Display units"), qs(unitSystemId(us))},
                  {QStringLiteral("Sign convention"),
                   QStringLiteral("Q > 0 heat into the material, W > 0 work done on it; %1")

@@ -67,12 +67,11 @@ QString escapedText(std::string_view bytes) {
 }
 
 bool gaugeDisplay(const Project& project) {
-    const auto it = project.displayExtra.find("pressure");
-    return it != project.displayExtra.end() && it->is_string() && it->get<std::string>() == "gauge";
+    return project.displayExtra.string("pressure") == "gauge";
 }
 
 void setGaugeDisplay(Project& project, bool gauge) {
-    if (gauge) project.displayExtra["pressure"] = "gauge";
+    if (gauge) project.displayExtra.setString("pressure", "gauge");
     else project.displayExtra.erase("pressure");
 }
 
@@ -262,7 +261,7 @@ static QString typed(const Number& n) {
 
 QString stepSpecSummary(const Step& step, SystemKind) {
     QStringList parts;
-    if (step.hasTo) {
+    if (!step.to.empty()) {
         if (step.to.T) parts << QStringLiteral("to %1").arg(typed(*step.to.T));
         if (step.to.P) parts << QStringLiteral("to %1").arg(typed(*step.to.P));
         if (step.to.duty) parts << QStringLiteral("duty %1").arg(typed(*step.to.duty));

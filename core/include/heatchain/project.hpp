@@ -9,9 +9,11 @@
 
 #include <nlohmann/json.hpp>
 
+#include "heatchain/constants.hpp"
 #include "heatchain/property_model.hpp"
 #include "heatchain/substance.hpp"
 #include "heatchain/units.hpp"
+#include "heatchain/unknown_fields.hpp"
 
 namespace heatchain {
 
@@ -60,7 +62,7 @@ enum class HeatingAt { ConstantPressure, ConstantVolume };
 struct Reservoir {
     std::optional<Quantity> T;
     std::optional<std::string> utility;
-    Json extra = Json::object();  // unknown fields, kept
+    UnknownFields extra;
 };
 
 struct StepTarget {
@@ -71,7 +73,10 @@ struct StepTarget {
     std::optional<Number> ratio;      // pressure ratio, > 1 (expand divides by it)
     bool rated = false;               // "rated": true — the end state the given exchanger area reaches
     std::optional<Quantity> time;     // closed systems: the end state after this time
-    Json extra = Json::object();
+    UnknownFields extra;
+
+    // Nothing aimed at and nothing kept: a step without "to" (phase changes, hold).
+    bool empty() const { return !T && !P && !duty && !quality && !ratio && !rated && !time && extra.empty(); }
 };
 
 // Heat transfer through an exchanger, jacket or coil (transfer.hpp uses it):
@@ -82,21 +87,20 @@ struct HeatTransferSpec {
     std::vector<std::pair<std::string, Quantity>> zoneU;        // per zone: "liquid", "two-phase", ... (file order)
     std::optional<Quantity> area;
     std::optional<Quantity> UA;
-    Json extra = Json::object();      // unknown fields, kept
-    Json Uextra = Json::object();     // unknown keys of a per-zone U object, kept
+    UnknownFields extra;
+    UnknownFields Uextra;             // unknown keys of a per-zone U object
 };
 
 // Heat lost to the surroundings' temperature by a batch: UA to ambient.
 struct HeatLossSpec {
     Quantity UA;
-    Json extra = Json::object();
+    UnknownFields extra;
 };
 
 struct Step {
     std::string id;
     StepKind kind = StepKind::Heat;
-    StepTarget to;
-    bool hasTo = false;
+    StepTarget to;                        // written as "to" unless empty()
     std::optional<HeatingAt> at;          // heat / cool
     std::optional<Number> fraction;       // phase-change kinds
     std::optional<PathKind> path;         // compress / expand
@@ -108,7 +112,7 @@ struct Step {
     std::optional<HeatTransferSpec> transfer;  // heat, cool and phase-change kinds, hold
     std::optional<Quantity> duration;     // hold
     std::optional<HeatLossSpec> heatLoss; // closed systems: replaces the project's
-    Json extra = Json::object();          // unknown fields, kept and written back
+    UnknownFields extra;
 };
 
 // A plant utility a step can take its heat from or give it to,
@@ -131,7 +135,7 @@ struct Utility {
     std::optional<Quantity> density;     // sensible, optional, kg/m3
     std::optional<Quantity> T;           // fixed
     std::optional<Quantity> flow;        // sensible, instead of out: kg/s through the exchanger
-    Json extra = Json::object();         // unknown fields, kept
+    UnknownFields extra;
 };
 
 struct StartSpec {
@@ -139,25 +143,32 @@ struct StartSpec {
     std::optional<Quantity> P;
     std::optional<Number> quality;
     std::optional<Number> meltFraction;
-    Json extra = Json::object();
+    UnknownFields extra;
 };
 
 struct Basis {
     enum class Kind { Mass, Amount, MassFlow, MolarFlow } kind = Kind::Mass;
     Quantity amount;  // SI: kg, mol, kg/s or mol/s
-    Json extra = Json::object();  // unknown fields, kept
+    UnknownFields extra;
 };
 
 struct Meta {
     std::string title, author, revision, created, modified, notes;
-    Json extra = Json::object();
+    UnknownFields extra;
+};
+
+// The dead state of exergy: the temperature and pressure of the surroundings.
+struct Surroundings {
+    Quantity T{"25 degC", 298.15};
+    Quantity P{"1 atm", 101325.0};
+    UnknownFields extra;
 };
 
 struct Project {
     int version = 1;
     Meta meta;
     UnitSystem displayUnits = UnitSystem::SI;
-    Json displayExtra = Json::object();
+    UnknownFields displayExtra;
     SystemKind system = SystemKind::SteadyFlow;
     ModelKind model = ModelKind::Reference;
     // Either a library id or a custom substance definition.
@@ -165,15 +176,12 @@ struct Project {
     std::optional<Json> customSubstanceJson;  // the object as written, when custom
     Substance substance;                      // resolved definition
     Basis basis;
-    Quantity atmosphere{"101.325 kPa", 101325.0};
-    bool hasAtmosphere = false;               // written back only if it was in the file
-    Quantity surroundingsT{"25 degC", 298.15};
-    Quantity surroundingsP{"1 atm", 101325.0};
-    bool hasSurroundings = false;
-    Json surroundingsExtra = Json::object();
+    // Gauge pressures are read against it; none: the standard atmosphere.
+    std::optional<Quantity> atmosphere;
+    std::optional<Surroundings> surroundings;  // none: 25 degC and 1 atm
     StartSpec start;
     std::vector<Step> steps;
-    Json extra = Json::object();              // unknown top-level fields
+    UnknownFields extra;                      // unknown top-level fields
     // Optional fields of version 1: utilities and the smallest
     // temperature difference a heat exchanger with a utility should keep.
     std::vector<Utility> utilities;
@@ -185,7 +193,9 @@ struct Project {
     double minApproachK() const { return minApproach ? minApproach->si : kDefaultMinApproach; }
     const Utility* findUtility(std::string_view id) const;
 
-    UnitContext unitContext() const { return UnitContext{atmosphere.si}; }
+    const Quantity& atmosphereOrDefault() const;      // "101.325 kPa" when none is given
+    const Surroundings& surroundingsOrDefault() const;
+    UnitContext unitContext() const { return UnitContext{atmosphereOrDefault().si}; }
     // kg or kg/s the extensive results are multiplied by.
     double massBasis() const;
     const Step* findStep(std::string_view id) const;

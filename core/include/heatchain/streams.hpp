@@ -26,7 +26,7 @@ struct Stream {
     // s; a closed (batch) stream repeats every cycleTime: its heat recovery
     // targets take its duties averaged over that time. None: left out.
     std::optional<Quantity> cycleTime;
-    Json extra = Json::object();                // unknown stream fields, kept
+    UnknownFields extra;                        // unknown stream fields, kept
     Project project;                            // the stream as a one-stream worksheet
 };
 
