@@ -50,16 +50,25 @@ constexpr double kTstar = 1386.0;
 
 }  // namespace
 
+namespace {
+
+// Eq. 7's reduced variables and the power tables of x = 7.1 − pi and
+// y = tau − 1.222 that every sum of Table 2 runs over.
+struct Reduced {
+    double pi, tau, x, y;
+    detail::PowTable<0, 32> px;
+    detail::PowTable<-41, 17> py;
+    Reduced(double T, double P) : pi(P / kPstar), tau(kTstar / T), x(7.1 - pi), y(tau - 1.222), px(x), py(y) {}
+};
+
+}  // namespace
+
 Props region1(double T, double P) {
-    const double pi = P / kPstar;
-    const double tau = kTstar / T;
-    const double x = 7.1 - pi;
-    const double y = tau - 1.222;
-    const detail::PowTable<0, 32> px(x);
-    const detail::PowTable<-41, 17> py(y);
+    const Reduced r(T, P);
+    const double x = r.x, y = r.y;
     // Sums of n x^I y^J weighted by the exponents; derivatives follow by
     // dividing by x or y (d/dpi of x^I is -I x^(I-1)).
-    const detail::SeriesSums m = detail::seriesSums<kRegion1>(px, py);
+    const detail::SeriesSums m = detail::seriesSums<kRegion1>(r.px, r.py);
     detail::Gamma G;
     G.g = m.S;
     G.gp = -m.SI / x;
@@ -67,36 +76,28 @@ Props region1(double T, double P) {
     G.gt = m.SJ / y;
     G.gtt = m.SJJ / (y * y);
     G.gpt = -m.SIJ / (x * y);
-    return detail::propsFromGamma(T, P, pi, tau, G);
+    return detail::propsFromGamma(T, P, r.pi, r.tau, G);
 }
 
 HS region1HS(double T, double P) {
-    const double pi = P / kPstar;
-    const double tau = kTstar / T;
-    const double y = tau - 1.222;
-    const detail::PowTable<0, 32> px(7.1 - pi);
-    const detail::PowTable<-41, 17> py(y);
+    const Reduced r(T, P);
     double S, SJ;
-    detail::seriesSumsHS<kRegion1>(px, py, S, SJ);
+    detail::seriesSumsHS<kRegion1>(r.px, r.py, S, SJ);
     // Table 3: h = R T tau gamma_tau, s = R (tau gamma_tau − gamma),
     // written as propsFromGamma writes them.
-    const double gt = SJ / y;
+    const double gt = SJ / r.y;
     const double RT = R * T;
-    return {RT * tau * gt, R * (tau * gt - S)};
+    return {RT * r.tau * gt, R * (r.tau * gt - S)};
 }
 
 HSCp region1HSCp(double T, double P) {
-    const double pi = P / kPstar;
-    const double tau = kTstar / T;
-    const double y = tau - 1.222;
-    const detail::PowTable<0, 32> px(7.1 - pi);
-    const detail::PowTable<-41, 17> py(y);
-    const detail::SeriesSums m = detail::seriesSumsHSCp<kRegion1>(px, py);
+    const Reduced r(T, P);
+    const detail::SeriesSums m = detail::seriesSumsHSCp<kRegion1>(r.px, r.py);
     detail::Gamma G;
     G.g = m.S;
-    G.gt = m.SJ / y;
-    G.gtt = m.SJJ / (y * y);
-    return detail::hsCpFromGamma(T, tau, G);
+    G.gt = m.SJ / r.y;
+    G.gtt = m.SJJ / (r.y * r.y);
+    return detail::hsCpFromGamma(T, r.tau, G);
 }
 
 double region1T_ph(double P, double h) {

@@ -61,82 +61,66 @@ constexpr double kMetaN02 = 0.10087275970006e2;
 constexpr double kPstar = 1e6;
 constexpr double kTstar = 540.0;
 
+// Eq. 15's reduced variables, eq. 16's ideal-gas part with its tau
+// derivatives (n01, n02 as given: the metastable-vapour form has its own),
+// and the power tables of pi and y = tau − 0.5 for eq. 17's residual part.
+template <int MaxI, int MaxJ>
+struct Reduced {
+    double pi, tau, y;
+    double g0, g0t, g0tt;
+    detail::PowTable<0, MaxI> pp;
+    detail::PowTable<0, MaxJ> py;
+
+    Reduced(double T, double P, double n01, double n02)
+        : pi(P / kPstar), tau(kTstar / T), y(tau - 0.5), g0(std::log(pi)), g0t(0), g0tt(0), pp(pi), py(y) {
+        const detail::PowTable<-7, 3> pt(tau);
+        for (int i = 0; i < 9; ++i) {
+            const double n = i == 0 ? n01 : (i == 1 ? n02 : kIdeal[i].n);
+            const int J = kIdeal[i].J;
+            g0 += n * pt[J];
+            g0t += n * J * pt[J - 1];
+            g0tt += n * J * (J - 1) * pt[J - 2];
+        }
+    }
+};
+
 template <const auto& Res, int MaxI, int MaxJ>
 Props evaluate(double T, double P, double n01, double n02) {
-    const double pi = P / kPstar;
-    const double tau = kTstar / T;
+    const Reduced<MaxI, MaxJ> r(T, P, n01, n02);
+    const detail::SeriesSums m = detail::seriesSums<Res>(r.pp, r.py);
+    const double pi = r.pi, y = r.y;
     detail::Gamma G;
-    // Ideal-gas part, eq. 16.
-    const detail::PowTable<-7, 3> pt(tau);
-    double g0 = std::log(pi), g0t = 0, g0tt = 0;
-    for (int i = 0; i < 9; ++i) {
-        const double n = i == 0 ? n01 : (i == 1 ? n02 : kIdeal[i].n);
-        const int J = kIdeal[i].J;
-        g0 += n * pt[J];
-        g0t += n * J * pt[J - 1];
-        g0tt += n * J * (J - 1) * pt[J - 2];
-    }
-    // Residual part, eq. 17.
-    const double y = tau - 0.5;
-    const detail::PowTable<0, MaxI> pp(pi);
-    const detail::PowTable<0, MaxJ> py(y);
-    const detail::SeriesSums m = detail::seriesSums<Res>(pp, py);
-    G.g = g0 + m.S;
+    G.g = r.g0 + m.S;
     G.gp = 1.0 / pi + m.SI / pi;
     G.gpp = -1.0 / (pi * pi) + m.SII / (pi * pi);
-    G.gt = g0t + m.SJ / y;
-    G.gtt = g0tt + m.SJJ / (y * y);
+    G.gt = r.g0t + m.SJ / y;
+    G.gtt = r.g0tt + m.SJJ / (y * y);
     G.gpt = m.SIJ / (pi * y);
-    return detail::propsFromGamma(T, P, pi, tau, G);
+    return detail::propsFromGamma(T, P, pi, r.tau, G);
 }
 
 // h and s alone, written as evaluate() and propsFromGamma write them.
 template <const auto& Res, int MaxI, int MaxJ>
 HS evaluateHS(double T, double P, double n01, double n02) {
-    const double pi = P / kPstar;
-    const double tau = kTstar / T;
-    const detail::PowTable<-7, 3> pt(tau);
-    double g0 = std::log(pi), g0t = 0;
-    for (int i = 0; i < 9; ++i) {
-        const double n = i == 0 ? n01 : (i == 1 ? n02 : kIdeal[i].n);
-        const int J = kIdeal[i].J;
-        g0 += n * pt[J];
-        g0t += n * J * pt[J - 1];
-    }
-    const double y = tau - 0.5;
-    const detail::PowTable<0, MaxI> pp(pi);
-    const detail::PowTable<0, MaxJ> py(y);
+    const Reduced<MaxI, MaxJ> r(T, P, n01, n02);
     double S, SJ;
-    detail::seriesSumsHS<Res>(pp, py, S, SJ);
-    const double g = g0 + S;
-    const double gt = g0t + SJ / y;
+    detail::seriesSumsHS<Res>(r.pp, r.py, S, SJ);
+    const double g = r.g0 + S;
+    const double gt = r.g0t + SJ / r.y;
     const double RT = R * T;
-    return {RT * tau * gt, R * (tau * gt - g)};
+    return {RT * r.tau * gt, R * (r.tau * gt - g)};
 }
 
 // h, s and cp alone, written as evaluate() and propsFromGamma write them.
 template <const auto& Res, int MaxI, int MaxJ>
 HSCp evaluateHSCp(double T, double P, double n01, double n02) {
-    const double pi = P / kPstar;
-    const double tau = kTstar / T;
-    const detail::PowTable<-7, 3> pt(tau);
-    double g0 = std::log(pi), g0t = 0, g0tt = 0;
-    for (int i = 0; i < 9; ++i) {
-        const double n = i == 0 ? n01 : (i == 1 ? n02 : kIdeal[i].n);
-        const int J = kIdeal[i].J;
-        g0 += n * pt[J];
-        g0t += n * J * pt[J - 1];
-        g0tt += n * J * (J - 1) * pt[J - 2];
-    }
-    const double y = tau - 0.5;
-    const detail::PowTable<0, MaxI> pp(pi);
-    const detail::PowTable<0, MaxJ> py(y);
-    const detail::SeriesSums m = detail::seriesSumsHSCp<Res>(pp, py);
+    const Reduced<MaxI, MaxJ> r(T, P, n01, n02);
+    const detail::SeriesSums m = detail::seriesSumsHSCp<Res>(r.pp, r.py);
     detail::Gamma G;
-    G.g = g0 + m.S;
-    G.gt = g0t + m.SJ / y;
-    G.gtt = g0tt + m.SJJ / (y * y);
-    return detail::hsCpFromGamma(T, tau, G);
+    G.g = r.g0 + m.S;
+    G.gt = r.g0t + m.SJ / r.y;
+    G.gtt = r.g0tt + m.SJJ / (r.y * r.y);
+    return detail::hsCpFromGamma(T, r.tau, G);
 }
 
 }  // namespace
