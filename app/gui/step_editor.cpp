@@ -410,7 +410,7 @@ void StepEditor::setRow(QWidget* w, bool visible) { formLayout_->setRowVisible(w
 void StepEditor::fillUtilityChoices(QComboBox* box, QuantityField* field, const std::optional<Reservoir>& r) {
     box->clear();
     box->addItem(tr("temperature…"), QString());
-    for (const Utility& u : doc_->project().utilities) {
+    for (const Utility& u : doc_->project().utilityList()) {
         box->addItem(qs(u.id), qs(u.id));
         if (u.name) box->setItemData(box->count() - 1, qs(*u.name), Qt::ToolTipRole);
     }

@@ -59,7 +59,7 @@ UtilitiesDialog::UtilitiesDialog(const Project& project, QWidget* parent)
     table_->setSelectionBehavior(QAbstractItemView::SelectRows);
     table_->setSelectionMode(QAbstractItemView::SingleSelection);
     outer->addWidget(table_, 1);
-    for (const Utility& u : project.utilities) addRow(u, qs(u.id));
+    for (const Utility& u : project.utilityList()) addRow(u, qs(u.id));
     // Each row says what core makes of it as it is typed: the steam's
     // saturation temperature and latent heat, or the reason it cannot.
     connect(table_, &QTableWidget::itemChanged, this, [this](QTableWidgetItem* it) {
@@ -236,8 +236,7 @@ void UtilitiesDialog::removeRow(int row) {
 QString UtilitiesDialog::build(Project& p) {
     minApproach_->commit();
     if (minApproach_->hasError()) return tr("Required minimum approach: %1").arg(minApproach_->errorText());
-    p.utilities.clear();
-    p.hasUtilities = true;
+    std::vector<Utility>& list = p.utilities.emplace();
     std::vector<std::pair<std::string, std::string>> renames;
     for (int r = 0; r < table_->rowCount(); ++r) {
         const UtilityKind k = rowKind(r);
@@ -264,7 +263,7 @@ QString UtilitiesDialog::build(Project& p) {
         u.cp = cell(ColCp);
         u.density = cell(ColDensity);
         u.T = cell(ColT);
-        p.utilities.push_back(std::move(u));
+        list.push_back(std::move(u));
     }
     for (const auto& [from, to] : renames)
         for (Step& s : p.steps)

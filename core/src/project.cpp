@@ -102,8 +102,13 @@ const Surroundings& Project::surroundingsOrDefault() const {
     return surroundings ? *surroundings : standard;
 }
 
+const std::vector<Utility>& Project::utilityList() const {
+    static const std::vector<Utility> none;
+    return utilities ? *utilities : none;
+}
+
 const Utility* Project::findUtility(std::string_view id) const {
-    for (const Utility& u : utilities)
+    for (const Utility& u : utilityList())
         if (u.id == id) return &u;
     return nullptr;
 }

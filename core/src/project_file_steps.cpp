@@ -381,8 +381,8 @@ void readUtilities(const Reader& r, const Json& root, Project& p) {
     if (!list->is_array()) r.fail(path, "\"utilities\" must be a list [...]; found " + jsonTypeName(*list));
     std::set<std::string> ids;
     long index = 0;
-    for (const Json& u : *list) p.utilities.push_back(readUtility(r, u, index++, ids));
-    p.hasUtilities = true;
+    std::vector<Utility>& utilities = p.utilities.emplace();
+    for (const Json& u : *list) utilities.push_back(readUtility(r, u, index++, ids));
 }
 
 // A step's source or sink naming a utility must name one of the list.
@@ -396,7 +396,7 @@ void checkUtilityReferences(const Reader& r, const Project& p) {
                        std::string("the ") + key + " names a utility and a temperature; give one");
             if (p.findUtility(*(*res)->utility)) continue;
             std::string known;
-            for (const Utility& u : p.utilities) known += (known.empty() ? "" : ", ") + u.id;
+            for (const Utility& u : p.utilityList()) known += (known.empty() ? "" : ", ") + u.id;
             r.fail({{"steps", -1}, {"", static_cast<long>(i)}, {key, -1}, {"utility", -1}},
                    "unknown utility " + inQuotes(*(*res)->utility) + "; " +
                        (known.empty() ? std::string("the project defines no \"utilities\"")

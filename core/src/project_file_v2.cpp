@@ -286,7 +286,6 @@ void assignShared(Project& p, const Project& shared) {
     p.atmosphere = shared.atmosphere;
     p.surroundings = shared.surroundings;
     p.utilities = shared.utilities;
-    p.hasUtilities = shared.hasUtilities;
     p.minApproach = shared.minApproach;
 }
 

@@ -234,9 +234,9 @@ void Writer::project(const Project& p) {
 
     // Utilities and minApproach: after start, before the unknown fields.
     if (p.minApproach) quantity(o, "minApproach", *p.minApproach, Dimension::TemperatureDifference);
-    if (p.hasUtilities || !p.utilities.empty()) {
+    if (p.utilities) {
         o.key("utilities").beginArray();
-        for (const Utility& u : p.utilities) utility(u);
+        for (const Utility& u : *p.utilities) utility(u);
         w_.endArray();
     }
     if (p.heatLoss) {

@@ -143,7 +143,7 @@ StreamPieces piecesFromStreams(std::span<const RecoveryStream> streams, double t
 std::vector<UtilityLevel> utilityLevels(const StreamSet& set) {
     std::vector<UtilityLevel> out;
     const Project& shared = set.shared;
-    for (const Utility& u : shared.utilities) {
+    for (const Utility& u : shared.utilityList()) {
         auto profile = resolveUtility(u, shared.displayUnits, shared.unitContext());
         if (!profile) continue;
         bool asSource = false, asSink = false;

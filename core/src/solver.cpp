@@ -172,8 +172,8 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
     // Heat transfer reads the step's curve: such steps are always sampled.
     const Ctx ct{project, *model, r.massBasis, plain.closed, r.T0, std::max(options.curvePointsPerStep, 16)};
     std::vector<Result<UtilityProfile>> profiles;
-    profiles.reserve(project.utilities.size());
-    for (const Utility& u : project.utilities)
+    profiles.reserve(project.utilityList().size());
+    for (const Utility& u : project.utilityList())
         profiles.push_back(resolveUtility(u, project.displayUnits, project.unitContext()));
     State cur = *start;
     double Qcum = 0;
@@ -299,10 +299,10 @@ SequenceResult solve(const Project& project, const std::shared_ptr<const Propert
     r.totals.complete = std::all_of(r.steps.begin(), r.steps.end(), [](const StepResult& s) { return s.computed; });
     exergyAccounts(project, *model, r);
     // Totals per utility, in the project's order.
-    for (std::size_t k = 0; k < project.utilities.size(); ++k) {
+    for (std::size_t k = 0; k < project.utilityList().size(); ++k) {
         UtilityTotal ut;
-        ut.id = project.utilities[k].id;
-        ut.kind = project.utilities[k].kind;
+        ut.id = project.utilityList()[k].id;
+        ut.kind = project.utilityList()[k].kind;
         if (profiles[k]) ut.profile = *profiles[k];
         else ut.error = profiles[k].error();
         if (profiles[k] && profiles[k]->density) ut.volume = 0.0;

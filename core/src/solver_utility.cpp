@@ -127,7 +127,7 @@ Result<StepUtility> serveByUtility(const Ctx& c, const Step& step, std::size_t i
     const Reservoir& r = asSource ? *step.source : *step.sink;
     const char* role = asSource ? "source" : "sink";
     std::size_t ui = 0;
-    while (ui < c.project.utilities.size() && c.project.utilities[ui].id != *r.utility) ++ui;
+    while (ui < c.project.utilityList().size() && c.project.utilityList()[ui].id != *r.utility) ++ui;
     if (ui >= profiles.size()) return stepError(step, idx, "unknown utility \"" + *r.utility + "\"");
     if (!profiles[ui])
         return stepError(step, idx, "utility \"" + *r.utility + "\": " + profiles[ui].error().message);

@@ -169,8 +169,8 @@ std::vector<OutputDef> outputDefs(const Project& p) {
                          return r.steps[i].utility->minApproach;
                      }});
     }
-    for (std::size_t k = 0; k < p.utilities.size(); ++k) {
-        const std::string id = p.utilities[k].id;
+    for (std::size_t k = 0; k < p.utilityList().size(); ++k) {
+        const std::string id = p.utilityList()[k].id;
         d.push_back({{"utility:" + id + ".mass", id + " use", dM}, [k](const SequenceResult& r) -> std::optional<double> {
                          if (k >= r.utilities.size()) return std::nullopt;
                          return r.utilities[k].mass;
@@ -230,7 +230,7 @@ Result<SweepResult> sweep(const Project& project, const SweepSpec& spec, const S
                 k == "step:" + endOf + ".T_end")
                 chosen.push_back(&d);
             // The use of every utility that has one (fixed utilities have no stream to count).
-            for (const Utility& u : project.utilities)
+            for (const Utility& u : project.utilityList())
                 if (u.kind != UtilityKind::Fixed && k == "utility:" + u.id + ".mass") chosen.push_back(&d);
         }
     } else {

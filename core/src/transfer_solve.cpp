@@ -18,8 +18,8 @@ namespace {
 
 const UtilityProfile* profileOf(const Ctx& c, const Reservoir& r, const std::vector<Result<UtilityProfile>>& profiles) {
     if (!r.utility) return nullptr;
-    for (std::size_t k = 0; k < c.project.utilities.size() && k < profiles.size(); ++k)
-        if (c.project.utilities[k].id == *r.utility && profiles[k]) return &*profiles[k];
+    for (std::size_t k = 0; k < c.project.utilityList().size() && k < profiles.size(); ++k)
+        if (c.project.utilityList()[k].id == *r.utility && profiles[k]) return &*profiles[k];
     return nullptr;
 }
 

@@ -187,16 +187,16 @@ Result<std::vector<InputSlot>> collectInputs(const Project& p) {
     if (p.heatLoss)
         c.quantity("heatLoss.UA", std::optional<Quantity>(p.heatLoss->UA), D::ThermalConductance,
                    [](Project& x) { return &x.heatLoss->UA; });
-    for (std::size_t k = 0; k < p.utilities.size(); ++k) {
-        const Utility& u = p.utilities[k];
+    for (std::size_t k = 0; k < p.utilityList().size(); ++k) {
+        const Utility& u = p.utilityList()[k];
         const std::string at = "utilities." + u.id + ".";
-        c.quantity(at + "P", u.P, D::Pressure, [k](Project& x) { return &*x.utilities[k].P; });
-        c.quantity(at + "in", u.Tin, D::Temperature, [k](Project& x) { return &*x.utilities[k].Tin; });
-        c.quantity(at + "out", u.Tout, D::Temperature, [k](Project& x) { return &*x.utilities[k].Tout; });
-        c.quantity(at + "cp", u.cp, D::SpecificEntropy, [k](Project& x) { return &*x.utilities[k].cp; });
-        c.quantity(at + "density", u.density, D::Density, [k](Project& x) { return &*x.utilities[k].density; });
-        c.quantity(at + "T", u.T, D::Temperature, [k](Project& x) { return &*x.utilities[k].T; });
-        c.quantity(at + "flow", u.flow, D::MassFlow, [k](Project& x) { return &*x.utilities[k].flow; });
+        c.quantity(at + "P", u.P, D::Pressure, [k](Project& x) { return &*(*x.utilities)[k].P; });
+        c.quantity(at + "in", u.Tin, D::Temperature, [k](Project& x) { return &*(*x.utilities)[k].Tin; });
+        c.quantity(at + "out", u.Tout, D::Temperature, [k](Project& x) { return &*(*x.utilities)[k].Tout; });
+        c.quantity(at + "cp", u.cp, D::SpecificEntropy, [k](Project& x) { return &*(*x.utilities)[k].cp; });
+        c.quantity(at + "density", u.density, D::Density, [k](Project& x) { return &*(*x.utilities)[k].density; });
+        c.quantity(at + "T", u.T, D::Temperature, [k](Project& x) { return &*(*x.utilities)[k].T; });
+        c.quantity(at + "flow", u.flow, D::MassFlow, [k](Project& x) { return &*(*x.utilities)[k].flow; });
     }
     if (c.error) return *c.error;
 

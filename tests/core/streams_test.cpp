@@ -116,7 +116,7 @@ TEST(Streams, VersionTwoReadsEveryStreamWithTheSharedFields) {
     EXPECT_EQ(set->streams[1].id, "product");
     for (const Stream& s : set->streams) {
         EXPECT_EQ(s.project.meta.title, "Two lines");
-        ASSERT_EQ(s.project.utilities.size(), 1u);
+        ASSERT_EQ(s.project.utilityList().size(), 1u);
         EXPECT_DOUBLE_EQ(s.project.minApproachK(), 10.0);
     }
     EXPECT_EQ(set->streams[1].project.steps.size(), 2u);
@@ -202,7 +202,7 @@ TEST(Streams, AnEditOfOneStreamsSharedFieldsBecomesEveryStreams) {
     for (const Stream& s : set->streams) {
         EXPECT_EQ(s.project.meta.title, "Two lines, revised");
         EXPECT_EQ(s.project.displayUnits, UnitSystem::MetricEngineering);
-        EXPECT_EQ(s.project.utilities.size(), 1u);
+        EXPECT_EQ(s.project.utilityList().size(), 1u);
     }
     EXPECT_EQ(set->streams[1].project.steps.size(), 2u);
     EXPECT_EQ(set->shared.extra.string("site"), "north yard");

@@ -345,7 +345,7 @@ TEST(TransferFields, RoundTripAsTypedWithUnknownFieldsKept) {
     EXPECT_EQ(h.transfer->zoneU.size(), 2u);
     EXPECT_EQ(h.transfer->area->si, 6.5);
     EXPECT_EQ(p->steps[1].kind, StepKind::Hold);
-    EXPECT_EQ(p->utilities[0].flow->si, 3.0);
+    EXPECT_EQ((*p->utilities)[0].flow->si, 3.0);
     const std::string written = writeProject(*p);
     for (const char* typed : {"\"time\": \"45 min\"", "\"liquid\": \"450 W/(m2 K)\"", "\"fouled\": \"yes\"",
                               "\"tag\": \"J-1\"", "\"UA\": \"25 W/K\"", "\"note\": \"lagged\"", "\"flow\": \"3 kg/s\"",

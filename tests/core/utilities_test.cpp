@@ -55,14 +55,14 @@ TEST(Utilities, ReadAndWriteBack) {
         kStart5bar, R"j("minApproach": "8 K",)j");
     auto p = parseProject(text);
     ASSERT_TRUE(p.ok()) << p.error().text();
-    ASSERT_EQ(p->utilities.size(), 3u);
-    EXPECT_EQ(p->utilities[0].kind, UtilityKind::Steam);
-    EXPECT_DOUBLE_EQ(p->utilities[0].P->si, 3e5 + 101325.0);  // gauge on the default atmosphere
-    EXPECT_EQ(p->utilities[0].extra.string("tag"), "U-1");
-    EXPECT_EQ(p->utilities[1].Tin->text, "28 degC");
-    EXPECT_DOUBLE_EQ(p->utilities[1].cp->si, 4180.0);
-    EXPECT_DOUBLE_EQ(p->utilities[1].density->si, 995.0);
-    EXPECT_DOUBLE_EQ(p->utilities[2].T->si, 1173.15);
+    ASSERT_EQ(p->utilityList().size(), 3u);
+    EXPECT_EQ(p->utilityList()[0].kind, UtilityKind::Steam);
+    EXPECT_DOUBLE_EQ(p->utilityList()[0].P->si, 3e5 + 101325.0);  // gauge on the default atmosphere
+    EXPECT_EQ(p->utilityList()[0].extra.string("tag"), "U-1");
+    EXPECT_EQ(p->utilityList()[1].Tin->text, "28 degC");
+    EXPECT_DOUBLE_EQ(p->utilityList()[1].cp->si, 4180.0);
+    EXPECT_DOUBLE_EQ(p->utilityList()[1].density->si, 995.0);
+    EXPECT_DOUBLE_EQ(p->utilityList()[2].T->si, 1173.15);
     EXPECT_DOUBLE_EQ(p->minApproachK(), 8.0);
     EXPECT_TRUE(p->extra.empty());
     // Stable writing: write(parse(write(p))) == write(p), texts as typed.
@@ -79,8 +79,7 @@ TEST(Utilities, ReadAndWriteBack) {
     // A file without utilities is written without them (version-1 files unchanged).
     auto plain = parseProject(project("[]", "[]", kStart5bar));
     ASSERT_TRUE(plain.ok());
-    plain->hasUtilities = false;
-    plain->utilities.clear();
+    plain->utilities.reset();
     EXPECT_EQ(writeProject(*plain).find("utilities"), std::string::npos);
 }
 

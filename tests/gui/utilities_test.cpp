@@ -171,8 +171,8 @@ private slots:
         w.document()->undoStack()->push(new gui::EditProjectSettings(w.document(), *dlg.edited(), QStringLiteral("Edit utilities")));
 
         Project expected = base;
-        expected.utilities[0].P = Quantity{"6 barg", 0};
-        expected.utilities[1].id = "cooling-water";
+        (*expected.utilities)[0].P = Quantity{"6 barg", 0};
+        (*expected.utilities)[1].id = "cooling-water";
         for (Step& s : expected.steps)
             if (s.sink && s.sink->utility) s.sink->utility = "cooling-water";
         expected.minApproach = Quantity{"15 K", 0};

@@ -473,7 +473,7 @@ void writeContent(Layout& L, const Content& c) {
     }
 
     // ---- 6 Utilities -------------------------------------------------------------------
-    bool anyUtility = !p.utilities.empty();
+    bool anyUtility = !p.utilityList().empty();
     for (const StepResult& s : r.steps) anyUtility = anyUtility || s.utility.has_value();
     int section = 6;
     if (anyUtility) {

@@ -184,8 +184,8 @@ struct Project {
     UnknownFields extra;                      // unknown top-level fields
     // Optional fields of version 1: utilities and the smallest
     // temperature difference a heat exchanger with a utility should keep.
-    std::vector<Utility> utilities;
-    bool hasUtilities = false;                // written back only if it was in the file (or set)
+    std::optional<std::vector<Utility>> utilities;  // an empty list given is written back
+    const std::vector<Utility>& utilityList() const;  // none: empty
     std::optional<Quantity> minApproach;      // default kDefaultMinApproach
     std::optional<HeatLossSpec> heatLoss;     // closed systems: UA to the surroundings
 
