@@ -21,6 +21,32 @@ mkdir -p "$XDG_RUNTIME_DIR" && chmod 0700 "$XDG_RUNTIME_DIR"
 
 median() { sort -g | awk '{ a[NR] = $1 } END { if (NR % 2) print a[(NR + 1) / 2]; else print (a[NR / 2] + a[NR / 2 + 1]) / 2 }'; }
 
+# A worksheet of N steps repeating one seven-step water cycle (pump, heat,
+# boil, superheat, expand, condense, subcool), written to FILE with INDENT
+# spaces of indentation and TITLE: cycle_worksheet N FILE INDENT TITLE.
+cycle_worksheet() {
+  /usr/bin/python3 - "$@" <<'PY'
+import json, sys
+n, path, indent, title = int(sys.argv[1]), sys.argv[2], int(sys.argv[3]), sys.argv[4]
+cycle = [
+    {"id": "pump", "kind": "compress", "to": {"P": "14 bar"}, "path": "adiabatic", "efficiency": 0.7},
+    {"id": "eco", "kind": "heat", "to": {"T": "180 degC"}, "source": {"T": "240 degC"}},
+    {"id": "boil", "kind": "boil", "source": {"T": "240 degC"}},
+    {"id": "sh", "kind": "heat", "to": {"T": "265 degC"}, "source": {"T": "420 degC"}},
+    {"id": "turbine", "kind": "expand", "to": {"P": "1.4 bar"}, "path": "adiabatic", "efficiency": 0.8},
+    {"id": "cond", "kind": "condense", "sink": {"T": "30 degC"}},
+    {"id": "sub", "kind": "cool", "to": {"T": "48 degC"}, "sink": {"T": "30 degC"}},
+]
+steps = []
+for i in range(n):
+    s = dict(cycle[i % 7]); s["id"] = f"{s['id']}-{i // 7}"; steps.append(s)
+doc = {"format": "heatchain-project", "version": 1, "meta": {"title": title},
+       "system": "steady-flow", "model": "reference", "substance": "water",
+       "basis": {"massFlow": "4.2 t/h"}, "start": {"T": "48 degC", "P": "1.4 bar"}, "steps": steps}
+json.dump(doc, open(path, "w"), indent=indent)
+PY
+}
+
 echo "== machine"
 echo "cores: $(nproc); cpu: $(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2- | sed 's/^ //')"
 echo "compiler: $(g++ --version | head -1); build type: $(grep CMAKE_BUILD_TYPE: "$bench/CMakeCache.txt" | cut -d= -f2)"
@@ -55,25 +81,7 @@ fi
 # PDF report of a 30-step worksheet with both charts (target 2 s).
 if [ -x "$app/app/cli/heatchain-cli" ]; then
   echo "== PDF report, 30 steps (target 2 s), $reps runs"
-  /usr/bin/python3 - "$work/thirty.hchain" <<'PY'
-import json, sys
-cycle = [
-    {"id": "pump", "kind": "compress", "to": {"P": "14 bar"}, "path": "adiabatic", "efficiency": 0.7},
-    {"id": "eco", "kind": "heat", "to": {"T": "180 degC"}, "source": {"T": "240 degC"}},
-    {"id": "boil", "kind": "boil", "source": {"T": "240 degC"}},
-    {"id": "sh", "kind": "heat", "to": {"T": "265 degC"}, "source": {"T": "420 degC"}},
-    {"id": "turbine", "kind": "expand", "to": {"P": "1.4 bar"}, "path": "adiabatic", "efficiency": 0.8},
-    {"id": "cond", "kind": "condense", "sink": {"T": "30 degC"}},
-    {"id": "sub", "kind": "cool", "to": {"T": "48 degC"}, "sink": {"T": "30 degC"}},
-]
-steps = []
-for i in range(30):
-    s = dict(cycle[i % 7]); s["id"] = f"{s['id']}-{i // 7}"; steps.append(s)
-doc = {"format": "heatchain-project", "version": 1, "meta": {"title": "thirty-step report timing"},
-       "system": "steady-flow", "model": "reference", "substance": "water",
-       "basis": {"massFlow": "4.2 t/h"}, "start": {"T": "48 degC", "P": "1.4 bar"}, "steps": steps}
-json.dump(doc, open(sys.argv[1], "w"), indent=2)
-PY
+  cycle_worksheet 30 "$work/thirty.hchain" 2 "thirty-step report timing"
   for i in $(seq $reps); do
     /usr/bin/time -v "$app/app/cli/heatchain-cli" report "$work/thirty.hchain" -o "$work/thirty.pdf" \
       >/dev/null 2>"$work/report.time"
@@ -88,26 +96,7 @@ fi
 # 10,000-step file, and both on a 200,000-step file (the loader's limit is
 # 250,000 steps a stream), wall time and peak memory of whole runs.
 if [ -x "$app/app/cli/heatchain-cli" ]; then
-  /usr/bin/python3 - "$work" <<'PY'
-import json, sys
-cycle = [
-    {"id": "pump", "kind": "compress", "to": {"P": "14 bar"}, "path": "adiabatic", "efficiency": 0.7},
-    {"id": "eco", "kind": "heat", "to": {"T": "180 degC"}, "source": {"T": "240 degC"}},
-    {"id": "boil", "kind": "boil", "source": {"T": "240 degC"}},
-    {"id": "sh", "kind": "heat", "to": {"T": "265 degC"}, "source": {"T": "420 degC"}},
-    {"id": "turbine", "kind": "expand", "to": {"P": "1.4 bar"}, "path": "adiabatic", "efficiency": 0.8},
-    {"id": "cond", "kind": "condense", "sink": {"T": "30 degC"}},
-    {"id": "sub", "kind": "cool", "to": {"T": "48 degC"}, "sink": {"T": "30 degC"}},
-]
-for n in (10000, 200000):
-    steps = []
-    for i in range(n):
-        s = dict(cycle[i % 7]); s["id"] = f"{s['id']}-{i // 7}"; steps.append(s)
-    doc = {"format": "heatchain-project", "version": 1, "meta": {"title": f"{n}-step timing"},
-           "system": "steady-flow", "model": "reference", "substance": "water",
-           "basis": {"massFlow": "4.2 t/h"}, "start": {"T": "48 degC", "P": "1.4 bar"}, "steps": steps}
-    json.dump(doc, open(f"{sys.argv[1]}/s{n}.hchain", "w"), indent=1)
-PY
+  for n in 10000 200000; do cycle_worksheet $n "$work/s$n.hchain" 1 "$n-step timing"; done
   for n in 10000 200000; do
     runs=$reps; [ "$n" -gt 10000 ] && runs=1
     for verb in "compute --json" check; do
