@@ -589,8 +589,13 @@ void MainWindow::buildActions() {
 
 void MainWindow::addStep(int index, StepKind kind) {
     index = std::clamp(index, 0, int(doc_.project().steps.size()));
-    Step s = defaultStep(doc_.project(), doc_.result(), kind, index);
-    doc_.undoStack()->push(new AddStep(&doc_, index, std::move(s)));
+    auto s = placedStep(doc_.project(), index, defaultStep(doc_.project(), doc_.result(), kind, index), false);
+    if (!s) {
+        statusBar()->showMessage(tr("Not added: %1").arg(qs(s.error().message)), 8000);
+        lastError_ = qs(s.error().message);
+        return;
+    }
+    doc_.undoStack()->push(new AddStep(&doc_, index, std::move(*s)));
 }
 
 bool MainWindow::quickAddStep(const QString& text) {
@@ -598,6 +603,13 @@ bool MainWindow::quickAddStep(const QString& text) {
     const int index = std::clamp(doc_.selectedStep() + 1, 0, int(doc_.project().steps.size()));
     auto step = parseQuickAdd(text.toStdString(), doc_.project(),
                               stateBefore(doc_.project(), doc_.result(), index).first);
+    if (step) {
+        // A quick-added step without a target takes the defaults of its kind;
+        // then it is held to the rules a saved file is.
+        if (step->to.empty() && !isPhaseChangeKind(step->kind))
+            step->to = defaultStep(doc_.project(), doc_.result(), step->kind, index).to;
+        step = placedStep(doc_.project(), index, std::move(*step), false);
+    }
     if (!step) {
         quickAdd_->setStyleSheet(QStringLiteral("QLineEdit { border: 1px solid #b42318; background: #fdecea; }"));
         quickAdd_->setToolTip(qs(step.error().message));
@@ -610,10 +622,7 @@ bool MainWindow::quickAddStep(const QString& text) {
     // The message of an earlier failure no longer applies.
     if (statusBar()->currentMessage().startsWith(tr("Not added:"))) statusBar()->clearMessage();
     lastError_.clear();
-    Step s = std::move(step.value());
-    // A quick-added step without a target takes the defaults of its kind.
-    if (s.to.empty() && !isPhaseChangeKind(s.kind)) s.to = defaultStep(doc_.project(), doc_.result(), s.kind, index).to;
-    doc_.undoStack()->push(new AddStep(&doc_, index, std::move(s)));
+    doc_.undoStack()->push(new AddStep(&doc_, index, std::move(step.value())));
     return true;
 }
 

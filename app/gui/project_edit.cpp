@@ -52,6 +52,19 @@ std::string uniqueStepId(const Project& project, std::string_view base) {
     return b + "-x";
 }
 
+Result<Step> placedStep(const Project& project, int index, Step step, bool replace) {
+    Project p = project;
+    index = std::clamp(index, 0, int(p.steps.size()) - (replace ? 1 : 0));
+    if (index < 0) return makeError("no step to edit");
+    if (replace)
+        p.steps[std::size_t(index)] = std::move(step);
+    else
+        p.steps.insert(p.steps.begin() + index, std::move(step));
+    auto resolved = resolveProject(p);
+    if (!resolved) return resolved.error();
+    return std::move(resolved->steps[std::size_t(index)]);
+}
+
 Dimension dutyDimension(const Project& project) {
     return project.system == SystemKind::Closed ? Dimension::Energy : Dimension::Power;
 }

@@ -30,6 +30,13 @@ Step defaultStep(const Project& project, const SequenceResult& result, StepKind 
 // of the last computed step before it, else the start state.
 std::pair<double, double> stateBefore(const Project& project, const SequenceResult& result, int index);
 
+// `step` placed in the worksheet at `index` (inserted before the step there,
+// or in its place when `replace`), held to every rule a saved file is (core's
+// resolveProject): the step as the worksheet then holds it, SI values
+// worked out again, or what is wrong with it. An edit that passes saves to a
+// file that opens again.
+Result<Step> placedStep(const Project& project, int index, Step step, bool replace);
+
 // Dimension of a step's duty as typed: energy for a closed batch, power in flow.
 Dimension dutyDimension(const Project& project);
 

@@ -40,6 +40,12 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
     empty_->setWordWrap(true);
     empty_->setStyleSheet(QStringLiteral("color: #6b727a;"));
     outer->addWidget(empty_);
+    // An edit core refuses (it would save a file that does not open): why.
+    problem_ = new QLabel(this);
+    problem_->setWordWrap(true);
+    problem_->setStyleSheet(QStringLiteral("color: #b42318;"));
+    problem_->hide();
+    outer->addWidget(problem_);
 
     form_ = new QWidget(this);
     formLayout_ = new QFormLayout(form_);
@@ -283,9 +289,14 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
     });
 
     connect(doc_, &ProjectDocument::changed, this, &StepEditor::refresh);
-    connect(doc_, &ProjectDocument::selectionChanged, this, &StepEditor::refresh);
+    connect(doc_, &ProjectDocument::selectionChanged, this, [this] {
+        problem_->hide();  // it was about the step selected before
+        refresh();
+    });
     refresh();
 }
+
+QString StepEditor::problem() const { return problem_->isHidden() ? QString() : problem_->text(); }
 
 QuantityField* StepEditor::field(const QString& name) const {
     if (name == QLatin1String("id")) return id_;
@@ -374,7 +385,19 @@ void StepEditor::apply(const QString& fieldName, const std::function<void(Step&)
     if (!s) return;
     Step after = *s;
     change(after);
-    doc_->undoStack()->push(new EditStepField(doc_, doc_->selectedStep(), std::move(after), fieldName));
+    // Held to the rules a saved file is: a rated target without an exchanger,
+    // a utility the worksheet does not define, … are refused here, saying why.
+    auto placed = placedStep(doc_->project(), doc_->selectedStep(), std::move(after), true);
+    if (!placed) {
+        const QString reason = qs(placed.error().message);
+        problem_->setText(tr("Not applied (%1): %2").arg(fieldName, reason));
+        problem_->show();
+        emit rejected(tr("Step %1 not applied: %2").arg(fieldName, reason));
+        refresh();
+        return;
+    }
+    problem_->hide();
+    doc_->undoStack()->push(new EditStepField(doc_, doc_->selectedStep(), std::move(*placed), fieldName));
 }
 
 void StepEditor::fillTargetChoices(StepKind k, Target current) {

@@ -27,6 +27,8 @@ public:
     QuantityField* field(const QString& name) const;
     QComboBox* kindBox() const { return kind_; }
     QComboBox* targetBox() const { return targetKind_; }
+    // Why the last edit was not applied; empty when it was (tests).
+    QString problem() const;
     QComboBox* pathBox() const { return path_; }
     QComboBox* atBox() const { return at_; }
     // Beside the source / sink temperature: "temperature…" (item 0) or one of
@@ -77,6 +79,7 @@ private:
     ResultTable* resultText_;
     QLabel* messages_;
     QLabel* empty_;
+    QLabel* problem_;
 };
 
 }  // namespace heatchain::gui

@@ -112,8 +112,14 @@ bool StreamActions::copyStep(int step, int toStream) {
     Step copy = from.steps[std::size_t(step)];
     // Step ids are unique within a stream.
     copy.id = uniqueStepId(target, copy.id);
-    target.steps.push_back(copy);
-    const int at = int(target.steps.size()) - 1;
+    // The other stream may be a batch, or lack a utility the step names: the
+    // copy is held to the rules of the stream it joins.
+    const int at = int(target.steps.size());
+    auto placed = placedStep(target, at, std::move(copy), false);
+    if (!placed)
+        return refuse(tr("Not copied to stream %1: %2")
+                          .arg(qs(doc_->streams().streams[std::size_t(toStream)].id), qs(placed.error().message)));
+    target.steps.push_back(std::move(*placed));
     lastError_.clear();
     doc_->undoStack()->push(new EditStreams(doc_, std::move(set), toStream, at,
                                             tr("Copy step %1 to stream %2")

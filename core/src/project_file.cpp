@@ -103,13 +103,12 @@ void readBasis(const Reader& r, const Json& v, Project& p) {
         std::string_view key;
         Basis::Kind kind;
         Dimension dimension;
-        SystemKind system;
     };
     static constexpr Option options[] = {
-        {"mass", Basis::Kind::Mass, Dimension::Mass, SystemKind::Closed},
-        {"amount", Basis::Kind::Amount, Dimension::Amount, SystemKind::Closed},
-        {"massFlow", Basis::Kind::MassFlow, Dimension::MassFlow, SystemKind::SteadyFlow},
-        {"molarFlow", Basis::Kind::MolarFlow, Dimension::MolarFlow, SystemKind::SteadyFlow},
+        {"mass", Basis::Kind::Mass, Dimension::Mass},
+        {"amount", Basis::Kind::Amount, Dimension::Amount},
+        {"massFlow", Basis::Kind::MassFlow, Dimension::MassFlow},
+        {"molarFlow", Basis::Kind::MolarFlow, Dimension::MolarFlow},
     };
     const Option* chosen = nullptr;
     for (const Option& o : options) {
@@ -126,13 +125,9 @@ void readBasis(const Reader& r, const Json& v, Project& p) {
                          (p.system == SystemKind::Closed ? std::string("mass\": \"1 kg")
                                                          : std::string("massFlow\": \"4.2 t/h")) +
                          "\" }");
-    const JsonPath at = child(path, std::string(chosen->key));
-    if (chosen->system != p.system)
-        r.fail(at, "a " + std::string(systemId(p.system)) + " system takes a basis of " + std::string(expected) +
-                       ", not " + std::string(chosen->key));
     p.basis.kind = chosen->kind;
-    p.basis.amount = r.quantity(*member(v, chosen->key), at, chosen->dimension);
-    if (!(p.basis.amount.si > 0.0)) r.fail(at, "the basis must be greater than zero");
+    p.basis.amount = r.quantity(*member(v, chosen->key), child(path, std::string(chosen->key)), chosen->dimension);
+    detail::enforce(r, detail::checkBasis(p.basis, p.system));
     p.basis.extra = Reader::unknownFields(v, {"mass", "amount", "massFlow", "molarFlow"});
 }
 
@@ -141,22 +136,10 @@ void readStart(const Reader& r, const Json& v, StartSpec& start) {
     r.object(v, path, "start");
     start.T = r.optionalQuantity(v, path, "T", Dimension::Temperature);
     start.P = r.optionalQuantity(v, path, "P", Dimension::Pressure);
-    if (const Json* q = member(v, "quality"))
-        start.quality = r.bounded(*q, child(path, "quality"), BoundedField::Quality);
-    if (const Json* m = member(v, "meltFraction"))
-        start.meltFraction = r.bounded(*m, child(path, "meltFraction"), BoundedField::MeltFraction);
+    if (const Json* q = member(v, "quality")) start.quality = r.number(*q, child(path, "quality"));
+    if (const Json* m = member(v, "meltFraction")) start.meltFraction = r.number(*m, child(path, "meltFraction"));
     start.extra = Reader::unknownFields(v, {"T", "P", "quality", "meltFraction"});
-
-    const int given = (start.T ? 1 : 0) + (start.P ? 1 : 0);
-    const int onLine = (start.quality ? 1 : 0) + (start.meltFraction ? 1 : 0);
-    const std::string rule =
-        "the start is T and P, or (on a phase line) T and/or P with quality or meltFraction";
-    if (onLine > 1) r.fail(child(path, "meltFraction"), "give quality or meltFraction, not both; " + rule);
-    // T and P with a quality or meltFraction is accepted: on a simple model's
-    // melting line T does not move with P, so both are a natural way to write
-    // it; whether they agree is the solver's check.
-    if (given == 0) r.fail(path, "start needs T and P; " + rule);
-    if (given == 1 && onLine == 0) r.fail(path, std::string("start needs ") + (start.T ? "P" : "T") + "; " + rule);
+    detail::enforce(r, detail::checkStart(start));
 }
 
 
@@ -300,10 +283,7 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
     if (const Json* atm = member(root, "atmosphere")) {
         const JsonPath path{{"atmosphere", -1}};
         const Quantity a = r.quantity(*atm, path, Dimension::Pressure);
-        // A gauge unit here would be circular: it reads differently under two atmospheres.
-        auto other = parseQuantity(a.text, Dimension::Pressure, UnitContext{2.0 * a.si});
-        if (!other || *other != a.si)
-            r.fail(path, "the atmosphere must be an absolute pressure (e.g. \"101.325 kPa\"), not a gauge reading");
+        detail::enforce(r, detail::checkAtmosphere(a));
         p.atmosphere = a;
     }
     r.units = p.unitContext();
@@ -335,7 +315,10 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
     readStart(r, *start, p.start);
 
     detail::readUtilities(r, root, p);
-    if (const Json* h = member(root, "heatLoss")) p.heatLoss = detail::readHeatLoss(r, *h, {{"heatLoss", -1}}, p);
+    if (const Json* h = member(root, "heatLoss")) {
+        p.heatLoss = detail::readHeatLoss(r, *h, {{"heatLoss", -1}});
+        detail::enforce(r, detail::checkHeatLoss(*p.heatLoss, {{"heatLoss", -1}}, p.system));
+    }
 
     const Json* steps = member(root, "steps");
     if (!steps) r.fail(top, "\"steps\" is missing (an empty list [] is fine)");
@@ -343,12 +326,11 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
     if (steps->size() > detail::kMaxSteps)
         r.fail({{"steps", -1}}, "has " + std::to_string(steps->size()) + " steps; a worksheet holds at most " +
                                     std::to_string(detail::kMaxSteps) + " (split it into several)");
-    std::set<std::string> ids;
-    std::vector<std::pair<std::string, long>> firstSeen;
     p.steps.reserve(steps->size());
     long index = 0;
-    for (const Json& s : *steps) p.steps.push_back(detail::readStep(r, s, index++, p, ids, firstSeen));
-    detail::checkUtilityReferences(r, p);
+    for (const Json& s : *steps) p.steps.push_back(detail::readStep(r, s, index++, p));
+    detail::enforce(r, detail::checkStepIds(p.steps));
+    detail::enforce(r, detail::checkUtilityReferences(p));
 
     p.extra = Reader::unknownFields(root, {"format", "version", "meta", "display", "system", "model", "substance",
                                            "basis", "atmosphere", "surroundings", "start", "steps",

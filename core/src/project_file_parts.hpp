@@ -12,8 +12,14 @@
 
 #include "heatchain/project.hpp"
 #include "json_reader.hpp"
+#include "project_rules.hpp"
 
 namespace heatchain::detail {
+
+// A rule of project_rules.hpp broken by what was read fails the reading there.
+inline void enforce(const JsonReader& r, const RuleCheck& check) {
+    if (check) r.fail(check->path, check->message);
+}
 
 inline constexpr std::string_view kProjectFormatName = "heatchain-project";
 // Deeper nesting than this is refused before any parser sees it; a project
@@ -40,14 +46,11 @@ inline constexpr std::string_view kMetaKeys[] = {"title", "author", "revision", 
 // reason when it is a folder, unreadable or larger than a project can be.
 Result<std::string> readProjectText(const std::filesystem::path& file);
 
-// One step of "steps"; `ids` and `firstSeen` find a repeated step id.
-Step readStep(const JsonReader& r, const Json& v, long index, const Project& p, std::set<std::string>& ids,
-              std::vector<std::pair<std::string, long>>& firstSeen);
+// One step of "steps" (whether its id is unique is checkStepIds').
+Step readStep(const JsonReader& r, const Json& v, long index, const Project& p);
 // "minApproach" and "utilities".
 void readUtilities(const JsonReader& r, const Json& root, Project& p);
-// A step's source or sink naming a utility must name one of the list.
-void checkUtilityReferences(const JsonReader& r, const Project& p);
-// "heatLoss" of a closed system.
-HeatLossSpec readHeatLoss(const JsonReader& r, const Json& v, const JsonPath& path, const Project& p);
+// "heatLoss" (checkHeatLoss says whether it may be there).
+HeatLossSpec readHeatLoss(const JsonReader& r, const Json& v, const JsonPath& path);
 
 }  // namespace heatchain::detail

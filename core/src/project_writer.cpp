@@ -265,10 +265,6 @@ std::string writeProject(const Project& p) {
     return out;
 }
 
-Result<Project> resolveProject(const Project& project) {
-    return parseProject(writeProject(project), "worksheet");
-}
-
 Status saveProject(const Project& project, const std::filesystem::path& file) {
     return writeFileAtomically(file, writeProject(project), true);
 }

@@ -55,26 +55,6 @@ std::optional<std::string> checkBounded(BoundedField field, double value) {
     return msg + "; found " + std::string(buf, end);
 }
 
-Status validateStep(const Step& step) {
-    struct Item {
-        const std::optional<Number>* number;
-        BoundedField field;
-        const char* where;
-    };
-    const Item items[] = {
-        {&step.to.quality, BoundedField::Quality, "to.quality"},
-        {&step.to.ratio, BoundedField::Ratio, "to.ratio"},
-        {&step.fraction, BoundedField::Fraction, "fraction"},
-        {&step.efficiency, BoundedField::Efficiency, "efficiency"},
-        {&step.n, BoundedField::PolytropicExponent, "n"},
-    };
-    for (const Item& it : items) {
-        if (!*it.number) continue;
-        if (auto msg = checkBounded(it.field, (*it.number)->value)) return makeError(*msg, it.where);
-    }
-    return Ok{};
-}
-
 bool approachBelowRequired(double closest_K, double required_K, double duty, bool utility) {
     return utility && duty != 0 && closest_K < required_K - 1e-6;
 }

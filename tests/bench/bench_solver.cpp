@@ -142,6 +142,17 @@ void WriteProject(benchmark::State& st) {
 }
 BENCHMARK(WriteProject)->Arg(1000)->Arg(10000)->Unit(benchmark::kMillisecond);
 
+// An edit in the application is held to the file's rules by resolving the
+// whole worksheet (resolveProject): its cost per edit.
+void ResolveProject(benchmark::State& st) {
+    const Project p = worksheet(int(st.range(0)));
+    for (auto _ : st) {
+        auto r = resolveProject(p);
+        benchmark::DoNotOptimize(r);
+    }
+}
+BENCHMARK(ResolveProject)->Arg(100)->Arg(1000)->Unit(benchmark::kMillisecond);
+
 }  // namespace
 
 BENCHMARK_MAIN();

@@ -70,27 +70,10 @@ TEST(Rules, TheLoaderAppliesTheSameRanges) {
             const bool valid = !checkBounded(c.field, v);
             EXPECT_EQ(p.ok(), valid) << c.step(num(v)) << (p ? std::string() : ": " + p.error().text());
             if (p) {
-                EXPECT_TRUE(validateStep(p->steps[0]).ok());
+                EXPECT_TRUE(resolveProject(*p).ok());
             }
         }
     }
-}
-
-TEST(Rules, ValidateStepNamesTheField) {
-    Step s;
-    s.id = "b";
-    s.kind = StepKind::Boil;
-    s.fraction = Number{Json(0), 0.0, "0"};
-    auto st = validateStep(s);
-    ASSERT_FALSE(st.ok());
-    EXPECT_EQ(st.error().where, "fraction");
-    EXPECT_NE(st.error().message.find("in (0, 1]"), std::string::npos) << st.error().message;
-    s.fraction.reset();
-    s.kind = StepKind::Expand;
-    s.to.ratio = Number{Json(1), 1.0, "1"};
-    st = validateStep(s);
-    ASSERT_FALSE(st.ok());
-    EXPECT_EQ(st.error().where, "to.ratio");
 }
 
 TEST(Rules, RequiredApproachRule) {

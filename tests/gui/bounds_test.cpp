@@ -204,6 +204,38 @@ private slots:
                      std::string::npos,
                  read.error().text().c_str());
     }
+
+    // Rules between fields (core's resolveProject, the reader's rules): a
+    // rated target needs an exchanger. Chosen in the panel on a step without
+    // one, it is refused there with the reader's reason, the worksheet is
+    // unchanged, and the file the reader would refuse is never written.
+    void ratedWithoutExchangerIsRefused() {
+        MainWindow w;
+        w.setInteractive(false);
+        auto start = parseProject(kText, "bounds");
+        QVERIFY(start);
+        w.document()->reset(*start);
+        const std::string before = writeProject(w.document()->project());
+        w.document()->setSelectedStep(0);
+        QComboBox* kind = w.editor()->targetBox();
+        const int rated = kind->findText(QStringLiteral("rated: what the exchanger reaches"));
+        QVERIFY(rated >= 0);
+        kind->setCurrentIndex(rated);
+        emit kind->activated(rated);
+        QCOMPARE(writeProject(w.document()->project()), before);
+        QVERIFY2(w.editor()->problem().contains(QStringLiteral("needs the exchanger")), qPrintable(w.editor()->problem()));
+
+        // The file that edit would have written: the reader refuses it for the same reason.
+        Json j = Json::parse(kText);
+        j["steps"][0]["to"] = Json{{"rated", true}};
+        auto read = parseProject(j.dump(2), "bounds");
+        QVERIFY(!read);
+        QVERIFY2(read.error().message.find("needs the exchanger") != std::string::npos, read.error().text().c_str());
+
+        // Another step selected: the reason, which was about the first, goes.
+        w.document()->setSelectedStep(1);
+        QVERIFY(w.editor()->problem().isEmpty());
+    }
 };
 
 QTEST_MAIN(BoundsTest)

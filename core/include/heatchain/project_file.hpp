@@ -16,12 +16,12 @@ inline constexpr int kProjectFormatVersion = 1;
 Result<Project> parseProject(std::string_view text, std::string_view fileName = {});
 Result<Project> loadProject(const std::filesystem::path& file);
 
-// A project edited in code (a settings dialog, a utilities table) as the
-// file's reader holds it: every quantity's SI value worked out again from its
-// text under the project's own atmosphere (a new atmosphere moves every gauge
-// pressure), the substance resolved, and every rule of the file format
-// checked, the error naming the field. It reads the project through the one
-// reader, so an edit is held to exactly the rules a saved file is.
+// A project edited in code (a settings dialog, the step panel, a utilities
+// table) as the file's reader would hold it: every quantity's SI value worked
+// out again from its text under the project's own atmosphere (a new
+// atmosphere moves every gauge pressure), the substance resolved, and every
+// rule a file is held to (project_rules.hpp, which the reader applies too)
+// checked; the error names the field ("step \"pump\" (steps[2]).to.ratio").
 Result<Project> resolveProject(const Project& project);
 
 // Writes the project: fixed key order, 2-space indent, quantities as typed,

@@ -37,10 +37,6 @@ NumberRange rangeOf(BoundedField field);
 // would be valid ("a fraction must be in (0, 1]; found 0").
 std::optional<std::string> checkBounded(BoundedField field, double value);
 
-// Every bounded field of a step against its range. The error's `where` is
-// the field's path inside the step ("to.ratio", "efficiency").
-Status validateStep(const Step& step);
-
 // ---- Approach ------------------------------------------------------------
 // Whether a closest approach (StepUtility::minApproach, found by the solver)
 // is below the worksheet's required minimum approach. Only a utility is held
