@@ -254,35 +254,6 @@ std::string formatJsonPath(const JsonPath& path) {
     return out;
 }
 
-JsonPath parseDottedPath(std::string_view text) {
-    JsonPath out;
-    std::size_t pos = 0;
-    while (pos < text.size()) {
-        if (text[pos] == '.') {
-            ++pos;
-            continue;
-        }
-        if (text[pos] == '[') {
-            const std::size_t close = text.find(']', pos);
-            if (close == std::string_view::npos) break;
-            long index = -1;
-            const auto digits = text.substr(pos + 1, close - pos - 1);
-            const auto r = std::from_chars(digits.data(), digits.data() + digits.size(), index);
-            if (r.ec == std::errc() && index >= 0)
-                out.push_back({"", index});
-            else
-                out.push_back({std::string(digits), -1});
-            pos = close + 1;
-            continue;
-        }
-        const std::size_t end = text.find_first_of(".[", pos);
-        const std::size_t stop = end == std::string_view::npos ? text.size() : end;
-        out.push_back({std::string(text.substr(pos, stop - pos)), -1});
-        pos = stop;
-    }
-    return out;
-}
-
 PrescanResult prescanJson(std::string_view text, int maxDepth, std::size_t maxValues) {
     PrescanResult r;
     std::size_t values = 0;

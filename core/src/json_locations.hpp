@@ -33,8 +33,6 @@ JsonPath child(const JsonPath& parent, std::string key);
 JsonPath child(const JsonPath& parent, long index);
 // "steps[2].to.T"; keys that are not plain names are written ["like this"].
 std::string formatJsonPath(const JsonPath& path);
-// Reads "substance.phases.liquid.cp[2]" back (the form parseSubstance uses).
-JsonPath parseDottedPath(std::string_view text);
 
 // What nlohmann/json's parser does not check, found before it runs: nesting
 // deeper than maxDepth (refused before any recursive code sees it), a key

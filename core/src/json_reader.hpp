@@ -1,9 +1,11 @@
 #pragma once
 // Reading JSON input so that every error names where it is: the JSON path
 // (with the step id where there is one) and the line:column of the value.
-// The project file's reader reads through JsonReader; a failure is thrown as
-// ReadFailure inside the reading code and turned into an Error value at the
-// public entry point (parseProject), so nothing escapes core as an exception.
+// The project file's reader and the substance reader (substance_fields.hpp)
+// read through JsonReader; a failure is thrown as ReadFailure inside the
+// reading code and turned into an Error value at the public entry point
+// (parseProject, parseSubstance, SubstanceLibrary), so nothing escapes core
+// as an exception.
 #include <cmath>
 #include <cstdlib>
 #include <initializer_list>
@@ -23,7 +25,8 @@
 
 namespace heatchain::detail {
 
-// Thrown by JsonReader::fail; caught where reading starts (parseProject).
+// Thrown by JsonReader::fail; caught where reading starts (parseProject,
+// parseSubstance, SubstanceLibrary::fromJsonTexts).
 struct ReadFailure {
     Error error;
 };
@@ -67,8 +70,17 @@ inline std::string listOf(std::span<const std::string_view> items) {
 
 class JsonReader {
 public:
-    JsonReader(std::string_view text, std::string_view file, const Json& root)
-        : text_(text), file_(file), root_(root) {}
+    // How a path is labelled: a project names its steps by their ids; any
+    // other document (a substance library file) by the path alone.
+    enum class Labels { ProjectSteps, PathOnly };
+
+    // `text` is the document `root` was parsed from; every path is a path
+    // from that root (a project's custom substance is read at ["substance"],
+    // a library file at the root). An empty text, for a value built in
+    // memory rather than read from a file, gives errors without line:column.
+    JsonReader(std::string_view text, std::string_view file, const Json& root,
+               Labels labels = Labels::ProjectSteps)
+        : text_(text), file_(file), root_(root), labels_(labels) {}
 
     UnitContext units;
 
@@ -76,7 +88,8 @@ public:
     // is unknown, prefixed with the file name when there is one.
     std::string label(const JsonPath& path) const {
         std::string where;
-        if (path.size() >= 2 && path[0].index < 0 && path[0].key == "steps" && path[1].index >= 0) {
+        if (labels_ == Labels::ProjectSteps && path.size() >= 2 && path[0].index < 0 && path[0].key == "steps" &&
+            path[1].index >= 0) {
             const Json* steps = member(root_, "steps");
             const Json* id = nullptr;
             if (steps && steps->is_array() && static_cast<std::size_t>(path[1].index) < steps->size())
@@ -98,6 +111,7 @@ public:
 
     Error errorAt(const JsonPath& path, std::string message) const {
         Error e = makeError(std::move(message), label(path));
+        if (text_.empty()) return e;
         const auto pos = detail::positionOfOffset(text_, detail::locateJsonValue(text_, path));
         e.line = pos.line;
         e.column = pos.column;
@@ -216,6 +230,7 @@ private:
     std::string_view text_;
     std::string_view file_;
     const Json& root_;
+    Labels labels_;
     mutable std::optional<std::unordered_map<std::string, std::size_t>> numberAt_;
 };
 

@@ -30,6 +30,7 @@
 #include <vector>
 
 #include "project_file_parts.hpp"
+#include "substance_fields.hpp"
 
 namespace heatchain {
 
@@ -59,7 +60,7 @@ void readMeta(const Reader& r, const Json& v, Meta& meta) {
     meta.extra = Reader::unknownFields(v, detail::kMetaKeys);
 }
 
-void readSubstance(const Reader& r, const Json& v, std::string_view text, std::string_view file, Project& p) {
+void readSubstance(const Reader& r, const Json& v, Project& p) {
     const JsonPath path{{"substance", -1}};
     if (v.is_string()) {
         const std::string& id = v.get_ref<const std::string&>();
@@ -78,18 +79,9 @@ void readSubstance(const Reader& r, const Json& v, std::string_view text, std::s
     if (!v.is_object())
         r.fail(path, "expected a substance id such as \"water\" or a substance definition object; found " +
                          jsonTypeName(v));
-    auto s = parseSubstance(v, "substance", r.units);
-    if (!s) {
-        // Locate the field parseSubstance names ("substance.melting.T").
-        Error e = s.error();
-        const std::string inner = e.where.empty() ? std::string("substance") : e.where;
-        const JsonPath innerPath = detail::parseDottedPath(inner);
-        const auto pos = detail::positionOfOffset(text, detail::locateJsonValue(text, innerPath));
-        e.where = file.empty() ? inner : std::string(file) + ": " + inner;
-        e.line = pos.line;
-        e.column = pos.column;
-        throw Failure{e};
-    }
+    // Read through this file's reader: an error names its path under
+    // "substance" and its line:column in this file.
+    std::optional<Substance> s = detail::readSubstanceDefinition(r, v, path);
     p.substance = std::move(*s);
     p.substance.custom = true;
     p.substanceId = p.substance.id;
@@ -290,7 +282,7 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
 
     const Json* substance = member(root, "substance");
     if (!substance) r.fail(top, "\"substance\" is missing: a library id such as \"water\" or a definition object");
-    readSubstance(r, *substance, text, file, p);
+    readSubstance(r, *substance, p);
 
     const Json* basis = member(root, "basis");
     if (!basis)

@@ -1,6 +1,8 @@
 // Reading substance definitions: the library's JSON files (resources/
 // substances/<id>.json) and a project file's custom substance object share one
-// parser, so both spellings stay the same. Every error names its JSON path.
+// reader, so both spellings stay the same. Every field is read through
+// JsonReader (substance_fields.hpp), so an error names its JSON path and,
+// where the definition came from a text, the line:column.
 #include "heatchain/substance.hpp"
 
 #include <algorithm>
@@ -18,84 +20,67 @@
 namespace heatchain {
 namespace {
 
-using Json = nlohmann::ordered_json;
+using detail::child;
+using detail::JsonPath;
+using detail::JsonReader;
+using detail::member;
 using namespace detail::substance_fields;
 
 // "source": "citation", or { "text": "citation", "confirmed": false } for a
 // value not independently confirmed against the publication it cites.
-void addSource(Substance& s, const Json& block, std::string_view field, std::string_view where, Status& st) {
-    auto it = block.find("source");
-    if (it != block.end() && it->is_object()) {
-        const std::string path = join(where, "source");
-        if (auto ok = checkKeys(*it, path, {"text", "confirmed"}); !ok) {
-            st = ok.error();
-            return;
-        }
-        auto text = stringAt(*it, "text", path, true);
-        if (!text) {
-            st = text.error();
-            return;
-        }
+void addSource(const JsonReader& r, Substance& s, const Json& block, std::string_view field, const JsonPath& path) {
+    const Json* src = member(block, "source");
+    if (src && src->is_object()) {
+        const JsonPath sp = child(path, "source");
+        checkKeys(r, *src, sp, {"text", "confirmed"});
+        std::string text = stringAt(r, *src, sp, "text", true);
         bool confirmed = true;
-        if (auto c = it->find("confirmed"); c != it->end()) {
-            if (!c->is_boolean()) {
-                st = makeError("must be true or false", join(path, "confirmed"));
-                return;
-            }
+        if (const Json* c = member(*src, "confirmed")) {
+            if (!c->is_boolean()) r.fail(child(sp, "confirmed"), "must be true or false");
             confirmed = c->get<bool>();
         }
-        s.sources.push_back({std::string(field), *text, confirmed});
+        s.sources.push_back({std::string(field), std::move(text), confirmed});
         return;
     }
-    auto src = stringAt(block, "source", where, false);
-    if (!src) {
-        st = src.error();
-        return;
-    }
-    if (!src->empty()) s.sources.push_back({std::string(field), *src, true});
+    std::string text = stringAt(r, block, path, "source", false);
+    if (!text.empty()) s.sources.push_back({std::string(field), std::move(text), true});
 }
 
-Result<PhaseChangeData> parsePhaseChange(const Json& block, const std::string& path, bool allowEnthalpyAt,
-                                         const std::optional<CriticalPoint>& critical, const UnitContext& uc) {
-    if (allowEnthalpyAt) {
-        if (auto ok = checkKeys(block, path, {"T", "P", "enthalpy", "enthalpyAt", "source"}); !ok) return ok.error();
-    } else if (auto ok = checkKeys(block, path, {"T", "P", "enthalpy", "source"}); !ok) {
-        return ok.error();
-    }
+PhaseChangeData readPhaseChange(const JsonReader& r, const Json& block, const JsonPath& path, bool allowEnthalpyAt,
+                                const std::optional<CriticalPoint>& critical) {
+    if (allowEnthalpyAt)
+        checkKeys(r, block, path, {"T", "P", "enthalpy", "enthalpyAt", "source"});
+    else
+        checkKeys(r, block, path, {"T", "P", "enthalpy", "source"});
     PhaseChangeData d;
-    auto T = positive(temperatureAt(block, "T", path, uc), join(path, "T"));
-    if (!T) return T.error();
-    d.T = *T;
-    auto P = optionalQuantity(block, "P", Dimension::Pressure, path, uc);
-    if (!P) return P.error();
-    d.P = P->value_or(kStandardAtmosphere);
-    if (!(d.P > 0)) return makeError("must be positive", join(path, "P"));
-    auto h = positive(requiredQuantity(block, "enthalpy", Dimension::SpecificEnergy, path, uc), join(path, "enthalpy"));
-    if (!h) return h.error();
-    d.enthalpy = *h;
+    d.T = positive(r, temperatureAt(r, block, path, "T"), child(path, "T"));
+    d.P = optionalQuantity(r, block, path, "P", Dimension::Pressure).value_or(kStandardAtmosphere);
+    if (!(d.P > 0)) r.fail(child(path, "P"), "must be positive");
+    const JsonPath hPath = child(path, "enthalpy");
+    d.enthalpy = positive(r, requiredQuantity(r, block, path, "enthalpy", Dimension::SpecificEnergy), hPath);
     if (block.contains("enthalpyAt")) {
         // The latent heat was measured at another temperature: carry it to the
         // anchor by the Watson relation (latent_heat.hpp).
-        auto T1 = positive(temperatureAt(block, "enthalpyAt", path, uc), join(path, "enthalpyAt"));
-        if (!T1) return T1.error();
+        const JsonPath atPath = child(path, "enthalpyAt");
+        const double T1 = positive(r, temperatureAt(r, block, path, "enthalpyAt"), atPath);
         if (!critical)
-            return makeError("converting the latent heat to the anchor temperature needs the critical temperature "
-                             "(critical block)",
-                             join(path, "enthalpyAt"));
-        if (!(*T1 < critical->T) || !(d.T < critical->T))
-            return makeError("both temperatures must lie below the critical temperature", join(path, "enthalpyAt"));
-        d.enthalpy = watsonLatentHeat(d.enthalpy, *T1, d.T, critical->T);
+            r.fail(atPath,
+                   "converting the latent heat to the anchor temperature needs the critical temperature "
+                   "(critical block)");
+        if (!(T1 < critical->T) || !(d.T < critical->T))
+            r.fail(atPath, "both temperatures must lie below the critical temperature");
+        d.enthalpy = watsonLatentHeat(d.enthalpy, T1, d.T, critical->T);
     }
     return d;
 }
 
 // Library molar volumes ("-3.6e-6 m3/mol"): the volume and amount units are
 // converted by units.cpp separately, as there is no molar-volume dimension.
-Result<double> molarVolumeOf(const Json& value, const std::string& path, const UnitContext& uc) {
-    if (!value.is_string()) return makeError("must be a quantity string such as \"-3.6e-6 m3/mol\"", path);
-    const std::string text = value.get<std::string>();
+double molarVolumeOf(const JsonReader& r, const Json& value, const JsonPath& path) {
+    if (!value.is_string()) r.fail(path, "must be a quantity string such as \"-3.6e-6 m3/mol\"");
+    const std::string& text = value.get_ref<const std::string&>();
     const auto slash = text.rfind('/');
-    if (slash == std::string::npos) return makeError("needs a volume per amount unit, e.g. m3/mol or cm3/mol", path);
+    if (slash == std::string::npos) r.fail(path, "needs a volume per amount unit, e.g. m3/mol or cm3/mol");
     std::string volumeText = text.substr(0, slash);
     const std::string amountUnit = text.substr(slash + 1);
     // A volume shift may be negative; units.cpp refuses negative volumes, so
@@ -111,10 +96,10 @@ Result<double> molarVolumeOf(const Json& value, const std::string& path, const U
         volumeText.replace(pos, 3, "m3");
         scale = 1e-6;
     }
-    auto vol = parseQuantity(volumeText, Dimension::Volume, uc);
-    if (!vol) return makeError(vol.error().message + " (a molar volume, e.g. \"-3.6e-6 m3/mol\")", path);
-    auto amount = toSI(1.0, amountUnit, Dimension::Amount, uc);
-    if (!amount) return makeError("unknown amount unit \"" + amountUnit + "\"; valid: mol, kmol", path);
+    auto vol = parseQuantity(volumeText, Dimension::Volume, r.units);
+    if (!vol) r.fail(path, vol.error().message + " (a molar volume, e.g. \"-3.6e-6 m3/mol\")");
+    auto amount = toSI(1.0, amountUnit, Dimension::Amount, r.units);
+    if (!amount) r.fail(path, "unknown amount unit \"" + amountUnit + "\"; valid: mol, kmol");
     return sign * *vol * scale / *amount;
 }
 
@@ -178,98 +163,136 @@ std::string hazardSentence(const Substance& s) {
 
 namespace {
 
-Result<Substance> parseImpl(const Json& j, std::string_view where, const UnitContext& uc) {
-    if (!j.is_object()) return makeError("a substance must be a JSON object", std::string(where));
-    if (auto ok = checkKeys(j, where,
-                            {"id", "name", "formula", "cas", "molarMass", "critical", "triple", "melting", "boiling",
-                             "sublimation", "phases", "pengRobinson", "hazards", "source", "uncertainty"});
-        !ok)
-        return ok.error();
+// Molar mass: "28.0134 g/mol" or { "value": ..., "source": ... }.
+double readMolarMass(const JsonReader& r, const Json& j, const JsonPath& where, Substance& s) {
+    const JsonPath path = child(where, "molarMass");
+    const Json* m = member(j, "molarMass");
+    if (!m) r.fail(path, "missing (a molar mass such as \"18.015 g/mol\")");
+    if (!m->is_object()) return positive(r, quantityOf(r, *m, path, Dimension::MolarMass), path);
+    checkKeys(r, *m, path, {"value", "source"});
+    const JsonPath vPath = child(path, "value");
+    const Json* v = member(*m, "value");
+    if (!v) r.fail(vPath, "missing");
+    const double M = positive(r, quantityOf(r, *v, vPath, Dimension::MolarMass), vPath);
+    addSource(r, s, *m, "molarMass", path);
+    return M;
+}
+
+void readCritical(const JsonReader& r, const Json& b, const JsonPath& path, Substance& s) {
+    checkKeys(r, b, path, {"T", "P", "acentricFactor", "rho", "source"});
+    CriticalPoint cp;
+    cp.T = positive(r, temperatureAt(r, b, path, "T"), child(path, "T"));
+    cp.P = positive(r, requiredQuantity(r, b, path, "P", Dimension::Pressure), child(path, "P"));
+    cp.acentricFactor = optionalQuantity(r, b, path, "acentricFactor", Dimension::Dimensionless).value_or(0.0);
+    cp.rho = optionalQuantity(r, b, path, "rho", Dimension::Density);
+    if (cp.rho && !(*cp.rho > 0)) r.fail(child(path, "rho"), "must be positive");
+    s.critical = cp;
+    addSource(r, s, b, "critical", path);
+}
+
+void readTriple(const JsonReader& r, const Json& b, const JsonPath& path, Substance& s) {
+    checkKeys(r, b, path, {"T", "P", "source"});
+    const double T = positive(r, temperatureAt(r, b, path, "T"), child(path, "T"));
+    const double P = positive(r, requiredQuantity(r, b, path, "P", Dimension::Pressure), child(path, "P"));
+    s.triple = TriplePoint{T, P};
+    addSource(r, s, b, "triple", path);
+}
+
+void readPhases(const JsonReader& r, const Json& phases, const JsonPath& path, Substance& s) {
+    checkKeys(r, phases, path, {"solid", "liquid", "vapor"});
+    struct PhaseBlock {
+        const char* key;
+        std::optional<HeatCapacity>* cp;
+        std::optional<double>* density;
+    };
+    for (const PhaseBlock& pb : {PhaseBlock{"solid", &s.cpSolid, &s.solidDensity},
+                                 PhaseBlock{"liquid", &s.cpLiquid, &s.liquidDensity},
+                                 PhaseBlock{"vapor", &s.cpVapor, nullptr}}) {
+        const Json* b = objectAt(r, phases, path, pb.key, false);
+        if (!b) continue;
+        const JsonPath pp = child(path, pb.key);
+        if (pb.density)
+            checkKeys(r, *b, pp, {"cp", "density", "source"});
+        else
+            checkKeys(r, *b, pp, {"cp", "source"});
+        if (const Json* cp = member(*b, "cp")) *pb.cp = readHeatCapacity(r, *cp, child(pp, "cp"), s.molarMass);
+        if (pb.density) {
+            *pb.density = optionalQuantity(r, *b, pp, "density", Dimension::Density);
+            if (*pb.density && !(**pb.density > 0)) r.fail(child(pp, "density"), "must be positive");
+        }
+        addSource(r, s, *b, "phases." + std::string(pb.key), pp);
+    }
+}
+
+void readPengRobinson(const JsonReader& r, const Json& b, const JsonPath& path, Substance& s) {
+    checkKeys(r, b, path, {"twu", "volumeShift", "source"});
+    PengRobinsonData pr;
+    if (const Json* twu = objectAt(r, b, path, "twu", false)) {
+        const JsonPath tp = child(path, "twu");
+        checkKeys(r, *twu, tp, {"L", "M", "N"});
+        std::optional<double>* out[3] = {&pr.twuL, &pr.twuM, &pr.twuN};
+        const char* keys[3] = {"L", "M", "N"};
+        for (int i = 0; i < 3; ++i) {
+            const Json* x = member(*twu, keys[i]);
+            if (!x) r.fail(child(tp, keys[i]), "missing (Twu alpha needs L, M and N)");
+            *out[i] = coefficientOf(r, *x, child(tp, keys[i]));
+        }
+    }
+    if (const Json* c = member(b, "volumeShift")) pr.volumeShift = molarVolumeOf(r, *c, child(path, "volumeShift"));
+    s.pengRobinson = pr;
+    addSource(r, s, b, "pengRobinson", path);
+}
+
+// "hazards": { "classes": ["toxic", ...], "source": "..." }
+void readHazards(const JsonReader& r, const Json& b, const JsonPath& path, Substance& s) {
+    checkKeys(r, b, path, {"classes", "source"});
+    const JsonPath cPath = child(path, "classes");
+    const Json* classes = member(b, "classes");
+    if (!classes || !classes->is_array()) r.fail(cPath, "expected a list of hazard classes");
+    for (std::size_t i = 0; i < classes->size(); ++i) {
+        const Json& v = (*classes)[i];
+        std::optional<Hazard> h;
+        if (v.is_string())
+            for (const auto& [k, id] : kHazardIds)
+                if (v.get_ref<const std::string&>() == id) h = k;
+        if (!h) {
+            std::string valid;
+            for (const auto& [k, id] : kHazardIds) {
+                if (!valid.empty()) valid += ", ";
+                valid += id;
+            }
+            r.fail(child(cPath, static_cast<long>(i)), "unknown hazard class " + v.dump() + "; valid: " + valid);
+        }
+        if (std::find(s.hazards.begin(), s.hazards.end(), *h) == s.hazards.end()) s.hazards.push_back(*h);
+    }
+    addSource(r, s, b, "hazards", path);
+}
+
+}  // namespace
+
+Substance detail::readSubstanceDefinition(const JsonReader& r, const Json& j, const JsonPath& where) {
+    if (!j.is_object()) r.fail(where, "a substance must be a JSON object");
+    checkKeys(r, j, where,
+              {"id", "name", "formula", "cas", "molarMass", "critical", "triple", "melting", "boiling", "sublimation",
+               "phases", "pengRobinson", "hazards", "source", "uncertainty"});
     Substance s;
     s.custom = true;  // the library loader marks its own substances
-    Status st = Ok{};
 
-    auto id = stringAt(j, "id", where, true);
-    if (!id) return id.error();
-    if (id->empty() || !std::all_of(id->begin(), id->end(), [](char c) {
+    s.id = stringAt(r, j, where, "id", true);
+    if (s.id.empty() || !std::all_of(s.id.begin(), s.id.end(), [](char c) {
             return (c >= 'a' && c <= 'z') || (c >= '0' && c <= '9') || c == '-';
         }))
-        return makeError("\"" + *id + "\" is not a valid id: use lower-case letters, digits and hyphens (\"n-hexane\")",
-                         join(where, "id"));
-    s.id = *id;
-    auto name = stringAt(j, "name", where, true);
-    if (!name) return name.error();
-    if (name->empty()) return makeError("must not be empty", join(where, "name"));
-    s.name = *name;
-    auto formula = stringAt(j, "formula", where, false);
-    if (!formula) return formula.error();
-    s.formula = *formula;
-    auto cas = stringAt(j, "cas", where, false);
-    if (!cas) return cas.error();
-    s.casNumber = *cas;
-    addSource(s, j, "substance", where, st);
-    if (!st) return st.error();
+        r.fail(child(where, "id"),
+               "\"" + s.id + "\" is not a valid id: use lower-case letters, digits and hyphens (\"n-hexane\")");
+    s.name = stringAt(r, j, where, "name", true);
+    if (s.name.empty()) r.fail(child(where, "name"), "must not be empty");
+    s.formula = stringAt(r, j, where, "formula", false);
+    s.casNumber = stringAt(r, j, where, "cas", false);
+    addSource(r, s, j, "substance", where);
+    s.molarMass = readMolarMass(r, j, where, s);
 
-    // Molar mass: "28.0134 g/mol" or { "value": ..., "source": ... }.
-    {
-        auto it = j.find("molarMass");
-        const std::string path = join(where, "molarMass");
-        if (it == j.end()) return makeError("missing (a molar mass such as \"18.015 g/mol\")", path);
-        Result<double> M = makeError("", path);
-        if (it->is_object()) {
-            if (auto ok = checkKeys(*it, path, {"value", "source"}); !ok) return ok.error();
-            auto v = it->find("value");
-            if (v == it->end()) return makeError("missing", join(path, "value"));
-            M = positive(quantityOf(*v, Dimension::MolarMass, join(path, "value"), uc), join(path, "value"));
-            addSource(s, *it, "molarMass", path, st);
-            if (!st) return st.error();
-        } else {
-            M = positive(quantityOf(*it, Dimension::MolarMass, path, uc), path);
-        }
-        if (!M) return M.error();
-        s.molarMass = *M;
-    }
-
-    if (auto c = objectAt(j, "critical", where, false); !c) {
-        return c.error();
-    } else if (*c) {
-        const Json& b = **c;
-        const std::string path = join(where, "critical");
-        if (auto ok = checkKeys(b, path, {"T", "P", "acentricFactor", "rho", "source"}); !ok) return ok.error();
-        CriticalPoint cp;
-        auto T = positive(temperatureAt(b, "T", path, uc), join(path, "T"));
-        if (!T) return T.error();
-        auto P = positive(requiredQuantity(b, "P", Dimension::Pressure, path, uc), join(path, "P"));
-        if (!P) return P.error();
-        cp.T = *T;
-        cp.P = *P;
-        auto w = optionalQuantity(b, "acentricFactor", Dimension::Dimensionless, path, uc);
-        if (!w) return w.error();
-        cp.acentricFactor = w->value_or(0.0);
-        auto rho = optionalQuantity(b, "rho", Dimension::Density, path, uc);
-        if (!rho) return rho.error();
-        if (*rho && !(**rho > 0)) return makeError("must be positive", join(path, "rho"));
-        cp.rho = *rho;
-        s.critical = cp;
-        addSource(s, b, "critical", path, st);
-        if (!st) return st.error();
-    }
-
-    if (auto c = objectAt(j, "triple", where, false); !c) {
-        return c.error();
-    } else if (*c) {
-        const Json& b = **c;
-        const std::string path = join(where, "triple");
-        if (auto ok = checkKeys(b, path, {"T", "P", "source"}); !ok) return ok.error();
-        auto T = positive(temperatureAt(b, "T", path, uc), join(path, "T"));
-        if (!T) return T.error();
-        auto P = positive(requiredQuantity(b, "P", Dimension::Pressure, path, uc), join(path, "P"));
-        if (!P) return P.error();
-        s.triple = TriplePoint{*T, *P};
-        addSource(s, b, "triple", path, st);
-        if (!st) return st.error();
-    }
-
+    if (const Json* b = objectAt(r, j, where, "critical", false)) readCritical(r, *b, child(where, "critical"), s);
+    if (const Json* b = objectAt(r, j, where, "triple", false)) readTriple(r, *b, child(where, "triple"), s);
     struct ChangeBlock {
         const char* key;
         std::optional<PhaseChangeData>* target;
@@ -277,157 +300,50 @@ Result<Substance> parseImpl(const Json& j, std::string_view where, const UnitCon
     };
     for (const ChangeBlock& cb : {ChangeBlock{"melting", &s.melting, false}, ChangeBlock{"boiling", &s.boiling, true},
                                   ChangeBlock{"sublimation", &s.sublimation, false}}) {
-        auto c = objectAt(j, cb.key, where, false);
-        if (!c) return c.error();
-        if (!*c) continue;
-        const std::string path = join(where, cb.key);
-        auto d = parsePhaseChange(**c, path, cb.enthalpyAt, s.critical, uc);
-        if (!d) return d.error();
-        *cb.target = *d;
-        addSource(s, **c, cb.key, path, st);
-        if (!st) return st.error();
+        const Json* b = objectAt(r, j, where, cb.key, false);
+        if (!b) continue;
+        const JsonPath path = child(where, cb.key);
+        *cb.target = readPhaseChange(r, *b, path, cb.enthalpyAt, s.critical);
+        addSource(r, s, *b, cb.key, path);
     }
-
-    if (auto c = objectAt(j, "phases", where, false); !c) {
-        return c.error();
-    } else if (*c) {
-        const Json& phases = **c;
-        const std::string path = join(where, "phases");
-        if (auto ok = checkKeys(phases, path, {"solid", "liquid", "vapor"}); !ok) return ok.error();
-        struct PhaseBlock {
-            const char* key;
-            std::optional<HeatCapacity>* cp;
-            std::optional<double>* density;
-        };
-        for (const PhaseBlock& pb : {PhaseBlock{"solid", &s.cpSolid, &s.solidDensity},
-                                     PhaseBlock{"liquid", &s.cpLiquid, &s.liquidDensity},
-                                     PhaseBlock{"vapor", &s.cpVapor, nullptr}}) {
-            auto b = objectAt(phases, pb.key, path, false);
-            if (!b) return b.error();
-            if (!*b) continue;
-            const std::string pp = join(path, pb.key);
-            if (pb.density) {
-                if (auto ok = checkKeys(**b, pp, {"cp", "density", "source"}); !ok) return ok.error();
-            } else if (auto ok = checkKeys(**b, pp, {"cp", "source"}); !ok) {
-                return ok.error();
-            }
-            if (auto cpj = (*b)->find("cp"); cpj != (*b)->end()) {
-                auto hc = parseHeatCapacity(*cpj, join(pp, "cp"), s.molarMass, uc);
-                if (!hc) return hc.error();
-                *pb.cp = std::move(*hc);
-            }
-            if (pb.density) {
-                auto rho = optionalQuantity(**b, "density", Dimension::Density, pp, uc);
-                if (!rho) return rho.error();
-                if (*rho && !(**rho > 0)) return makeError("must be positive", join(pp, "density"));
-                *pb.density = *rho;
-            }
-            addSource(s, **b, "phases." + std::string(pb.key), pp, st);
-            if (!st) return st.error();
-        }
-    }
-
-    if (auto c = objectAt(j, "pengRobinson", where, false); !c) {
-        return c.error();
-    } else if (*c) {
-        const Json& b = **c;
-        const std::string path = join(where, "pengRobinson");
-        if (auto ok = checkKeys(b, path, {"twu", "volumeShift", "source"}); !ok) return ok.error();
-        PengRobinsonData pr;
-        auto twu = objectAt(b, "twu", path, false);
-        if (!twu) return twu.error();
-        if (*twu) {
-            const std::string tp = join(path, "twu");
-            if (auto ok = checkKeys(**twu, tp, {"L", "M", "N"}); !ok) return ok.error();
-            std::optional<double>* out[3] = {&pr.twuL, &pr.twuM, &pr.twuN};
-            const char* keys[3] = {"L", "M", "N"};
-            for (int i = 0; i < 3; ++i) {
-                auto it = (*twu)->find(keys[i]);
-                if (it == (*twu)->end()) return makeError("missing (Twu alpha needs L, M and N)", join(tp, keys[i]));
-                auto x = coefficientOf(*it, join(tp, keys[i]));
-                if (!x) return x.error();
-                *out[i] = *x;
-            }
-        }
-        if (auto it = b.find("volumeShift"); it != b.end()) {
-            auto c2 = molarVolumeOf(*it, join(path, "volumeShift"), uc);
-            if (!c2) return c2.error();
-            pr.volumeShift = *c2;
-        }
-        s.pengRobinson = pr;
-        addSource(s, b, "pengRobinson", path, st);
-        if (!st) return st.error();
-    }
-
-    // "hazards": { "classes": ["toxic", ...], "source": "..." }
-    if (auto c = objectAt(j, "hazards", where, false); !c) {
-        return c.error();
-    } else if (*c) {
-        const Json& b = **c;
-        const std::string path = join(where, "hazards");
-        if (auto ok = checkKeys(b, path, {"classes", "source"}); !ok) return ok.error();
-        auto it = b.find("classes");
-        if (it == b.end() || !it->is_array()) return makeError("expected a list of hazard classes", join(path, "classes"));
-        for (std::size_t i = 0; i < it->size(); ++i) {
-            const std::string ip = join(path, "classes") + "[" + std::to_string(i) + "]";
-            const Json& v = (*it)[i];
-            std::optional<Hazard> h;
-            if (v.is_string())
-                for (const auto& [k, id] : kHazardIds)
-                    if (v.get_ref<const std::string&>() == id) h = k;
-            if (!h) {
-                std::string valid;
-                for (const auto& [k, id] : kHazardIds) {
-                    if (!valid.empty()) valid += ", ";
-                    valid += id;
-                }
-                return makeError("unknown hazard class " + v.dump() + "; valid: " + valid, ip);
-            }
-            if (std::find(s.hazards.begin(), s.hazards.end(), *h) == s.hazards.end()) s.hazards.push_back(*h);
-        }
-        addSource(s, b, "hazards", path, st);
-        if (!st) return st.error();
-    }
+    if (const Json* b = objectAt(r, j, where, "phases", false)) readPhases(r, *b, child(where, "phases"), s);
+    if (const Json* b = objectAt(r, j, where, "pengRobinson", false))
+        readPengRobinson(r, *b, child(where, "pengRobinson"), s);
+    if (const Json* b = objectAt(r, j, where, "hazards", false)) readHazards(r, *b, child(where, "hazards"), s);
 
     // Cross-checks between blocks that a typing slip would break.
     // Equal is allowed: a boiling anchor may be the triple point (carbon dioxide).
+    const JsonPath boilingT = child(child(where, "boiling"), "T");
     if (s.melting && s.boiling && !(s.melting->T <= s.boiling->T))
-        return makeError("the melting temperature must not lie above the boiling temperature", join(where, "boiling.T"));
+        r.fail(boilingT, "the melting temperature must not lie above the boiling temperature");
     if (s.critical && s.boiling && !(s.boiling->T < s.critical->T))
-        return makeError("the boiling temperature must lie below the critical temperature", join(where, "boiling.T"));
+        r.fail(boilingT, "the boiling temperature must lie below the critical temperature");
     return s;
 }
 
-// Line and column of a byte offset, for JSON syntax errors.
-void locate(std::string_view text, std::size_t byte, int& line, int& column) {
-    line = 1;
-    column = 1;
-    for (std::size_t i = 0; i < byte && i < text.size(); ++i) {
-        if (text[i] == '\n') {
-            ++line;
-            column = 1;
-        } else {
-            ++column;
-        }
-    }
-}
+namespace {
 
+// A library file: the definition is the whole text, and an error is labelled
+// with `name` (the file's path, or "texts[i]") and the path from its root.
 Result<Substance> parseText(std::string_view text, const std::string& name) {
     Json j;
     try {
         j = Json::parse(text);
     } catch (const Json::parse_error& e) {
         Error err = makeError("not valid JSON: " + std::string(e.what()), name);
-        locate(text, e.byte > 0 ? e.byte - 1 : 0, err.line, err.column);
+        const auto pos = detail::positionOfOffset(text, e.byte > 0 ? e.byte - 1 : 0);
+        err.line = pos.line;
+        err.column = pos.column;
         return err;
     }
-    std::string where = name;
-    if (j.is_object())
-        if (auto it = j.find("id"); it != j.end() && it->is_string()) where = it->get<std::string>();
-    auto s = parseImpl(j, where, UnitContext{});
-    if (!s) return s;
-    s->custom = false;
-    return s;
+    const JsonReader r(text, name, j, JsonReader::Labels::PathOnly);
+    try {
+        Substance s = detail::readSubstanceDefinition(r, j, {});
+        s.custom = false;
+        return s;
+    } catch (const detail::ReadFailure& f) {
+        return f.error;
+    }
 }
 
 }  // namespace
@@ -435,10 +351,17 @@ Result<Substance> parseText(std::string_view text, const std::string& name) {
 double Substance::gasConstant() const { return kGasConstant / molarMass; }
 
 Result<Substance> parseSubstance(const nlohmann::ordered_json& j, std::string_view where, const UnitContext& context) {
+    // No text: the errors name the path under `where` without a line:column.
+    JsonReader r({}, {}, j, JsonReader::Labels::PathOnly);
+    r.units = context;
+    JsonPath path;
+    if (!where.empty()) path.push_back({std::string(where), -1});
     // Nothing may escape core: nlohmann throws on a few type mismatches that the
-    // checks above are meant to prevent; a slip there still becomes an error value.
+    // checks are meant to prevent; a slip there still becomes an error value.
     try {
-        return parseImpl(j, where, context);
+        return detail::readSubstanceDefinition(r, j, path);
+    } catch (const detail::ReadFailure& f) {
+        return f.error;
     } catch (const std::exception& e) {
         return makeError(std::string("cannot read the substance: ") + e.what(), std::string(where));
     }

@@ -3,30 +3,21 @@
 #include "substance_fields.hpp"
 
 #include <algorithm>
-#include <array>
 #include <cmath>
 #include <utility>
+#include <vector>
 
 namespace heatchain::detail::substance_fields {
 
-std::string join(std::string_view where, std::string_view key) {
-    if (where.empty()) return std::string(key);
-    return std::string(where) + "." + std::string(key);
-}
-
 namespace {
-
-std::string index(std::string_view where, std::size_t i) {
-    return std::string(where) + "[" + std::to_string(i) + "]";
-}
 
 // Free-text keys allowed in any object beside the ones it defines.
 bool isNoteKey(std::string_view k) { return k == "notes" || k == "note" || k == "comment"; }
 
 }  // namespace
 
-// Unknown keys are errors: a misspelt "enthalpy" would otherwise drop data silently.
-Status checkKeys(const Json& obj, std::string_view where, std::initializer_list<std::string_view> known) {
+void checkKeys(const JsonReader& r, const Json& obj, const JsonPath& path,
+               std::initializer_list<std::string_view> known) {
     for (auto it = obj.begin(); it != obj.end(); ++it) {
         const std::string& k = it.key();
         if (isNoteKey(k)) continue;
@@ -38,245 +29,230 @@ Status checkKeys(const Json& obj, std::string_view where, std::initializer_list<
         }
         // Once, on the way out with an error; not worth an append chain.
         // NOLINTNEXTLINE(performance-inefficient-string-concatenation)
-        return makeError("unknown field \"" + k + "\"; expected one of: " + list, join(where, k));
+        r.fail(child(path, k), "unknown field \"" + k + "\"; expected one of: " + list);
     }
-    return Ok{};
 }
 
-Result<const Json*> objectAt(const Json& parent, std::string_view key, std::string_view where, bool required) {
-    auto it = parent.find(key);
-    if (it == parent.end()) {
-        if (required) return makeError("missing", join(where, key));
-        return static_cast<const Json*>(nullptr);
+const Json* objectAt(const JsonReader& r, const Json& parent, const JsonPath& path, std::string_view key,
+                     bool required) {
+    const Json* v = member(parent, key);
+    if (!v) {
+        if (required) r.fail(child(path, std::string(key)), "missing");
+        return nullptr;
     }
-    if (!it->is_object()) return makeError("must be an object", join(where, key));
-    return &*it;
+    if (!v->is_object()) r.fail(child(path, std::string(key)), "must be an object");
+    return v;
 }
 
-Result<std::string> stringAt(const Json& parent, std::string_view key, std::string_view where, bool required) {
-    auto it = parent.find(key);
-    if (it == parent.end()) {
-        if (required) return makeError("missing", join(where, key));
-        return std::string();
+std::string stringAt(const JsonReader& r, const Json& parent, const JsonPath& path, std::string_view key,
+                     bool required) {
+    const Json* v = member(parent, key);
+    if (!v) {
+        if (required) r.fail(child(path, std::string(key)), "missing");
+        return {};
     }
-    if (!it->is_string()) return makeError("must be a string", join(where, key));
-    return it->get<std::string>();
+    if (!v->is_string()) r.fail(child(path, std::string(key)), "must be a string");
+    return v->get<std::string>();
 }
 
-// A quantity string "<number> <unit>", or a JSON number for dimensionless fields.
-Result<double> quantityOf(const Json& value, Dimension d, const std::string& path, const UnitContext& uc) {
+double quantityOf(const JsonReader& r, const Json& value, const JsonPath& path, Dimension d) {
     if (value.is_number() && d == Dimension::Dimensionless) return value.get<double>();
     if (!value.is_string()) {
         if (value.is_number())
-            return makeError("a bare number needs a unit here: write it as \"<number> <unit>\" (a " +
-                                 std::string(dimensionName(d)) + ")",
-                             path);
-        return makeError("must be a quantity string \"<number> <unit>\" (a " + std::string(dimensionName(d)) + ")",
-                         path);
+            r.fail(path, "a bare number needs a unit here: write it as \"<number> <unit>\" (a " +
+                             std::string(dimensionName(d)) + ")");
+        r.fail(path, "must be a quantity string \"<number> <unit>\" (a " + std::string(dimensionName(d)) + ")");
     }
-    auto r = parseQuantity(value.get<std::string>(), d, uc);
-    if (!r) return makeError(r.error().message, path);
-    return *r;
+    auto q = parseQuantity(value.get_ref<const std::string&>(), d, r.units);
+    if (!q) r.fail(path, q.error().message);
+    return *q;
 }
 
-Result<std::optional<double>> optionalQuantity(const Json& parent, std::string_view key, Dimension d,
-                                               std::string_view where, const UnitContext& uc) {
-    auto it = parent.find(key);
-    if (it == parent.end()) return std::optional<double>();
-    auto r = quantityOf(*it, d, join(where, key), uc);
-    if (!r) return r.error();
-    return std::optional<double>(*r);
+std::optional<double> optionalQuantity(const JsonReader& r, const Json& parent, const JsonPath& path,
+                                       std::string_view key, Dimension d) {
+    const Json* v = member(parent, key);
+    if (!v) return std::nullopt;
+    return quantityOf(r, *v, child(path, std::string(key)), d);
 }
 
-Result<double> requiredQuantity(const Json& parent, std::string_view key, Dimension d, std::string_view where,
-                                const UnitContext& uc) {
-    auto it = parent.find(key);
-    if (it == parent.end()) return makeError("missing (a " + std::string(dimensionName(d)) + ")", join(where, key));
-    return quantityOf(*it, d, join(where, key), uc);
+double requiredQuantity(const JsonReader& r, const Json& parent, const JsonPath& path, std::string_view key,
+                        Dimension d) {
+    const Json* v = member(parent, key);
+    if (!v) r.fail(child(path, std::string(key)), "missing (a " + std::string(dimensionName(d)) + ")");
+    return quantityOf(r, *v, child(path, std::string(key)), d);
 }
 
-Result<double> positive(Result<double> r, const std::string& path) {
-    if (!r) return r;
-    if (!(*r > 0)) return makeError("must be positive", path);
-    return r;
+double temperatureAt(const JsonReader& r, const Json& parent, const JsonPath& path, std::string_view key) {
+    return requiredQuantity(r, parent, path, key, Dimension::Temperature);
 }
 
-Result<double> coefficientOf(const Json& value, const std::string& path) {
-    if (!value.is_number()) return makeError("must be a number", path);
+double positive(const JsonReader& r, double x, const JsonPath& path) {
+    if (!(x > 0)) r.fail(path, "must be positive");
+    return x;
+}
+
+double coefficientOf(const JsonReader& r, const Json& value, const JsonPath& path) {
+    if (!value.is_number()) r.fail(path, "must be a number");
     const double x = value.get<double>();
-    if (!std::isfinite(x)) return makeError("must be a finite number", path);
+    if (!std::isfinite(x)) r.fail(path, "must be a finite number");
     return x;
 }
 
 namespace {
 
 // A heat capacity as a quantity: per kilogram, or per mole and divided by M.
-Result<double> heatCapacityOf(const Json& value, const std::string& path, double M, const UnitContext& uc) {
+double heatCapacityOf(const JsonReader& r, const Json& value, const JsonPath& path, double M) {
     if (value.is_string()) {
-        auto perMass = parseQuantity(value.get<std::string>(), Dimension::SpecificEntropy, uc);
-        if (perMass) return positive(*perMass, path);
-        auto perMole = parseQuantity(value.get<std::string>(), Dimension::MolarEntropy, uc);
-        if (perMole) return positive(*perMole / M, path);
-        return makeError(perMass.error().message + " (a heat capacity per kilogram, e.g. \"4.18 kJ/(kg K)\", or per "
-                                                    "mole, e.g. \"75.3 J/(mol K)\")",
-                         path);
+        const std::string& text = value.get_ref<const std::string&>();
+        auto perMass = parseQuantity(text, Dimension::SpecificEntropy, r.units);
+        if (perMass) return positive(r, *perMass, path);
+        auto perMole = parseQuantity(text, Dimension::MolarEntropy, r.units);
+        if (perMole) return positive(r, *perMole / M, path);
+        r.fail(path, perMass.error().message +
+                         " (a heat capacity per kilogram, e.g. \"4.18 kJ/(kg K)\", or per mole, e.g. \"75.3 J/(mol "
+                         "K)\")");
     }
-    return quantityOf(value, Dimension::SpecificEntropy, path, uc);
+    return quantityOf(r, value, path, Dimension::SpecificEntropy);
 }
 
 // Factor from a polynomial's declared unit to J/(kg K).
-Result<double> cpUnitFactor(const Json& parent, std::string_view where, double M, const UnitContext& uc) {
-    auto unit = stringAt(parent, "unit", where, true);
-    if (!unit) return unit.error();
-    if (auto f = toSI(1.0, *unit, Dimension::SpecificEntropy, uc)) return *f;
-    if (auto f = toSI(1.0, *unit, Dimension::MolarEntropy, uc)) return *f / M;
-    return makeError("unknown heat-capacity unit \"" + *unit +
-                         "\"; valid: J/(kmol K), J/(mol K), J/(kg K), kJ/(kg K)",
-                     join(where, "unit"));
+double cpUnitFactor(const JsonReader& r, const Json& parent, const JsonPath& path, double M) {
+    const std::string unit = stringAt(r, parent, path, "unit", true);
+    if (auto f = toSI(1.0, unit, Dimension::SpecificEntropy, r.units)) return *f;
+    if (auto f = toSI(1.0, unit, Dimension::MolarEntropy, r.units)) return *f / M;
+    r.fail(child(path, "unit"),
+           "unknown heat-capacity unit \"" + unit + "\"; valid: J/(kmol K), J/(mol K), J/(kg K), kJ/(kg K)");
 }
 
-}  // namespace
-
-Result<double> temperatureAt(const Json& parent, std::string_view key, std::string_view where, const UnitContext& uc) {
-    return requiredQuantity(parent, key, Dimension::Temperature, where, uc);
-}
-
-namespace {
-
-Result<HeatCapacity> parseTable(const Json& cp, const std::string& path, double M, const UnitContext& uc) {
-    if (auto ok = checkKeys(cp, path, {"T", "cp", "degree"}); !ok) return ok.error();
-    auto Ts = cp.find("T");
-    auto cs = cp.find("cp");
-    if (Ts == cp.end() || !Ts->is_array()) return makeError("missing or not an array of temperatures", join(path, "T"));
-    if (cs == cp.end() || !cs->is_array()) return makeError("missing or not an array of heat capacities", join(path, "cp"));
+HeatCapacity readTable(const JsonReader& r, const Json& cp, const JsonPath& path, double M) {
+    checkKeys(r, cp, path, {"T", "cp", "degree"});
+    const JsonPath tPath = child(path, "T");
+    const JsonPath cpPath = child(path, "cp");
+    const Json* Ts = member(cp, "T");
+    const Json* cs = member(cp, "cp");
+    if (!Ts || !Ts->is_array()) r.fail(tPath, "missing or not an array of temperatures");
+    if (!cs || !cs->is_array()) r.fail(cpPath, "missing or not an array of heat capacities");
     if (Ts->size() != cs->size())
-        return makeError("has " + std::to_string(cs->size()) + " values but T has " + std::to_string(Ts->size()),
-                         join(path, "cp"));
-    if (Ts->empty()) return makeError("the table is empty", join(path, "T"));
+        r.fail(cpPath, "has " + std::to_string(cs->size()) + " values but T has " + std::to_string(Ts->size()));
+    if (Ts->empty()) r.fail(tPath, "the table is empty");
     std::vector<double> T, c;
     for (std::size_t i = 0; i < Ts->size(); ++i) {
-        auto t = quantityOf((*Ts)[i], Dimension::Temperature, index(join(path, "T"), i), uc);
-        if (!t) return t.error();
-        if (!(*t > 0)) return makeError("must be above absolute zero", index(join(path, "T"), i));
-        auto v = heatCapacityOf((*cs)[i], index(join(path, "cp"), i), M, uc);
-        if (!v) return v.error();
-        T.push_back(*t);
-        c.push_back(*v);
+        const JsonPath ti = child(tPath, static_cast<long>(i));
+        const double t = quantityOf(r, (*Ts)[i], ti, Dimension::Temperature);
+        if (!(t > 0)) r.fail(ti, "must be above absolute zero");
+        T.push_back(t);
+        c.push_back(heatCapacityOf(r, (*cs)[i], child(cpPath, static_cast<long>(i)), M));
     }
     int degree = 2;
-    if (auto d = cp.find("degree"); d != cp.end()) {
+    if (const Json* d = member(cp, "degree")) {
         if (!d->is_number_integer() || d->get<int>() < 0 || d->get<int>() > 4)
-            return makeError("must be an integer from 0 to 4", join(path, "degree"));
+            r.fail(child(path, "degree"), "must be an integer from 0 to 4");
         degree = d->get<int>();
     }
     auto hc = HeatCapacity::fitTable(T, c, degree);
-    if (!hc) return makeError(hc.error().message, path);
-    return hc;
+    if (!hc) r.fail(path, hc.error().message);
+    return std::move(*hc);
 }
 
 // A piece's temperature range, "Tmin" and "Tmax".
-Status readRange(const Json& pj, const std::string& pp, const UnitContext& uc, HeatCapacity::Piece& p) {
-    auto lo = temperatureAt(pj, "Tmin", pp, uc);
-    if (!lo) return lo.error();
-    auto hi = temperatureAt(pj, "Tmax", pp, uc);
-    if (!hi) return hi.error();
-    p.Tmin = *lo;
-    p.Tmax = *hi;
-    return Ok{};
+void readRange(const JsonReader& r, const Json& pj, const JsonPath& pp, HeatCapacity::Piece& p) {
+    p.Tmin = temperatureAt(r, pj, pp, "Tmin");
+    p.Tmax = temperatureAt(r, pj, pp, "Tmax");
 }
 
-Result<HeatCapacity> parseCorrelation(const Json& cp, const std::string& path, double M, const UnitContext& uc) {
-    auto form = stringAt(cp, "form", path, true);
-    if (!form) return form.error();
-    const bool shomate = *form == "shomate";
-    if (!shomate && *form != "polynomial")
-        return makeError("unknown form \"" + *form + "\"; valid: shomate, polynomial", join(path, "form"));
-
-    std::vector<HeatCapacity::Piece> pieces;
-    if (shomate) {
-        // NIST WebBook / NIST-JANAF convention: J/(mol K), t = T / 1000 K.
-        if (auto ok = checkKeys(cp, path, {"form", "pieces"}); !ok) return ok.error();
-        auto ps = cp.find("pieces");
-        if (ps == cp.end() || !ps->is_array() || ps->empty())
-            return makeError("missing or not a non-empty array", join(path, "pieces"));
-        for (std::size_t i = 0; i < ps->size(); ++i) {
-            const std::string pp = index(join(path, "pieces"), i);
-            const Json& pj = (*ps)[i];
-            if (!pj.is_object()) return makeError("must be an object", pp);
-            if (auto ok = checkKeys(pj, pp, {"Tmin", "Tmax", "A", "B", "C", "D", "E"}); !ok) return ok.error();
-            HeatCapacity::Piece p;
-            p.form = HeatCapacity::Form::Shomate;
-            if (auto ok = readRange(pj, pp, uc, p); !ok) return ok.error();
-            for (const char* k : {"A", "B", "C", "D", "E"}) {
-                auto it = pj.find(k);
-                if (it == pj.end()) return makeError("missing", join(pp, k));
-                auto x = coefficientOf(*it, join(pp, k));
-                if (!x) return x.error();
-                p.c.push_back(*x / M);
-            }
-            pieces.push_back(std::move(p));
-        }
-    } else {
-        // Powers of T in kelvin; one piece inline or several under "pieces".
-        if (auto ok = checkKeys(cp, path, {"form", "unit", "Tmin", "Tmax", "coefficients", "pieces"}); !ok)
-            return ok.error();
-        auto factor = cpUnitFactor(cp, path, M, uc);
-        if (!factor) return factor.error();
-        auto readPiece = [&](const Json& pj, const std::string& pp) -> Result<HeatCapacity::Piece> {
-            HeatCapacity::Piece p;
-            p.form = HeatCapacity::Form::Polynomial;
-            if (auto ok = readRange(pj, pp, uc, p); !ok) return ok.error();
-            auto cs = pj.find("coefficients");
-            if (cs == pj.end() || !cs->is_array() || cs->empty())
-                return makeError("missing or not a non-empty array of numbers", join(pp, "coefficients"));
-            for (std::size_t k = 0; k < cs->size(); ++k) {
-                auto x = coefficientOf((*cs)[k], index(join(pp, "coefficients"), k));
-                if (!x) return x.error();
-                p.c.push_back(*x * *factor);
-            }
-            return p;
-        };
-        if (auto ps = cp.find("pieces"); ps != cp.end()) {
-            if (cp.contains("coefficients"))
-                return makeError("give either coefficients or pieces, not both", join(path, "coefficients"));
-            if (!ps->is_array() || ps->empty()) return makeError("must be a non-empty array", join(path, "pieces"));
-            for (std::size_t i = 0; i < ps->size(); ++i) {
-                const std::string pp = index(join(path, "pieces"), i);
-                if (!(*ps)[i].is_object()) return makeError("must be an object", pp);
-                if (auto ok = checkKeys((*ps)[i], pp, {"Tmin", "Tmax", "coefficients"}); !ok) return ok.error();
-                auto p = readPiece((*ps)[i], pp);
-                if (!p) return p.error();
-                pieces.push_back(std::move(*p));
-            }
-        } else {
-            auto p = readPiece(cp, path);
-            if (!p) return p.error();
-            pieces.push_back(std::move(*p));
-        }
+// The array under "pieces": non-empty, of objects; calls read(piece, path) for each.
+template <class ReadPiece>
+void readPieces(const JsonReader& r, const Json& ps, const JsonPath& path, std::vector<JsonPath>& piecePaths,
+                ReadPiece read) {
+    for (std::size_t i = 0; i < ps.size(); ++i) {
+        const JsonPath pp = child(path, static_cast<long>(i));
+        if (!ps[i].is_object()) r.fail(pp, "must be an object");
+        read(ps[i], pp);
+        piecePaths.push_back(pp);
     }
+}
+
+void readShomate(const JsonReader& r, const Json& cp, const JsonPath& path, double M,
+                 std::vector<HeatCapacity::Piece>& pieces, std::vector<JsonPath>& piecePaths) {
+    // NIST WebBook / NIST-JANAF convention: J/(mol K), t = T / 1000 K.
+    checkKeys(r, cp, path, {"form", "pieces"});
+    const Json* ps = member(cp, "pieces");
+    if (!ps || !ps->is_array() || ps->empty()) r.fail(child(path, "pieces"), "missing or not a non-empty array");
+    readPieces(r, *ps, child(path, "pieces"), piecePaths, [&](const Json& pj, const JsonPath& pp) {
+        checkKeys(r, pj, pp, {"Tmin", "Tmax", "A", "B", "C", "D", "E"});
+        HeatCapacity::Piece p;
+        p.form = HeatCapacity::Form::Shomate;
+        readRange(r, pj, pp, p);
+        for (const char* k : {"A", "B", "C", "D", "E"}) {
+            const Json* x = member(pj, k);
+            if (!x) r.fail(child(pp, k), "missing");
+            p.c.push_back(coefficientOf(r, *x, child(pp, k)) / M);
+        }
+        pieces.push_back(std::move(p));
+    });
+}
+
+void readPolynomial(const JsonReader& r, const Json& cp, const JsonPath& path, double M,
+                    std::vector<HeatCapacity::Piece>& pieces, std::vector<JsonPath>& piecePaths) {
+    // Powers of T in kelvin; one piece inline or several under "pieces".
+    checkKeys(r, cp, path, {"form", "unit", "Tmin", "Tmax", "coefficients", "pieces"});
+    const double factor = cpUnitFactor(r, cp, path, M);
+    auto readPiece = [&](const Json& pj, const JsonPath& pp) {
+        HeatCapacity::Piece p;
+        p.form = HeatCapacity::Form::Polynomial;
+        readRange(r, pj, pp, p);
+        const JsonPath csPath = child(pp, "coefficients");
+        const Json* cs = member(pj, "coefficients");
+        if (!cs || !cs->is_array() || cs->empty()) r.fail(csPath, "missing or not a non-empty array of numbers");
+        for (std::size_t k = 0; k < cs->size(); ++k)
+            p.c.push_back(coefficientOf(r, (*cs)[k], child(csPath, static_cast<long>(k))) * factor);
+        pieces.push_back(std::move(p));
+    };
+    if (const Json* ps = member(cp, "pieces")) {
+        if (member(cp, "coefficients"))
+            r.fail(child(path, "coefficients"), "give either coefficients or pieces, not both");
+        if (!ps->is_array() || ps->empty()) r.fail(child(path, "pieces"), "must be a non-empty array");
+        readPieces(r, *ps, child(path, "pieces"), piecePaths, [&](const Json& pj, const JsonPath& pp) {
+            checkKeys(r, pj, pp, {"Tmin", "Tmax", "coefficients"});
+            readPiece(pj, pp);
+        });
+    } else {
+        readPiece(cp, path);
+        piecePaths.push_back(path);
+    }
+}
+
+HeatCapacity readCorrelation(const JsonReader& r, const Json& cp, const JsonPath& path, double M) {
+    const std::string form = stringAt(r, cp, path, "form", true);
+    std::vector<HeatCapacity::Piece> pieces;
+    std::vector<JsonPath> piecePaths;  // where each piece is written
+    if (form == "shomate")
+        readShomate(r, cp, path, M, pieces, piecePaths);
+    else if (form == "polynomial")
+        readPolynomial(r, cp, path, M, pieces, piecePaths);
+    else
+        r.fail(child(path, "form"), "unknown form \"" + form + "\"; valid: shomate, polynomial");
     auto hc = HeatCapacity::fromPieces(std::move(pieces));
     if (!hc) {
-        // fromPieces names "pieces[i]"; put it under this cp's path.
-        const auto& e = hc.error();
-        return makeError(e.message, e.where.empty() ? path : join(path, e.where));
+        // fromPieces names a piece by its place in the list, "pieces[i]".
+        const Error& e = hc.error();
+        for (std::size_t i = 0; i < piecePaths.size(); ++i)
+            if (e.where == "pieces[" + std::to_string(i) + "]") r.fail(piecePaths[i], e.message);
+        r.fail(path, e.message);
     }
-    return hc;
+    return std::move(*hc);
 }
 
 }  // namespace
 
-Result<HeatCapacity> parseHeatCapacity(const Json& cp, const std::string& path, double M, const UnitContext& uc) {
-    if (cp.is_string()) {
-        auto v = heatCapacityOf(cp, path, M, uc);
-        if (!v) return v.error();
-        return HeatCapacity::constant(*v);
-    }
+HeatCapacity readHeatCapacity(const JsonReader& r, const Json& cp, const JsonPath& path, double M) {
+    if (cp.is_string()) return HeatCapacity::constant(heatCapacityOf(r, cp, path, M));
     if (!cp.is_object())
-        return makeError("must be a quantity (\"1.04 kJ/(kg K)\"), a table {\"T\": [...], \"cp\": [...]}, or a "
-                         "correlation {\"form\": \"shomate\" | \"polynomial\", ...}",
-                         path);
-    if (cp.contains("form")) return parseCorrelation(cp, path, M, uc);
-    return parseTable(cp, path, M, uc);
+        r.fail(path,
+               "must be a quantity (\"1.04 kJ/(kg K)\"), a table {\"T\": [...], \"cp\": [...]}, or a "
+               "correlation {\"form\": \"shomate\" | \"polynomial\", ...}");
+    if (cp.contains("form")) return readCorrelation(r, cp, path, M);
+    return readTable(r, cp, path, M);
 }
 
 }  // namespace heatchain::detail::substance_fields

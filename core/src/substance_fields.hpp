@@ -1,52 +1,60 @@
 #pragma once
-// Reading the fields of a substance definition (substance.cpp reads the
-// definition; the library files and a project's custom substance share it):
-// the JSON path of each field as "phases.liquid.cp[2]", unknown keys refused,
-// quantities with their units, and the heat-capacity forms (a constant, a
-// table, a polynomial or Shomate correlation, in pieces).
+// Reading a substance definition (substance.cpp reads the whole definition;
+// the library files and a project's custom substance share it) and the
+// fields it is made of: unknown keys refused, quantities with their units,
+// and the heat-capacity forms (a constant, a table, a polynomial or Shomate
+// correlation, in pieces). Everything reads through JsonReader with the
+// JSON path of the field from the root of the text it came from, so an
+// error names that path and its line:column; it is thrown as ReadFailure.
 #include <initializer_list>
 #include <optional>
 #include <string>
 #include <string_view>
 
-#include <nlohmann/json.hpp>
-
 #include "heatchain/heat_capacity.hpp"
-#include "heatchain/result.hpp"
+#include "heatchain/substance.hpp"
 #include "heatchain/units.hpp"
+#include "json_reader.hpp"
 
-namespace heatchain::detail::substance_fields {
+namespace heatchain::detail {
 
-using Json = nlohmann::ordered_json;
+// The definition object `v` found at `path`; quantities are read in r.units.
+// Marks the substance custom (the library's loader unmarks its own).
+Substance readSubstanceDefinition(const JsonReader& r, const Json& v, const JsonPath& path);
 
-// "where.key", the path of a field.
-std::string join(std::string_view where, std::string_view key);
+namespace substance_fields {
 
 // Unknown keys are errors: a misspelt "enthalpy" would otherwise drop data silently.
-Status checkKeys(const Json& obj, std::string_view where, std::initializer_list<std::string_view> known);
+void checkKeys(const JsonReader& r, const Json& obj, const JsonPath& path,
+               std::initializer_list<std::string_view> known);
 
-Result<const Json*> objectAt(const Json& parent, std::string_view key, std::string_view where, bool required);
+// The object under `key`, or null when it is absent and not required.
+const Json* objectAt(const JsonReader& r, const Json& parent, const JsonPath& path, std::string_view key,
+                     bool required);
 
-Result<std::string> stringAt(const Json& parent, std::string_view key, std::string_view where, bool required);
+// The string under `key`, or empty when it is absent and not required.
+std::string stringAt(const JsonReader& r, const Json& parent, const JsonPath& path, std::string_view key,
+                     bool required);
 
 // A quantity string "<number> <unit>", or a JSON number for dimensionless fields.
-Result<double> quantityOf(const Json& value, Dimension d, const std::string& path, const UnitContext& uc);
+double quantityOf(const JsonReader& r, const Json& value, const JsonPath& path, Dimension d);
 
-Result<std::optional<double>> optionalQuantity(const Json& parent, std::string_view key, Dimension d,
-                                               std::string_view where, const UnitContext& uc);
+std::optional<double> optionalQuantity(const JsonReader& r, const Json& parent, const JsonPath& path,
+                                       std::string_view key, Dimension d);
 
-Result<double> requiredQuantity(const Json& parent, std::string_view key, Dimension d, std::string_view where,
-                                const UnitContext& uc);
+double requiredQuantity(const JsonReader& r, const Json& parent, const JsonPath& path, std::string_view key,
+                        Dimension d);
 
-// r, or an error at `path` when it is not above zero.
-Result<double> positive(Result<double> r, const std::string& path);
+double temperatureAt(const JsonReader& r, const Json& parent, const JsonPath& path, std::string_view key);
+
+// x, or an error at `path` when it is not above zero.
+double positive(const JsonReader& r, double x, const JsonPath& path);
 
 // A finite JSON number.
-Result<double> coefficientOf(const Json& value, const std::string& path);
-
-Result<double> temperatureAt(const Json& parent, std::string_view key, std::string_view where, const UnitContext& uc);
+double coefficientOf(const JsonReader& r, const Json& value, const JsonPath& path);
 
 // A heat capacity in any of its forms; M converts per-mole values.
-Result<HeatCapacity> parseHeatCapacity(const Json& cp, const std::string& path, double M, const UnitContext& uc);
+HeatCapacity readHeatCapacity(const JsonReader& r, const Json& cp, const JsonPath& path, double M);
 
-}  // namespace heatchain::detail::substance_fields
+}  // namespace substance_fields
+}  // namespace heatchain::detail

@@ -258,6 +258,41 @@ TEST(ProjectFile, CustomSubstanceIsKeptAsWritten) {
     EXPECT_LT(written.find("\"molarMass\""), written.find("\"source\": \"supplier"));
 }
 
+// An error inside a custom substance names its path under "substance" and
+// the line:column of the value in the project file. The positions are counted
+// by hand from the texts below (line 1 is the one with "format").
+TEST(ProjectFile, CustomSubstanceErrorsGiveTheirPathAndPosition) {
+    // "2.2 kJ/kg" is not a heat capacity: line 5, after 13 spaces.
+    const std::string wrongUnit = R"json({ "format": "heatchain-project", "version": 1, "system": "closed",
+  "substance": { "id": "test-oil", "name": "Test oil", "molarMass": "0.3 kg/mol",
+    "phases": { "liquid": { "cp": { "T": ["20 degC", "80 degC"],
+      "cp": ["2.0 kJ/(kg K)",
+             "2.2 kJ/kg"] } } } },
+  "basis": { "mass": "1 kg" },
+  "start": { "T": "20 degC", "P": "1 bar" },
+  "steps": [] })json";
+    Error e = errorOf(wrongUnit);
+    EXPECT_EQ(e.where, "plant.hchain: substance.phases.liquid.cp.cp[1]");
+    EXPECT_CONTAINS(e.message, "a heat capacity per kilogram");
+    EXPECT_EQ(e.line, 5);
+    EXPECT_EQ(e.column, 14);
+
+    // An unknown key that is not a plain name (it holds a dot) is written
+    // ["T.max"] and located at its value: line 4, 17 spaces, then "T.max": .
+    const std::string dottedKey = R"json({ "format": "heatchain-project", "version": 1, "system": "closed",
+  "substance": { "id": "test-oil", "name": "Test oil", "molarMass": "0.3 kg/mol",
+    "melting": { "T": "10 degC", "enthalpy": "150 kJ/kg",
+                 "T.max": "12 degC" } },
+  "basis": { "mass": "1 kg" },
+  "start": { "T": "20 degC", "P": "1 bar" },
+  "steps": [] })json";
+    e = errorOf(dottedKey);
+    EXPECT_EQ(e.where, "plant.hchain: substance.melting[\"T.max\"]");
+    EXPECT_CONTAINS(e.message, "unknown field \"T.max\"");
+    EXPECT_EQ(e.line, 4);
+    EXPECT_EQ(e.column, 27);
+}
+
 TEST(ProjectFile, UnknownFieldsAreKeptInOrderAfterKnownOnes) {
     std::string text = replaced(kFormatExample, "\"steps\": [",
                                 "\"spares\": [{\"name\": \"LP steam\"}], \"zeta\": 1, \"alpha\": true,\n  \"steps\": [");

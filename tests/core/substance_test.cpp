@@ -232,6 +232,31 @@ TEST(Substance, SyntaxErrorsGiveLineAndColumn) {
     EXPECT_GT(lib.error().column, 1);
 }
 
+// A library-format file: an error names the text and the path from its root,
+// with the line:column of the value (counted by hand: line 4 is "critical",
+// and 3.4 follows `  "critical": { "T": "126 K", "P": ` at column 36).
+TEST(Substance, LibraryFileErrorsGivePathAndPosition) {
+    const std::string_view texts[] = {
+        "{\n"
+        "  \"id\": \"sample-gas\", \"name\": \"Sample gas\",\n"
+        "  \"molarMass\": { \"value\": \"28 g/mol\", \"source\": \"s\" },\n"
+        "  \"critical\": { \"T\": \"126 K\", \"P\": 3.4, \"source\": \"s\" }\n"
+        "}\n"};
+    auto lib = SubstanceLibrary::fromJsonTexts(texts);
+    ASSERT_FALSE(lib.ok());
+    EXPECT_EQ(lib.error().where, "texts[0]: critical.P");
+    EXPECT_NE(lib.error().message.find("a bare number needs a unit"), std::string::npos) << lib.error().message;
+    EXPECT_EQ(lib.error().line, 4);
+    EXPECT_EQ(lib.error().column, 36);
+
+    // The same object given as a value, without its text: the path, no position.
+    auto s = parseSubstance(Json::parse(texts[0]), "");
+    ASSERT_FALSE(s.ok());
+    EXPECT_EQ(s.error().where, "critical.P");
+    EXPECT_EQ(s.error().line, 0);
+    EXPECT_EQ(s.error().column, 0);
+}
+
 TEST(Substance, DuplicateIdsAreRefused) {
     const std::string a = kTestWax;
     const std::string_view texts[] = {a, a};

@@ -95,7 +95,11 @@ struct Substance {
 };
 
 // Reads one substance definition (the library's JSON or a project file's
-// custom substance object). `where` prefixes error locations ("substance").
+// custom substance object) given as a value. `where` is the key it sits
+// under ("substance"), the first element of every error's JSON path
+// ("substance.melting.T"); empty, the paths start at the object. A value has
+// no text, so its errors carry no line:column: the project file's reader
+// and the library's read the same definition with both.
 Result<Substance> parseSubstance(const nlohmann::ordered_json& j, std::string_view where,
                                  const UnitContext& context = {});
 
