@@ -77,9 +77,13 @@ inline std::optional<std::string> quantityInput(const std::uint8_t* data, std::s
 }
 
 // A custom substance object: parse; a parsed substance must give every model
-// kind or an Error, and the models must answer at a few pressures.
+// kind or an Error, and the models must answer at a few pressures. The same
+// text is read as a library file too, which locates its errors in the text.
 inline std::optional<std::string> substanceInput(const std::uint8_t* data, std::size_t size) {
     const std::string_view text(reinterpret_cast<const char*>(data), size);
+    const std::string_view texts[] = {text};
+    if (auto lib = SubstanceLibrary::fromJsonTexts(texts); !lib && lib.error().where.empty())
+        return "a library text was refused without saying where: " + lib.error().message;
     auto json = nlohmann::ordered_json::parse(text, nullptr, /*allow_exceptions=*/false);
     if (json.is_discarded()) return std::nullopt;
     auto substance = parseSubstance(json, "substance");
