@@ -89,12 +89,7 @@ Quantity displayQuantity(double si, Dimension d, const Project& project, double 
     return q;
 }
 
-Number number(double v) {
-    Number n;
-    n.raw = Json::parse(plain(v));
-    n.value = v;
-    return n;
-}
+Number number(double v) { return Number{v, plain(v), false}; }
 
 }  // namespace
 
@@ -176,7 +171,7 @@ Result<Number> parseTypedNumber(std::string_view text, BoundedField field, std::
         // string in the file, as the file reader keeps it.
         auto tv = parseToleranced(t, Dimension::Dimensionless, {});
         if (!tv) return makeError(std::string(what) + ": " + tv.error().message);
-        n = Number{Json(t), tv->si, {}};
+        n = Number{tv->si, t, true};
     } else {
         // A fraction may be typed as a percentage ("50 %"); it is kept as the
         // fraction it means (0.5), the way the file holds it.
@@ -191,11 +186,13 @@ Result<Number> parseTypedNumber(std::string_view text, BoundedField field, std::
             return makeError("\"" + std::string(text) + "\" is not a number; " + std::string(what) +
                              (range.hi <= 1.0 ? " is a plain number, a percentage or a number ± its tolerance"
                                          : " is a plain number or a number ± its tolerance"));
+        std::string chars = t;  // as typed: valid JSON, as parsed
         if (percent) {
-            raw = Json::parse(plain(raw.get<double>() / 100.0));
+            chars = plain(raw.get<double>() / 100.0);  // the fraction it means
+            raw = Json::parse(chars);
             t += " %";
         }
-        n = Number{raw, raw.get<double>(), {}};
+        n = Number{raw.get<double>(), chars, false};
     }
     if (!range.contains(n.value)) {
         // Core's range (rules.hpp), said the way the step panel says it.

@@ -212,9 +212,9 @@ StepEditor::StepEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent),
         apply(tr("path"), [&](Step& s) {
             s.path = p;
             if (p != PathKind::Polytropic) s.n.reset();
-            else if (!s.n) s.n = Number{Json(1.3), 1.3};
+            else if (!s.n) s.n = Number{1.3, "1.3", false};
             if (p != PathKind::Adiabatic) s.efficiency.reset();
-            else if (!s.efficiency) s.efficiency = Number{Json(0.75), 0.75};
+            else if (!s.efficiency) s.efficiency = Number{0.75, "0.75", false};
         });
     });
     // The field's check has passed; the field here only lets a fraction be

@@ -163,12 +163,12 @@ public:
         if (v.is_number()) {
             const double x = v.get<double>();
             if (!std::isfinite(x)) fail(path, "the number is not finite");
-            return Number{v, x, typedNumber(path, x)};
+            return Number{x, typedNumber(path, x), false};
         }
         if (v.is_string()) {
             auto x = parseToleranced(v.get_ref<const std::string&>(), Dimension::Dimensionless, units);
             if (!x) fail(path, x.error().message);
-            return Number{v, x->si, {}};
+            return Number{x->si, v.get<std::string>(), true};
         }
         fail(path, "expected a number; found " + jsonTypeName(v));
     }

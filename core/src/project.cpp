@@ -2,6 +2,8 @@
 // The ids are the spellings of the project file (project-format.md, version 1).
 #include "heatchain/project.hpp"
 
+#include "json_writer.hpp"
+
 #include <array>
 #include <string>
 
@@ -90,6 +92,13 @@ const Step* Project::findStep(std::string_view id) const {
     for (const Step& s : steps)
         if (s.id == id) return &s;
     return nullptr;
+}
+
+std::string Number::typed() const {
+    if (!text.empty()) return text;
+    std::string out;
+    detail::appendJsonNumber(out, value);
+    return out;
 }
 
 const Quantity& Project::atmosphereOrDefault() const {

@@ -38,8 +38,8 @@ public:
     // A number written as text ("65 %", "0.72 ± 0.03") is read again; a
     // JSON number is its value.
     void number(std::optional<Number>& n, const JsonPath& path) {
-        if (failed_ || !n || !n->raw.is_string()) return;
-        auto x = parseToleranced(n->raw.get_ref<const std::string&>(), Dimension::Dimensionless, units_);
+        if (failed_ || !n || !n->quoted) return;
+        auto x = parseToleranced(n->text, Dimension::Dimensionless, units_);
         if (!x) {
             failed_ = breach(path, x.error().message);
             return;

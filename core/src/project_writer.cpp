@@ -55,10 +55,10 @@ private:
     // characters in its shortest form.
     static void number(detail::ObjectWriter& o, std::string_view key, const Number& n) {
         detail::JsonWriter& w = o.key(key);
-        if (!n.text.empty() && n.raw.is_number())
+        if (n.quoted)
+            w.string(n.text);
+        else if (!n.text.empty())
             w.typedNumber(n.text);
-        else if (n.raw.is_number() || n.raw.is_string())
-            w.value(n.raw);
         else
             w.number(n.value);
     }

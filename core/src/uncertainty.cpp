@@ -106,8 +106,8 @@ struct Collector {
     }
     void number(const std::string& path, const std::optional<Number>& n, const std::function<Number*(Project&)>& at,
                 double lo, bool loOpen, double hi, bool hiOpen) {
-        if (!n || !n->raw.is_string()) return;
-        add(path, n->raw.get<std::string>(), Dimension::Dimensionless, n->value,
+        if (!n || !n->quoted) return;
+        add(path, n->text, Dimension::Dimensionless, n->value,
             [at](Project& x) { return &at(x)->value; }, lo, loOpen, hi, hiOpen);
     }
 };

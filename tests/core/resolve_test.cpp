@@ -38,8 +38,8 @@ std::vector<Project> sampleProjects() {
     return out;
 }
 
-Number number(double v) { return Number{Json(v), v, {}}; }
-Number typedNumber(const std::string& text) { return Number{Json(text), 0.0, {}}; }
+Number number(double v) { return Number{v, {}, false}; }
+Number typedNumber(const std::string& text) { return Number{0.0, text, true}; }
 // A quantity as the step panel makes it: the text, and an SI value that may be stale.
 Quantity typed(const std::string& text) { return Quantity{text, -12345.0}; }
 
@@ -327,7 +327,7 @@ TEST(ResolveProject, NamesTheStepAndField) {
       "steps": [ { "id": "pump", "kind": "compress", "to": { "P": "10 bar" } } ] })");
     ASSERT_TRUE(p.ok()) << p.error().text();
     p->steps[0].to = StepTarget{};
-    p->steps[0].to.ratio = Number{Json(1), 1.0, "1"};
+    p->steps[0].to.ratio = Number{1.0, "1", false};
     auto r = resolveProject(*p);
     ASSERT_FALSE(r.ok());
     EXPECT_EQ(r.error().where, "step \"pump\" (steps[0]).to.ratio");

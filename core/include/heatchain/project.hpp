@@ -25,19 +25,17 @@ struct Quantity {
     double si = 0;
 };
 
-// A dimensionless number as typed: kept as the JSON number value.
+// A dimensionless number and its characters as typed, written back unchanged.
 struct Number {
-    Json raw;  // the number as it was in the file (written back unchanged)
     double value = 0;
-    std::string text;  // a JSON number's characters exactly as typed ("0.60"); empty when made in code
+    // A JSON number's characters ("0.60"), or the text of a number the file
+    // holds as a string ("0.72 ± 0.03", "65 %"); empty when made in code.
+    std::string text;
+    bool quoted = false;  // held as a string in the file (a tolerance, a unit), not as a JSON number
 
-    // The number as the user typed it, for display: "0.60", "0.72 ± 0.03"
-    // (a number with a tolerance is a string in the file), never with quotes.
-    std::string typed() const {
-        if (raw.is_string()) return raw.get<std::string>();
-        if (!text.empty()) return text;
-        return raw.is_null() ? Json(value).dump() : raw.dump();
-    }
+    // The number as the user typed it, for display: "0.60", "0.72 ± 0.03",
+    // never with quotes; one made in code in its shortest form.
+    std::string typed() const;
 };
 
 enum class SystemKind { Closed, SteadyFlow };
