@@ -6,6 +6,7 @@
 #include <memory>
 #include <string>
 
+#include "heatchain/json.hpp"
 #include "heatchain/project.hpp"
 #include "heatchain/property_model.hpp"
 #include "heatchain/result.hpp"

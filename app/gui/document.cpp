@@ -263,8 +263,8 @@ namespace {
 std::string modelKeyOf(const Project& p) {
     std::string key(modelId(p.model));
     key += '|';
-    key += p.substanceId;
-    if (p.customSubstanceJson) key += p.customSubstanceJson->dump();
+    key += p.substance.id;
+    if (p.substance.definition) key += p.substance.definition->compact();
     return key;
 }
 }  // namespace

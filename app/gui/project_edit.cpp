@@ -10,6 +10,7 @@
 #include <sstream>
 #include <vector>
 
+#include "heatchain/json.hpp"
 #include "heatchain/project_file.hpp"
 
 namespace heatchain::gui {

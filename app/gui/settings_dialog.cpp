@@ -50,11 +50,11 @@ ProjectSettingsDialog::ProjectSettingsDialog(const Project& project, QWidget* pa
     substance_ = new QComboBox(material);
     for (const Substance& s : SubstanceLibrary::builtin().all())
         substance_->addItem(QStringLiteral("%1  (%2)").arg(qs(s.name), qs(s.formula)), qs(s.id));
-    if (project.customSubstanceJson)
+    if (project.substance.definition)
         substance_->addItem(tr("%1 (defined in this file)").arg(qs(project.substance.name)), QStringLiteral("\x01custom"));
     {
-        const int i = project.customSubstanceJson ? substance_->count() - 1
-                                                  : substance_->findData(qs(project.substanceId));
+        const int i = project.substance.definition ? substance_->count() - 1
+                                                   : substance_->findData(qs(project.substance.id));
         substance_->setCurrentIndex(std::max(0, i));
     }
     model_ = new QComboBox(material);
@@ -157,9 +157,7 @@ QString ProjectSettingsDialog::build(Project& p) {
     if (sub != QStringLiteral("\x01custom")) {
         const Substance* s = SubstanceLibrary::builtin().find(sub.toStdString());
         if (!s) return tr("unknown substance %1").arg(sub);
-        p.substanceId = s->id;
-        p.substance = *s;
-        p.customSubstanceJson.reset();
+        p.substance = *s;  // a library substance: no definition of its own
     }
     p.basis.kind = Basis::Kind(basisKind_->currentData().toInt());
     p.basis.amount.text = basis_->text().toStdString();

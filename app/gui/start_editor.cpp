@@ -158,9 +158,7 @@ StartEditor::StartEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent
         const Substance* s = SubstanceLibrary::builtin().find(id.toStdString());
         if (!s) return;
         apply(tr("substance"), [&](Project& p) {
-            p.substanceId = s->id;
-            p.substance = *s;
-            p.customSubstanceJson.reset();
+            p.substance = *s;  // a library substance: no definition of its own
         });
     });
     connect(model_, &QComboBox::activated, this, [this] {
@@ -215,13 +213,13 @@ void StartEditor::refresh() {
                             "<span style='color:#3b4350'>Then add steps with the toolbar, the + between "
                             "cards, or the quick-add line (“heat to 180 degC”).</span>")
                        : tr("<b>Start</b> &nbsp;·&nbsp; the material and where it starts"));
-    if (p.customSubstanceJson) {
+    if (p.substance.definition) {
         if (substance_->findData(kCustom) < 0)
             substance_->addItem(tr("%1 (defined in this worksheet)").arg(qs(p.substance.name)), kCustom);
         substance_->setCurrentIndex(substance_->findData(kCustom));
     } else {
         if (const int c = substance_->findData(kCustom); c >= 0) substance_->removeItem(c);
-        substance_->setCurrentIndex(substance_->findData(qs(p.substanceId)));
+        substance_->setCurrentIndex(substance_->findData(qs(p.substance.id)));
     }
     model_->setCurrentIndex(model_->findData(int(p.model)));
     T_->showValue(p.start.T ? qs(p.start.T->text) : QString());

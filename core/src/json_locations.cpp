@@ -254,6 +254,28 @@ std::string formatJsonPath(const JsonPath& path) {
     return out;
 }
 
+std::optional<std::size_t> stepIndexOf(const JsonPath& path) {
+    if (path.size() >= 2 && path[0].index < 0 && path[0].key == "steps" && path[1].index >= 0)
+        return static_cast<std::size_t>(path[1].index);
+    return std::nullopt;
+}
+
+std::string labelJsonPath(const JsonPath& path, std::string_view stepId) {
+    const auto index = stepIndexOf(path);
+    if (!index || stepId.empty()) return formatJsonPath(path);
+    std::string where = "step ";
+    where += inQuotes(stepId);
+    where += " (steps[";
+    where += std::to_string(*index);
+    where += "])";
+    const std::string tail = formatJsonPath(JsonPath(path.begin() + 2, path.end()));
+    if (!tail.empty()) {
+        if (tail.front() != '[') where += '.';
+        where += tail;
+    }
+    return where;
+}
+
 PrescanResult prescanJson(std::string_view text, int maxDepth, std::size_t maxValues) {
     PrescanResult r;
     std::size_t values = 0;

@@ -33,6 +33,15 @@ JsonPath child(const JsonPath& parent, std::string key);
 JsonPath child(const JsonPath& parent, long index);
 // "steps[2].to.T"; keys that are not plain names are written ["like this"].
 std::string formatJsonPath(const JsonPath& path);
+// "like this", for names in messages.
+inline std::string inQuotes(std::string_view s) { return "\"" + std::string(s) + "\""; }
+// How an error names where it is: `step "economiser" (steps[1]).to.T` when
+// the path is inside a step whose id is known (`stepId`, the id of
+// steps[path[1]]), else formatJsonPath. The reader and resolveProject both
+// label through it.
+std::string labelJsonPath(const JsonPath& path, std::string_view stepId);
+// Whether the path is inside steps[i], and i.
+std::optional<std::size_t> stepIndexOf(const JsonPath& path);
 
 // What nlohmann/json's parser does not check, found before it runs: nesting
 // deeper than maxDepth (refused before any recursive code sees it), a key

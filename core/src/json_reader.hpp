@@ -15,9 +15,9 @@
 #include <string_view>
 #include <unordered_map>
 
+#include "heatchain/json.hpp"
 #include "heatchain/project.hpp"
 #include "heatchain/result.hpp"
-#include "heatchain/rules.hpp"
 #include "heatchain/tolerance.hpp"
 #include "heatchain/units.hpp"
 #include "json_locations.hpp"
@@ -30,8 +30,6 @@ namespace heatchain::detail {
 struct ReadFailure {
     Error error;
 };
-
-inline std::string inQuotes(std::string_view s) { return "\"" + std::string(s) + "\""; }
 
 inline std::string jsonTypeName(const Json& v) {
     switch (v.type()) {
@@ -87,24 +85,13 @@ public:
     // `step "economiser" (steps[1]).to.T`, or `steps[1].to.T` while the id
     // is unknown, prefixed with the file name when there is one.
     std::string label(const JsonPath& path) const {
-        std::string where;
-        if (labels_ == Labels::ProjectSteps && path.size() >= 2 && path[0].index < 0 && path[0].key == "steps" &&
-            path[1].index >= 0) {
+        std::string_view stepId;
+        if (const auto index = stepIndexOf(path); index && labels_ == Labels::ProjectSteps) {
             const Json* steps = member(root_, "steps");
-            const Json* id = nullptr;
-            if (steps && steps->is_array() && static_cast<std::size_t>(path[1].index) < steps->size())
-                id = member((*steps)[static_cast<std::size_t>(path[1].index)], "id");
-            if (id && id->is_string() && !id->get_ref<const std::string&>().empty()) {
-                where = "step " + inQuotes(id->get_ref<const std::string&>()) + " (steps[" +
-                        std::to_string(path[1].index) + "])";
-                const JsonPath rest(path.begin() + 2, path.end());
-                if (!rest.empty()) {
-                    const std::string tail = detail::formatJsonPath(rest);
-                    where += (tail.front() == '[' ? "" : ".") + tail;
-                }
-            }
+            const Json* id = steps && steps->is_array() && *index < steps->size() ? member((*steps)[*index], "id") : nullptr;
+            if (id && id->is_string()) stepId = id->get_ref<const std::string&>();
         }
-        if (where.empty()) where = detail::formatJsonPath(path);
+        std::string where = labelJsonPath(path, stepId);
         if (!file_.empty()) where = where.empty() ? std::string(file_) : std::string(file_) + ": " + where;
         return where;
     }
@@ -191,14 +178,6 @@ public:
         const double parsed = std::strtod(token.c_str(), &stop);
         if (stop != token.c_str() + token.size() || parsed != value) return {};
         return token;
-    }
-
-    // A number within the range core gives its field (rules.hpp), the same
-    // rule the step panel and quick add apply.
-    Number bounded(const Json& v, const JsonPath& path, BoundedField field) const {
-        Number n = number(v, path);
-        if (auto problem = checkBounded(field, n.value)) fail(path, *problem);
-        return n;
     }
 
     // Fields not in `known`, in their original order.

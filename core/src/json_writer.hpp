@@ -12,6 +12,7 @@
 #include <string_view>
 #include <vector>
 
+#include "heatchain/json.hpp"
 #include "heatchain/project.hpp"
 #include "unknown_fields_json.hpp"
 

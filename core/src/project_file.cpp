@@ -30,6 +30,7 @@
 #include <vector>
 
 #include "project_file_parts.hpp"
+#include "substance_definition_json.hpp"
 #include "substance_fields.hpp"
 
 namespace heatchain {
@@ -66,7 +67,6 @@ void readSubstance(const Reader& r, const Json& v, Project& p) {
         const std::string& id = v.get_ref<const std::string&>();
         const SubstanceLibrary& library = SubstanceLibrary::builtin();
         if (const Substance* s = library.find(id)) {
-            p.substanceId = id;
             p.substance = *s;
             return;
         }
@@ -84,8 +84,7 @@ void readSubstance(const Reader& r, const Json& v, Project& p) {
     std::optional<Substance> s = detail::readSubstanceDefinition(r, v, path);
     p.substance = std::move(*s);
     p.substance.custom = true;
-    p.substanceId = p.substance.id;
-    p.customSubstanceJson = v;
+    p.substance.definition = SubstanceDefinitionAccess::of(v);
 }
 
 void readBasis(const Reader& r, const Json& v, Project& p) {

@@ -10,6 +10,7 @@
 #include <utility>
 #include <vector>
 
+#include "heatchain/json.hpp"
 #include "heatchain/project.hpp"
 #include "json_reader.hpp"
 #include "project_rules.hpp"

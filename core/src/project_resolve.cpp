@@ -8,12 +8,11 @@
 #include "heatchain/substance.hpp"
 #include "heatchain/tolerance.hpp"
 #include "project_rules.hpp"
+#include "substance_definition_json.hpp"
 
 namespace heatchain::detail {
 
 namespace {
-
-std::string inQuotes(std::string_view s) { return "\"" + std::string(s) + "\""; }
 
 RuleBreach breach(JsonPath path, std::string message) { return RuleBreach{std::move(path), std::move(message)}; }
 
@@ -93,16 +92,17 @@ void resolveUtility(Resolver& r, Utility& u, long index) {
 // The substance as the reader finds it: from the library by id, or its
 // definition read again under the project's atmosphere.
 RuleCheck resolveSubstance(Project& p, const UnitContext& units) {
-    if (p.customSubstanceJson) {
-        auto s = parseSubstance(*p.customSubstanceJson, "substance", units);
-        if (!s) return breach({{"substance", -1}}, s.error().message);
+    if (p.substance.definition) {
+        const SubstanceDefinition definition = *p.substance.definition;
+        auto s = parseSubstance(SubstanceDefinitionAccess::json(definition), "substance", units);
+        if (!s) return breach({{"substance", -1}}, s.error().message + " (at " + s.error().where + ")");
         p.substance = std::move(*s);
         p.substance.custom = true;
-        p.substanceId = p.substance.id;
-    } else if (const Substance* s = SubstanceLibrary::builtin().find(p.substanceId)) {
+        p.substance.definition = definition;
+    } else if (const Substance* s = SubstanceLibrary::builtin().find(p.substance.id)) {
         p.substance = *s;
     } else {
-        return breach({{"substance", -1}}, "unknown substance " + inQuotes(p.substanceId));
+        return breach({{"substance", -1}}, "unknown substance " + inQuotes(p.substance.id));
     }
     return std::nullopt;
 }
@@ -169,19 +169,8 @@ RuleCheck resolveProject(Project& p) {
 }
 
 std::string ruleLabel(const JsonPath& path, const Project& p) {
-    if (path.size() >= 2 && path[0].index < 0 && path[0].key == "steps" && path[1].index >= 0 &&
-        static_cast<std::size_t>(path[1].index) < p.steps.size() &&
-        !p.steps[static_cast<std::size_t>(path[1].index)].id.empty()) {
-        std::string where = "step " + inQuotes(p.steps[static_cast<std::size_t>(path[1].index)].id) + " (steps[" +
-                            std::to_string(path[1].index) + "])";
-        const JsonPath rest(path.begin() + 2, path.end());
-        if (!rest.empty()) {
-            const std::string tail = formatJsonPath(rest);
-            where += (tail.front() == '[' ? "" : ".") + tail;
-        }
-        return where;
-    }
-    return formatJsonPath(path);
+    const auto index = stepIndexOf(path);
+    return labelJsonPath(path, index && *index < p.steps.size() ? std::string_view(p.steps[*index].id) : "");
 }
 
 }  // namespace heatchain::detail

@@ -12,8 +12,6 @@ namespace heatchain::detail {
 
 namespace {
 
-std::string inQuotes(std::string_view s) { return "\"" + std::string(s) + "\""; }
-
 std::string listOf(std::span<const std::string_view> items) {
     std::string out;
     for (std::string_view s : items) {

@@ -13,6 +13,7 @@
 #include "heatchain/project_file.hpp"
 #include "json_writer.hpp"
 #include "project_file_parts.hpp"
+#include "substance_definition_json.hpp"
 
 namespace heatchain {
 
@@ -214,10 +215,10 @@ void Writer::project(const Project& p) {
     }
     o.key("system").string(systemId(p.system));
     o.key("model").string(modelId(p.model));
-    if (p.customSubstanceJson)
-        o.key("substance").value(*p.customSubstanceJson);
+    if (p.substance.definition)
+        o.key("substance").value(SubstanceDefinitionAccess::json(*p.substance.definition));
     else
-        o.key("substance").string(p.substanceId);
+        o.key("substance").string(p.substance.id);
     o.key("basis");
     basis(p.basis);
     if (p.atmosphere) quantity(o, "atmosphere", *p.atmosphere, Dimension::Pressure);

@@ -15,6 +15,7 @@
 #include "heatchain/constants.hpp"
 #include "heatchain/embedded_resources.hpp"
 #include "heatchain/latent_heat.hpp"
+#include "substance_definition_json.hpp"
 #include "substance_fields.hpp"
 
 namespace heatchain {
@@ -401,6 +402,25 @@ const SubstanceLibrary& SubstanceLibrary::builtin() {
         return out;
     }();
     return lib;
+}
+
+const Json& SubstanceDefinitionAccess::json(const SubstanceDefinition& d) {
+    static const Json none = Json::object();
+    return d.kept_ ? d.kept_->object : none;
+}
+
+SubstanceDefinition SubstanceDefinitionAccess::of(Json object) {
+    SubstanceDefinition d;
+    d.kept_ = std::make_shared<const SubstanceDefinition::Kept>(SubstanceDefinition::Kept{std::move(object)});
+    return d;
+}
+
+std::string SubstanceDefinition::compact() const {
+    return SubstanceDefinitionAccess::json(*this).dump(-1, ' ', false, Json::error_handler_t::replace);
+}
+
+bool operator==(const SubstanceDefinition& a, const SubstanceDefinition& b) {
+    return a.kept_ == b.kept_ || SubstanceDefinitionAccess::json(a) == SubstanceDefinitionAccess::json(b);
 }
 
 const Substance* SubstanceLibrary::find(std::string_view id) const {

@@ -9,6 +9,7 @@
 
 #include "heatchain/tolerance.hpp"
 #include "heatchain/uncertainty.hpp"
+#include "substance_definition_json.hpp"
 
 namespace heatchain {
 
@@ -69,9 +70,10 @@ ModelUncertainty constantCp() {
 
 // "uncertainty": { "h": "1 %", "cp": "2 %", "source": "..." } on a custom substance.
 Result<std::optional<ModelUncertainty>> customStatement(const Project& p) {
-    if (!p.customSubstanceJson || !p.customSubstanceJson->is_object()) return std::optional<ModelUncertainty>{};
-    auto it = p.customSubstanceJson->find("uncertainty");
-    if (it == p.customSubstanceJson->end()) return std::optional<ModelUncertainty>{};
+    if (!p.substance.definition) return std::optional<ModelUncertainty>{};
+    const Json& definition = SubstanceDefinitionAccess::json(*p.substance.definition);
+    auto it = definition.find("uncertainty");
+    if (it == definition.end()) return std::optional<ModelUncertainty>{};
     const std::string where = "substance.uncertainty";
     if (!it->is_object()) return makeError("must be an object { \"h\": \"1 %\", \"cp\": \"2 %\", \"source\": \"...\" }", where);
     ModelUncertainty m{"stated for " + (p.substance.id.empty() ? std::string("the substance") : p.substance.id), 0, 0,

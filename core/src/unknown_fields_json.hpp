@@ -1,6 +1,7 @@
 #pragma once
 // The JSON behind UnknownFields, for the file's reader and writer and for
 // core's optional sections that look a field up by name.
+#include "heatchain/json.hpp"
 #include "heatchain/project.hpp"
 #include "heatchain/unknown_fields.hpp"
 

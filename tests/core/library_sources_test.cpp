@@ -18,6 +18,7 @@
 #include <string>
 #include <vector>
 
+#include "heatchain/json.hpp"
 #include "heatchain/substance.hpp"
 
 namespace heatchain {

@@ -5,6 +5,7 @@
 // the shared design note project-format.md (version 1), copied verbatim.
 // Expected SI values come from the unit definitions of NIST SP 811 (2008)
 // (4.2.1.1: T/K = t/°C + 273.15; B.8: bar = 1E+05 Pa, hour = 3600 s).
+#include "heatchain/json.hpp"
 #include "heatchain/project_file.hpp"
 #include "heatchain/streams.hpp"
 
@@ -125,8 +126,8 @@ TEST(ProjectFile, ReadsTheFormatExample) {
     EXPECT_EQ(p.displayUnits, UnitSystem::SI);
     EXPECT_EQ(p.system, SystemKind::SteadyFlow);
     EXPECT_EQ(p.model, ModelKind::Reference);
-    EXPECT_EQ(p.substanceId, "water");
-    EXPECT_FALSE(p.customSubstanceJson.has_value());
+    EXPECT_EQ(p.substance.id, "water");
+    EXPECT_FALSE(p.substance.definition.has_value());
     EXPECT_EQ(p.basis.kind, Basis::Kind::MassFlow);
     EXPECT_NEAR(p.basis.amount.si, 4200.0 / 3600.0, 1e-15);  // 4.2 t/h; NIST SP 811 B.8 (hour = 3600 s)
     EXPECT_EQ(p.basis.amount.text, "4.2 t/h");
@@ -238,7 +239,7 @@ TEST(ProjectFile, RoundTripIsByteStable) {
         }
         EXPECT_EQ(second->start.T->text, "48 degC");
         EXPECT_EQ(second->basis.amount.si, first->basis.amount.si);
-        EXPECT_EQ(second->customSubstanceJson, first->customSubstanceJson);
+        EXPECT_EQ(second->substance.definition, first->substance.definition);
         // Quantities stay as typed.
         EXPECT_CONTAINS(written, "\"P\": \"14 barg\"");
         EXPECT_CONTAINS(written, "\"efficiency\": 0.65");
@@ -248,10 +249,10 @@ TEST(ProjectFile, RoundTripIsByteStable) {
 TEST(ProjectFile, CustomSubstanceIsKeptAsWritten) {
     auto r = parseProject(replaced(kFormatExample, "\"water\"", kCustomSubstance));
     ASSERT_TRUE(r.ok()) << r.error().text();
-    ASSERT_TRUE(r->customSubstanceJson);
-    EXPECT_EQ(r->substanceId, "test-wax");
+    ASSERT_TRUE(r->substance.definition);
+    EXPECT_EQ(r->substance.id, "test-wax");
     EXPECT_TRUE(r->substance.custom);
-    EXPECT_EQ(*r->customSubstanceJson, Json::parse(kCustomSubstance));
+    EXPECT_EQ(r->substance.definition->compact(), Json::parse(kCustomSubstance).dump());
     // Key order inside the definition is the author's, not alphabetical.
     const std::string written = writeProject(*r);
     EXPECT_LT(written.find("\"name\": \"Test wax\""), written.find("\"molarMass\""));

@@ -1,6 +1,7 @@
 // Tests of heatchain/substance.hpp: both spellings of a substance (library
 // file, project-file custom object), every error naming its JSON path, and
 // the embedded library as a whole.
+#include "heatchain/json.hpp"
 #include "heatchain/substance.hpp"
 
 #include <cmath>

@@ -17,6 +17,7 @@
 #include <string>
 #include <string_view>
 
+#include "heatchain/json.hpp"
 #include "heatchain/project_file.hpp"
 #include "heatchain/property_model.hpp"
 #include "heatchain/solver.hpp"

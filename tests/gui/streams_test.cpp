@@ -118,7 +118,7 @@ private slots:
         QVERIFY(!w.chain()->laneMarkedCurrent(0));
         const Stream& s = set.streams[std::size_t(lane)];
         const SequenceResult& r = results[std::size_t(lane)];
-        QCOMPARE(qs(w.document()->project().substanceId), qs(s.project.substanceId));
+        QCOMPARE(qs(w.document()->project().substance.id), qs(s.project.substance.id));
         // The ledger lists that stream's steps with core's duties.
         const auto rows = ledgerSteps(w.ledger());
         QCOMPARE(int(rows.size()), int(s.project.steps.size()));

@@ -26,6 +26,7 @@
 #include <vector>
 
 #include "heatchain/heat_capacity.hpp"
+#include "heatchain/json.hpp"
 #include "heatchain/substance.hpp"
 #include "support/python_oracle.hpp"
 

@@ -3,6 +3,7 @@
 // function of IAPWS R10-06 (iapws._iapws._Ice). Scenarios are our own.
 #include <gtest/gtest.h>
 
+#include <cmath>
 #include <sstream>
 #include <string>
 

@@ -7,8 +7,6 @@
 #include <string_view>
 #include <vector>
 
-#include <nlohmann/json.hpp>
-
 #include "heatchain/constants.hpp"
 #include "heatchain/property_model.hpp"
 #include "heatchain/substance.hpp"
@@ -16,8 +14,6 @@
 #include "heatchain/unknown_fields.hpp"
 
 namespace heatchain {
-
-using Json = nlohmann::ordered_json;
 
 // A quantity as typed ("6 barg") and its SI value.
 struct Quantity {
@@ -169,10 +165,9 @@ struct Project {
     UnknownFields displayExtra;
     SystemKind system = SystemKind::SteadyFlow;
     ModelKind model = ModelKind::Reference;
-    // Either a library id or a custom substance definition.
-    std::string substanceId;
-    std::optional<Json> customSubstanceJson;  // the object as written, when custom
-    Substance substance;                      // resolved definition
+    // A library substance (written as its id), or a custom one (its
+    // definition, kept as written, in substance.definition).
+    Substance substance;
     Basis basis;
     // Gauge pressures are read against it; none: the standard atmosphere.
     std::optional<Quantity> atmosphere;

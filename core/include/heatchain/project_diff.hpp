@@ -7,6 +7,7 @@
 #include <string>
 #include <vector>
 
+#include "heatchain/json.hpp"
 #include "heatchain/project.hpp"
 #include "heatchain/solver.hpp"
 

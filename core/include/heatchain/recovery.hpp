@@ -18,6 +18,7 @@
 #include <string>
 #include <vector>
 
+#include "heatchain/json.hpp"
 #include "heatchain/project.hpp"
 #include "heatchain/result.hpp"
 #include "heatchain/solver.hpp"

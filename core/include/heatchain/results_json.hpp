@@ -4,6 +4,7 @@
 #include <iosfwd>
 #include <string>
 
+#include "heatchain/json.hpp"
 #include "heatchain/project.hpp"
 #include "heatchain/solver.hpp"
 

@@ -8,7 +8,9 @@
 #include <string_view>
 #include <vector>
 
-#include <nlohmann/json.hpp>
+#include <memory>
+
+#include <nlohmann/json_fwd.hpp>
 
 #include "heatchain/heat_capacity.hpp"
 #include "heatchain/result.hpp"
@@ -63,12 +65,29 @@ std::string_view hazardCaution(Hazard h);  // one clause, lower case, for people
 // "Ammonia: toxic by inhalation: …; flammable: …." or empty when none.
 std::string hazardSentence(const struct Substance& s);
 
+// A custom substance's definition as it was written (its JSON object), kept
+// opaque: the project writer writes it back unchanged, resolveProject reads
+// it again under a new atmosphere, and core looks up its optional sections
+// ("uncertainty"). Copies share it; it is never changed in place.
+class SubstanceDefinition {
+public:
+    std::string compact() const;  // compact JSON text, e.g. a cache key
+    friend bool operator==(const SubstanceDefinition& a, const SubstanceDefinition& b);
+
+    struct Kept;  // the JSON object itself (substance.cpp)
+
+private:
+    friend struct SubstanceDefinitionAccess;
+    std::shared_ptr<const Kept> kept_;
+};
+
 struct Substance {
     std::string id;       // "water", "carbon-dioxide", or a custom id
     std::string name;     // "Water", "Carbon dioxide"
     std::string formula;  // "H2O"
     std::string casNumber;
     bool custom = false;
+    std::optional<SubstanceDefinition> definition;  // a custom substance as written in its project
 
     double molarMass = 0;  // kg/mol
 
