@@ -547,29 +547,16 @@ int sweepCommand(const Args& a) {
     if (json) {
         text = cli::sweepToJson(spec, r).dump(2) + "\n";
     } else if (csv) {
-        auto q = [](const std::string& s) {
-            if (s.find_first_of(",\"\n") == std::string::npos) return s;
-            std::string o = "\"";
-            for (char c : s) {
-                if (c == '"') o += '"';
-                o += c;
-            }
-            return o + "\"";
-        };
+        const auto q = csvField;
         std::ostringstream o;
         o << q(spec.input + " [" + cli::siLabel(r.inputDimension) + "]");
         for (const auto& out : r.outputs) o << "," << q(out.key + " [" + cli::siLabel(out.dimension) + "]");
         o << ",error\n";
-        char buf[64];
         for (const auto& p : r.points) {
-            std::snprintf(buf, sizeof buf, "%.10g", p.x);
-            o << buf;
+            o << csvNumber(p.x);
             for (const auto& v : p.values) {
                 o << ",";
-                if (v) {
-                    std::snprintf(buf, sizeof buf, "%.10g", *v);
-                    o << buf;
-                }
+                if (v) o << csvNumber(*v);
             }
             o << "," << (p.error ? q(p.error->text()) : std::string()) << "\n";
         }

@@ -175,7 +175,7 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
 
     buildDocks();
     buildActions();
-    // Utilities and sweeps (issue 7): their own menu, before View.
+    // Utilities and sweeps: their own menu, before View.
     auto* process = new QMenu(tr("&Process"), this);
     process->addAction(tr("&Utilities and required minimum approach…"), this, &MainWindow::editUtilities);
     process->addAction(tr("&Sweep an input…"), this, &MainWindow::openSweep);

@@ -124,21 +124,11 @@ ProjectSettingsDialog::ProjectSettingsDialog(const Project& project, QWidget* pa
     columns->addWidget(material, 1);
 
     basis_->setCheck([this](const QString& t) -> QString {
-        auto r = parseTypedQuantity(t.toStdString(), basisDimension(), base_);
+        auto r = parseTypedQuantity(t.toStdString(), heatchain::basisDimension(Basis::Kind(basisKind_->currentData().toInt())), base_);
         return r ? QString() : qs(r.error().message);
     });
 
     finishLayout(outer);
-}
-
-Dimension ProjectSettingsDialog::basisDimension() const {
-    switch (Basis::Kind(basisKind_->currentData().toInt())) {
-    case Basis::Kind::Mass: return Dimension::Mass;
-    case Basis::Kind::Amount: return Dimension::Amount;
-    case Basis::Kind::MassFlow: return Dimension::MassFlow;
-    case Basis::Kind::MolarFlow: return Dimension::MolarFlow;
-    }
-    return Dimension::MassFlow;
 }
 
 QString ProjectSettingsDialog::build(Project& p) {

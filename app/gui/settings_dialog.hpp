@@ -27,7 +27,6 @@ public:
 
 private:
     QString build(Project& p) override;
-    Dimension basisDimension() const;
     QLineEdit *title_, *author_, *revision_;
     QPlainTextEdit* notes_;
     QComboBox *system_, *basisKind_, *model_, *substance_, *units_;

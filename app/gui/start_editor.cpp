@@ -17,16 +17,6 @@ using namespace heatchain::view;
 namespace {
 QString qs(const std::string& s) { return QString::fromStdString(s); }
 const QString kCustom = QStringLiteral("\x01custom");
-
-Dimension basisDimension(Basis::Kind k) {
-    switch (k) {
-    case Basis::Kind::Mass: return Dimension::Mass;
-    case Basis::Kind::Amount: return Dimension::Amount;
-    case Basis::Kind::MassFlow: return Dimension::MassFlow;
-    case Basis::Kind::MolarFlow: return Dimension::MolarFlow;
-    }
-    return Dimension::MassFlow;
-}
 }  // namespace
 
 StartEditor::StartEditor(ProjectDocument* doc, QWidget* parent) : QWidget(parent), doc_(doc) {

@@ -74,6 +74,26 @@ std::string_view pathId(PathKind p) {
     return "isentropic";
 }
 
+std::string_view basisKey(Basis::Kind k) {
+    switch (k) {
+        case Basis::Kind::Mass: return "mass";
+        case Basis::Kind::Amount: return "amount";
+        case Basis::Kind::MassFlow: return "massFlow";
+        case Basis::Kind::MolarFlow: return "molarFlow";
+    }
+    return "mass";
+}
+
+Dimension basisDimension(Basis::Kind k) {
+    switch (k) {
+        case Basis::Kind::Mass: return Dimension::Mass;
+        case Basis::Kind::Amount: return Dimension::Amount;
+        case Basis::Kind::MassFlow: return Dimension::MassFlow;
+        case Basis::Kind::MolarFlow: return Dimension::MolarFlow;
+    }
+    return Dimension::Mass;
+}
+
 // Mass and mass-flow bases are already kg or kg/s; a molar basis is turned
 // into mass with the substance's molar mass (kg/mol).
 double Project::massBasis() const {

@@ -31,6 +31,16 @@ std::optional<Reservoir> readReservoir(const Reader& r, const Json& step, const 
     return res;
 }
 
+// A step's or a utility's id, which it must have.
+std::string readId(const Reader& r, const Json& v, const JsonPath& path, std::string_view owner,
+                   std::string_view example) {
+    const Json* id = member(v, "id");
+    if (!id)
+        r.fail(path, "the " + std::string(owner) + " has no id; every " + std::string(owner) +
+                         " needs a unique \"id\", e.g. " + inQuotes(example));
+    return r.string(*id, child(path, "id"));
+}
+
 }  // namespace
 
 HeatLossSpec readHeatLoss(const Reader& r, const Json& v, const JsonPath& path) {
@@ -113,9 +123,7 @@ Step readStep(const Reader& r, const Json& v, long index, const Project& p) {
     r.object(v, path, "a step");
     Step s;
 
-    const Json* id = member(v, "id");
-    if (!id) r.fail(path, "the step has no id; every step needs a unique \"id\", e.g. \"economiser\"");
-    s.id = r.string(*id, child(path, "id"));
+    s.id = readId(r, v, path, "step", "economiser");
 
     const Json* kind = member(v, "kind");
     if (!kind) r.fail(path, "the step has no kind (heat, cool, melt, freeze, boil, condense, sublimate, deposit, "
@@ -161,9 +169,7 @@ Utility readUtility(const Reader& r, const Json& v, long index) {
     const JsonPath path{{"utilities", -1}, {"", index}};
     r.object(v, path, "a utility");
     Utility u;
-    const Json* id = member(v, "id");
-    if (!id) r.fail(path, "the utility has no id; every utility needs a unique \"id\", e.g. \"lp-steam\"");
-    u.id = r.string(*id, child(path, "id"));
+    u.id = readId(r, v, path, "utility", "lp-steam");
     const Json* kind = member(v, "kind");
     if (!kind) r.fail(path, "utility " + inQuotes(u.id) + " has no kind (steam, sensible or fixed)");
     const std::string k = r.string(*kind, child(path, "kind"));

@@ -141,27 +141,6 @@ RuleCheck checkTransfer(const Step& s, const JsonPath& path) {
 
 JsonPath stepPath(long index) { return JsonPath{{"steps", -1}, {"", index}}; }
 
-std::string_view basisKey(Basis::Kind k) {
-    switch (k) {
-        case Basis::Kind::Mass: return "mass";
-        case Basis::Kind::Amount: return "amount";
-        case Basis::Kind::MassFlow: return "massFlow";
-        case Basis::Kind::MolarFlow: return "molarFlow";
-    }
-    return "mass";
-}
-
-Dimension basisDimension(Basis::Kind k) {
-    switch (k) {
-        case Basis::Kind::Mass: return Dimension::Mass;
-        case Basis::Kind::Amount: return Dimension::Amount;
-        case Basis::Kind::MassFlow: return Dimension::MassFlow;
-        case Basis::Kind::MolarFlow: return Dimension::MolarFlow;
-    }
-    return Dimension::Mass;
-}
-
-
 bool stepFieldBelongs(StepKind kind, std::string_view field) {
     const bool heatCool = isHeatCool(kind);
     const bool machine = isMachine(kind);

@@ -50,10 +50,8 @@ std::span<const std::string_view> targetsOf(StepKind kind);
 // empty for the fields every utility has.
 std::string_view utilityFieldOwner(std::string_view field);
 
-// The path of steps[index], and the key and dimension of a basis.
+// The path of steps[index].
 JsonPath stepPath(long index);
-std::string_view basisKey(Basis::Kind kind);  // "mass", "amount", "massFlow", "molarFlow"
-Dimension basisDimension(Basis::Kind kind);
 
 // ---- Rules, each where the reader applies it ---------------------------------
 

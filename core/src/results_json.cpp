@@ -240,6 +240,22 @@ void writeResultsJson(std::ostream& out, const Project& project, const SequenceR
     flush();
 }
 
+std::string csvField(const std::string& s) {
+    if (s.find_first_of(",\"\n") == std::string::npos) return s;
+    std::string o = "\"";
+    for (char c : s) {
+        if (c == '"') o += '"';
+        o += c;
+    }
+    return o + "\"";
+}
+
+std::string csvNumber(double v) {
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.10g", v);
+    return buf;
+}
+
 std::string resultsToCsv(const Project& project, const SequenceResult& r) {
     const bool closed = project.system == SystemKind::Closed;
     const std::string E = closed ? "J" : "W", S = closed ? "J/K" : "W/K";
@@ -250,20 +266,8 @@ std::string resultsToCsv(const Project& project, const SequenceResult& r) {
         << ",utility,utility use [" << (closed ? "kg" : "kg/s") << "],utility volume [" << (closed ? "m3" : "m3/s")
         << "],min approach [K],exergy change [" << E << "],exergy of heat [" << E << "],exergy supplied [" << E
         << "],second-law efficiency,share of exergy destroyed\n";
-    auto q = [](const std::string& s) {
-        if (s.find_first_of(",\"\n") == std::string::npos) return s;
-        std::string o = "\"";
-        for (char c : s) {
-            if (c == '"') o += '"';
-            o += c;
-        }
-        return o + "\"";
-    };
-    auto n = [](double v) {
-        char buf[64];
-        std::snprintf(buf, sizeof buf, "%.10g", v);
-        return std::string(buf);
-    };
+    const auto q = csvField;
+    const auto n = csvNumber;
     auto qual = [&](const State& s) { return s.quality ? n(*s.quality) : std::string(); };
     for (const auto& s : r.steps) {
         if (!s.computed) {

@@ -112,31 +112,11 @@ struct Collector {
     }
 };
 
-std::string basisKey(Basis::Kind k) {
-    switch (k) {
-        case Basis::Kind::Mass: return "mass";
-        case Basis::Kind::Amount: return "amount";
-        case Basis::Kind::MassFlow: return "massFlow";
-        case Basis::Kind::MolarFlow: return "molarFlow";
-    }
-    return "mass";
-}
-
-Dimension basisDimension(Basis::Kind k) {
-    switch (k) {
-        case Basis::Kind::Mass: return Dimension::Mass;
-        case Basis::Kind::Amount: return Dimension::Amount;
-        case Basis::Kind::MassFlow: return Dimension::MassFlow;
-        case Basis::Kind::MolarFlow: return Dimension::MolarFlow;
-    }
-    return Dimension::Mass;
-}
-
 Result<std::vector<InputSlot>> collectInputs(const Project& p) {
     Collector c{p, {}, {}};
     using D = Dimension;
     const Dimension energy = p.system == SystemKind::Closed ? D::Energy : D::Power;
-    c.quantity("basis." + basisKey(p.basis.kind), std::optional<Quantity>(p.basis.amount), basisDimension(p.basis.kind),
+    c.quantity("basis." + std::string(basisKey(p.basis.kind)), std::optional<Quantity>(p.basis.amount), basisDimension(p.basis.kind),
                [](Project& x) { return &x.basis.amount; });
     if (p.surroundings) {
         c.quantity("surroundings.T", std::optional<Quantity>(p.surroundings->T), D::Temperature,

@@ -1,4 +1,4 @@
-// Cost of the issue-7 additions: solving a sample with steam and cooling
+// Cost of the utilities, second law and sweeps: solving a sample with steam and cooling
 // water (approach search, utility use, exergy accounts) and a 20-point sweep.
 #include <benchmark/benchmark.h>
 

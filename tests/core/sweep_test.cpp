@@ -1,4 +1,4 @@
-// Sweeps (issue 7): every point equals a single computation at the same
+// Sweeps: every point equals a single computation at the same
 // input; a point that cannot be computed is reported with its error, not
 // dropped; a bad specification is an error value.
 #include <gtest/gtest.h>

@@ -1,4 +1,4 @@
-// Offscreen tests of the utilities, second-law and sweep views (issue 7).
+// Offscreen tests of the utilities, second-law and sweep views.
 // Core is the oracle: every number the window shows or plots is compared with
 // heatchain::solve / heatchain::sweep of a Project built here with the same
 // change; laws (exergy destroyed ≥ 0, shares summing to one) are checked too.

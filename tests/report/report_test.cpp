@@ -311,7 +311,7 @@ TEST(Exports, ChartsAsSvgAndPng) {
     EXPECT_EQ(runCommand(cli("chart " + sample("boiler-feed") + " -o " + scratch("x.svg").string())).exit, 2);
 }
 
-// Issue 7: the utilities table, each served step's approach and the exergy
+// The utilities table, each served step's approach and the exergy
 // account, against core's results as `compute --json` gives them.
 TEST(Report, UtilitiesAndExergyOfSolventRecovery) {
     const fs::path pdf = scratch("solvent-utilities.pdf");

@@ -145,6 +145,8 @@ struct Basis {
     Quantity amount;  // SI: kg, mol, kg/s or mol/s
     UnknownFields extra;
 };
+std::string_view basisKey(Basis::Kind k);  // "mass", "amount", "massFlow", "molarFlow"
+Dimension basisDimension(Basis::Kind k);   // what its amount is measured in
 
 struct Meta {
     std::string title, author, revision, created, modified, notes;

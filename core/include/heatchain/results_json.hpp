@@ -18,5 +18,10 @@ Json resultsToJson(const Project& project, const SequenceResult& result);
 void writeResultsJson(std::ostream& out, const Project& project, const SequenceResult& result, const Json& more);
 // Ledger as CSV: one row per step and per segment, units in the header row.
 std::string resultsToCsv(const Project& project, const SequenceResult& result);
+// One CSV field: quoted (with its quotes doubled) when it holds a comma, a
+// quote or a line break; a number with ten significant digits. The ledger
+// and the CLI's sweep table both write through them.
+std::string csvField(const std::string& s);
+std::string csvNumber(double v);
 
 }  // namespace heatchain

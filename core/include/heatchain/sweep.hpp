@@ -1,5 +1,5 @@
 #pragma once
-// Sweeps (issue 7): vary one input of one step (or of the start state) over a
+// Sweeps: vary one input of one step (or of the start state) over a
 // range and re-solve the sequence at each point. Each point is set as text in
 // the project and re-read by the project-file parser, so the same units and
 // the same validation apply as in a file; a point that cannot be read or
