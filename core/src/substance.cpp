@@ -327,16 +327,36 @@ namespace {
 // A library file: the definition is the whole text, and an error is labelled
 // with `name` (the file's path, or "texts[i]") and the path from its root.
 Result<Substance> parseText(std::string_view text, const std::string& name) {
+    auto at = [&](std::string message, std::size_t offset) {
+        Error err = makeError(std::move(message), name);
+        const auto pos = detail::positionOfOffset(text, offset);
+        err.line = pos.line;
+        err.column = pos.column;
+        return err;
+    };
+    // What the parser does not check, as for a project file: a library text
+    // holds a few hundred values a dozen levels deep at most, so these limits
+    // only stop a broken or hostile text.
+    constexpr int kMaxDepth = 64;
+    constexpr std::size_t kMaxValues = 1'000'000;
+    const detail::PrescanResult pre = detail::prescanJson(text, kMaxDepth, kMaxValues);
+    if (pre.tooDeep)
+        return at("JSON nested deeper than " + std::to_string(kMaxDepth) + " levels", pre.tooDeep->offset);
+    if (pre.tooManyValues) return at(pre.tooManyValues->message, pre.tooManyValues->offset);
     Json j;
     try {
         j = Json::parse(text);
     } catch (const Json::parse_error& e) {
-        Error err = makeError("not valid JSON: " + std::string(e.what()), name);
-        const auto pos = detail::positionOfOffset(text, e.byte > 0 ? e.byte - 1 : 0);
-        err.line = pos.line;
-        err.column = pos.column;
-        return err;
+        return at("not valid JSON: " + std::string(e.what()), e.byte > 0 ? e.byte - 1 : 0);
+    } catch (const Json::out_of_range&) {
+        if (pre.numberOutOfRange) return at(pre.numberOutOfRange->message, pre.numberOutOfRange->offset);
+        return at("a number is beyond the range of a double", 0);
     }
+    // The parser would keep only the last of a repeated key, silently.
+    if (pre.duplicateKey)
+        return at(pre.duplicateKey->message + " (at " + detail::formatJsonPath(pre.duplicateKey->path) +
+                      "); each key may appear once",
+                  pre.duplicateKey->offset);
     const JsonReader r(text, name, j, JsonReader::Labels::PathOnly);
     try {
         Substance s = detail::readSubstanceDefinition(r, j, {});

@@ -508,7 +508,7 @@ Result<double> parseQuantity(std::string_view text, Dimension expected, const Un
         return makeError(quoted(t) + " is at or below absolute zero (" + shortNumber(si) +
                          " K); a temperature must be above 0 K");
     if (mustNotBeNegative(expected) && si < 0.0)
-        return makeError(quoted(t) + " is negative; " + withArticle(expected) + " cannot be");
+        return makeError(quoted(t) + " is negative; " + withArticle(expected) + " cannot be negative");
     return si;
 }
 

@@ -258,6 +258,23 @@ TEST(Substance, LibraryFileErrorsGivePathAndPosition) {
     EXPECT_EQ(s.error().column, 0);
 }
 
+// A key written twice in one object of a library text is refused where it
+// stands, not settled silently by the parser keeping the last one.
+TEST(Substance, LibraryFileRepeatedKeyIsRefusedWithItsPosition) {
+    const std::string_view texts[] = {
+        "{\n"
+        "  \"id\": \"sample-gas\", \"name\": \"Sample gas\",\n"
+        "  \"molarMass\": { \"value\": \"28 g/mol\", \"value\": \"32 g/mol\", \"source\": \"s\" }\n"
+        "}\n"};
+    auto lib = SubstanceLibrary::fromJsonTexts(texts);
+    ASSERT_FALSE(lib.ok());
+    EXPECT_EQ(lib.error().where, "texts[0]");
+    EXPECT_NE(lib.error().message.find("the key \"value\" appears twice"), std::string::npos) << lib.error().message;
+    EXPECT_NE(lib.error().message.find("molarMass.value"), std::string::npos) << lib.error().message;
+    EXPECT_EQ(lib.error().line, 3);
+    EXPECT_GT(lib.error().column, 30);  // the second "value", not the first
+}
+
 TEST(Substance, DuplicateIdsAreRefused) {
     const std::string a = kTestWax;
     const std::string_view texts[] = {a, a};

@@ -216,7 +216,7 @@ TEST(Units, ErrorsQuoteTheTextAndSayWhatIsExpected) {
     EXPECT_CONTAINS(errorOf("-1 bar", Dimension::Pressure), "below zero absolute pressure");
     EXPECT_CONTAINS(errorOf("0 Pa", Dimension::Pressure), "below zero absolute pressure");
 
-    EXPECT_CONTAINS(errorOf("-1 kg", Dimension::Mass), "'-1 kg' is negative; a mass cannot be");
+    EXPECT_CONTAINS(errorOf("-1 kg", Dimension::Mass), "'-1 kg' is negative; a mass cannot be negative");
     EXPECT_CONTAINS(errorOf("-4 t/h", Dimension::MassFlow), "negative");
     EXPECT_CONTAINS(errorOf("-4 kmol/h", Dimension::MolarFlow), "negative");
     EXPECT_CONTAINS(errorOf("-1 kmol", Dimension::Amount), "negative");
