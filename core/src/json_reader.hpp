@@ -29,6 +29,7 @@ namespace heatchain::detail {
 // parseSubstance, SubstanceLibrary::fromJsonTexts).
 struct ReadFailure {
     Error error;
+    JsonPath path;  // where, as a path from the root (the error has it as a label)
 };
 
 inline std::string jsonTypeName(const Json& v) {
@@ -106,7 +107,7 @@ public:
     }
 
     [[noreturn]] void fail(const JsonPath& path, std::string message) const {
-        throw ReadFailure{errorAt(path, std::move(message))};
+        throw ReadFailure{errorAt(path, std::move(message)), path};
     }
 
     const Json& object(const Json& v, const JsonPath& path, std::string_view what) const {

@@ -1,6 +1,7 @@
 // Resolving a worksheet edited in code (project_rules.hpp): every quantity
 // read again from its text, the substance found again, and every rule
 // applied, in the order the file's reader meets them.
+#include <exception>
 #include <string>
 #include <utility>
 
@@ -9,6 +10,7 @@
 #include "heatchain/tolerance.hpp"
 #include "project_rules.hpp"
 #include "substance_definition_json.hpp"
+#include "substance_fields.hpp"
 
 namespace heatchain::detail {
 
@@ -93,10 +95,20 @@ void resolveUtility(Resolver& r, Utility& u, long index) {
 // definition read again under the project's atmosphere.
 RuleCheck resolveSubstance(Project& p, const UnitContext& units) {
     if (p.substance.definition) {
+        // Read as the file's reader reads it, under "substance" (gauge
+        // pressures against this project's atmosphere), so that a fault is
+        // named at the same path.
         const SubstanceDefinition definition = *p.substance.definition;
-        auto s = parseSubstance(SubstanceDefinitionAccess::json(definition), "substance", units);
-        if (!s) return breach({{"substance", -1}}, s.error().message + " (at " + s.error().where + ")");
-        p.substance = std::move(*s);
+        const Json& j = SubstanceDefinitionAccess::json(definition);
+        JsonReader reader({}, {}, j, JsonReader::Labels::PathOnly);
+        reader.units = units;
+        try {
+            p.substance = readSubstanceDefinition(reader, j, {{"substance", -1}});
+        } catch (const ReadFailure& f) {
+            return breach(f.path, f.error.message);
+        } catch (const std::exception& e) {  // a slip past the reader's type checks
+            return breach({{"substance", -1}}, std::string("cannot read the substance: ") + e.what());
+        }
         p.substance.custom = true;
         p.substance.definition = definition;
     } else if (const Substance* s = SubstanceLibrary::builtin().find(p.substance.id)) {

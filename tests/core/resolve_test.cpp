@@ -333,3 +333,29 @@ TEST(ResolveProject, NamesTheStepAndField) {
     EXPECT_EQ(r.error().where, "step \"pump\" (steps[0]).to.ratio");
     EXPECT_NE(r.error().message.find("greater than 1"), std::string::npos) << r.error().message;
 }
+
+// A custom substance is read again under a new atmosphere; a pressure of it
+// that the new atmosphere puts below zero absolute is named at its own field,
+// as the file's reader names it, not at "substance" as a whole.
+TEST(ResolveProject, NamesTheFieldOfACustomSubstance) {
+    std::ifstream in(fs::path(HEATCHAIN_SOURCE_DIR) / "sample-projects" / "melt-tank.hchain", std::ios::binary);
+    std::stringstream text;
+    text << in.rdbuf();
+    std::string s = text.str();
+    const std::string boilingP = "\"P\": \"1 atm\"";
+    const auto at = s.find(boilingP, s.find("\"boiling\""));
+    ASSERT_NE(at, std::string::npos);
+    s.replace(at, boilingP.size(), "\"P\": \"-0.5 barg\"");  // 0.51 bar absolute under 1 atm
+    auto p = parseProject(s);
+    ASSERT_TRUE(p.ok()) << p.error().text();
+    ASSERT_TRUE(p->substance.custom);
+
+    p->atmosphere = Quantity{"0.4 bar", 0.0};  // now -0.1 bar absolute
+    const auto resolved = resolveProject(*p);
+    ASSERT_FALSE(resolved.ok());
+    EXPECT_EQ(resolved.error().where, "substance.boiling.P");
+    const auto fromFile = parseProject(writeProject(*p));
+    ASSERT_FALSE(fromFile.ok());
+    EXPECT_EQ(resolved.error().where, fromFile.error().where);
+    EXPECT_EQ(resolved.error().message, fromFile.error().message);
+}
