@@ -25,7 +25,7 @@ namespace {
 constexpr double kCardW = 212, kCardH = 146, kGapX = 44, kGapY = 46, kMargin = 20;
 // Several streams: each lane starts with a header strip naming its stream.
 constexpr double kLaneHeaderH = 30;
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 }  // namespace
 
 // ---------------------------------------------------------------------------

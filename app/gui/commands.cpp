@@ -1,4 +1,5 @@
 #include "commands.hpp"
+#include "heatchain_view/format.hpp"
 
 #include <algorithm>
 
@@ -6,7 +7,7 @@
 
 namespace heatchain::gui {
 
-static QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 
 void StepCommand::onStream() const {
     if (doc_->currentStream() != stream_) doc_->setCurrentStream(stream_, -1);

@@ -18,7 +18,7 @@ namespace heatchain::gui {
 using namespace heatchain::view;
 
 namespace {
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 
 const QColor kAdded(0x2e, 0x7d, 0x32), kRemoved(0xb4, 0x23, 0x18), kMoved(0x1f, 0x5f, 0xa8), kMuted(0x6b, 0x72, 0x80);
 

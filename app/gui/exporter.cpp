@@ -1,4 +1,5 @@
 #include "exporter.hpp"
+#include "heatchain_view/format.hpp"
 
 #include <QAction>
 #include <QDir>
@@ -8,7 +9,7 @@
 namespace heatchain::gui {
 
 namespace {
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 }  // namespace
 
 Exporter::Exporter(ProjectDocument* doc, QWidget* dialogParent, WindowHooks hooks)

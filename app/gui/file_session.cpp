@@ -10,7 +10,7 @@
 namespace heatchain::gui {
 
 namespace {
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 }  // namespace
 
 FileSession::FileSession(ProjectDocument* doc, DiskWatch* watch, WindowHooks hooks, QWidget* dialogParent)

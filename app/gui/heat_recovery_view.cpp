@@ -17,7 +17,7 @@ namespace heatchain::gui {
 using namespace heatchain::view;
 
 namespace {
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 // The slider moves in half kelvins.
 constexpr double kSliderStepK = 0.5;
 constexpr int kSweepPoints = 41;

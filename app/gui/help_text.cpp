@@ -1,4 +1,5 @@
 #include "help_text.hpp"
+#include "heatchain_view/format.hpp"
 
 #include <QApplication>
 #include <QMessageBox>
@@ -13,8 +14,7 @@ const char* const kCaution =
     "Heatchain computes idealised process paths. Pressure equipment, steam, cryogens and hot "
     "surfaces are governed by local codes and licensed practice; have results checked by a "
     "qualified engineer.";
-QString qs(const std::string& s) { return QString::fromStdString(s); }
-QString qs(std::string_view s) { return QString::fromUtf8(s.data(), qsizetype(s.size())); }
+using heatchain::view::qs;
 
 // The quick-add phrases, for its tooltip and the getting-started page.
 const char* const kQuickAddPhrases[][2] = {

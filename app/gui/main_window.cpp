@@ -66,8 +66,7 @@ public:
 using namespace heatchain::view;
 
 namespace {
-QString qs(const std::string& s) { return QString::fromStdString(s); }
-QString qs(std::string_view s) { return QString::fromUtf8(s.data(), qsizetype(s.size())); }
+using heatchain::view::qs;
 
 }  // namespace
 

@@ -7,7 +7,7 @@
 namespace heatchain::gui {
 
 namespace {
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 QColor levelColour(MessagesPanel::Level l) {
     switch (l) {
     case MessagesPanel::Level::Error: return {0xb4, 0x23, 0x18};

@@ -1,4 +1,5 @@
 #include "recovery.hpp"
+#include "heatchain_view/format.hpp"
 
 #include <QDateTime>
 #include <QFile>
@@ -12,7 +13,7 @@
 namespace heatchain::gui {
 
 namespace {
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 }  // namespace
 
 AutosaveKeeper::AutosaveKeeper(ProjectDocument* doc, WindowHooks hooks, QObject* parent)

@@ -14,7 +14,7 @@ namespace heatchain::gui {
 using namespace heatchain::view;
 
 namespace {
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 }
 
 SecondLawPanel::SecondLawPanel(ProjectDocument* doc, QWidget* parent) : QTableWidget(parent), doc_(doc) {

@@ -13,7 +13,7 @@
 namespace heatchain::gui {
 
 namespace {
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 QString numText(const std::optional<Number>& n) { return n ? qs(n->typed()) : QString(); }
 }  // namespace
 

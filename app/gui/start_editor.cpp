@@ -15,7 +15,7 @@ namespace heatchain::gui {
 using namespace heatchain::view;
 
 namespace {
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 const QString kCustom = QStringLiteral("\x01custom");
 }  // namespace
 

@@ -17,7 +17,7 @@ namespace heatchain::gui {
 using namespace heatchain::view;
 
 namespace {
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 QString typedText(const std::optional<Quantity>& q) { return q ? qs(q->text) : QString(); }
 QString typedText(const std::optional<Number>& n) {
     if (!n) return {};

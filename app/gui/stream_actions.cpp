@@ -1,4 +1,5 @@
 #include "stream_actions.hpp"
+#include "heatchain_view/format.hpp"
 
 #include <QDialog>
 #include <QDialogButtonBox>
@@ -14,7 +15,7 @@
 namespace heatchain::gui {
 
 namespace {
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 }  // namespace
 
 StreamActions::StreamActions(ProjectDocument* doc, QWidget* parent) : QObject(parent), doc_(doc), parent_(parent) {}

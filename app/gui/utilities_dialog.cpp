@@ -17,7 +17,7 @@
 namespace heatchain::gui {
 
 namespace {
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 QString text(const std::optional<Quantity>& q) { return q ? qs(q->text) : QString(); }
 constexpr int kOriginalIdRole = Qt::UserRole + 1;
 

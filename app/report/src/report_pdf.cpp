@@ -45,8 +45,7 @@ using namespace report_detail;
 using view::formatDisplay;
 using view::unitSymbol;
 
-QString qs(std::string_view s) { return QString::fromUtf8(s.data(), qsizetype(s.size())); }
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 
 // The conditions met anywhere along the sequence, for the cautions.
 struct Extremes {

@@ -15,7 +15,7 @@ namespace heatchain::report_detail {
 
 namespace {
 
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 
 constexpr int kSweepPoints = 41;
 

@@ -13,7 +13,7 @@ namespace heatchain::report_detail {
 
 namespace {
 
-QString qs(const std::string& s) { return QString::fromStdString(s); }
+using heatchain::view::qs;
 
 // A time as people read it: "42.5 min", "3.20 h".
 QString timeText(double s) {

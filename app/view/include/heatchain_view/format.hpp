@@ -17,6 +17,9 @@ namespace heatchain::view {
 // Pressures are always marked absolute or gauge: "bar(a)", "kPa(g)", "psia".
 QString unitSymbol(Dimension d, UnitSystem system, const UnitContext& ctx = {});
 
+// Core's UTF-8 text as a QString (std::string, string_view and literals alike).
+inline QString qs(std::string_view s) { return QString::fromUtf8(s.data(), qsizetype(s.size())); }
+
 // Text from core or a file for a message: valid UTF-8 as it is, stray bytes
 // and control characters (but line feed and tab) as \xHH.
 QString escapedText(std::string_view bytes);
