@@ -37,21 +37,20 @@ QRectF ChartWidget::chartRect() const { return QRectF(rect()).adjusted(0, 22, 0,
 
 void ChartWidget::paintEvent(QPaintEvent*) {
     QPainter p(this);
-    paintPanelHeading(p, *this, title_);
+    QString note;
+    QColor noteColour = view::ink::muted();
     if (chart_.kind() == view::ProcessChart::Kind::TemperatureDuty) {
         if (auto a = chart_.smallestApproach()) {
-            p.setFont(font());
-            p.setPen(a->belowMinimum ? view::ink::error() : view::ink::muted());
+            if (a->belowMinimum) noteColour = view::ink::error();
             const auto& steps = doc_->project().steps;
             const QString id = a->step >= 0 && a->step < int(steps.size())
                                    ? QString::fromStdString(steps[std::size_t(a->step)].id) : QString();
-            p.drawText(QRectF(8, 2, width() - 16, 20), Qt::AlignVCenter | Qt::AlignRight,
-                       tr("closest approach %1 %2 at %3")
-                           .arg(view::formatNumber(a->dT, 4, 1),
-                                view::unitSymbol(Dimension::TemperatureDifference, doc_->project().displayUnits), id));
+            note = tr("closest approach %1 %2 at %3")
+                       .arg(view::formatNumber(a->dT, 4, 1),
+                            view::unitSymbol(Dimension::TemperatureDifference, doc_->project().displayUnits), id);
         }
     }
-    p.setFont(font());
+    paintPanelHeading(p, *this, title_, note, noteColour);
     chart_.paint(p, chartRect());
     if (hover_) {
         p.setRenderHint(QPainter::Antialiasing, true);
@@ -92,14 +91,19 @@ void ChartWidget::leaveEvent(QEvent*) {
     update();
 }
 
-void paintPanelHeading(QPainter& p, const QWidget& w, const QString& title) {
+void paintPanelHeading(QPainter& p, const QWidget& w, const QString& title, const QString& note,
+                       const QColor& noteColour) {
     p.fillRect(w.rect(), Qt::white);
+    const QRectF line(8, 2, w.width() - 16, 20);
     QFont f = w.font();
     f.setBold(true);
     p.setFont(f);
     p.setPen(view::ink::text());
-    p.drawText(QRectF(8, 2, w.width() - 16, 20), Qt::AlignVCenter, title);
+    p.drawText(line, Qt::AlignVCenter, title);
     p.setFont(w.font());
+    if (note.isEmpty()) return;
+    p.setPen(noteColour);
+    p.drawText(line, Qt::AlignVCenter | Qt::AlignRight, note);
 }
 
 }  // namespace heatchain::gui

@@ -6,6 +6,7 @@
 #include <QWidget>
 
 #include "document.hpp"
+#include "heatchain_view/palette.hpp"
 #include "heatchain_view/process_chart.hpp"
 
 namespace heatchain::gui {
@@ -36,7 +37,9 @@ private:
 };
 
 // The charts' common face: a white panel with its title in bold at the top
-// left (the painter's font is the widget's again afterwards).
-void paintPanelHeading(QPainter& p, const QWidget& w, const QString& title);
+// left and, when given, a note at the top right in `noteColour` (the
+// painter's font is the widget's again afterwards).
+void paintPanelHeading(QPainter& p, const QWidget& w, const QString& title, const QString& note = {},
+                       const QColor& noteColour = view::ink::muted());
 
 }  // namespace heatchain::gui

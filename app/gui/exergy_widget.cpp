@@ -41,13 +41,10 @@ QRectF ExergyWidget::chartRect() const { return QRectF(rect()).adjusted(4, 24, -
 
 void ExergyWidget::paintEvent(QPaintEvent*) {
     QPainter p(this);
-    paintPanelHeading(p, *this, tr("Exergy destroyed by step"));
     const SequenceResult& r = doc_->result();
-    if (r.exergyAvailable) {
-        p.setPen(view::ink::muted());
-        p.drawText(QRectF(8, 2, width() - 16, 20), Qt::AlignVCenter | Qt::AlignRight,
-                   tr("sequence η_II %1").arg(view::efficiencyText(r.totals.secondLawEfficiency)));
-    }
+    paintPanelHeading(p, *this, tr("Exergy destroyed by step"),
+                      r.exergyAvailable ? tr("sequence η_II %1").arg(view::efficiencyText(r.totals.secondLawEfficiency))
+                                        : QString());
     chart_.paint(p, chartRect());
 }
 

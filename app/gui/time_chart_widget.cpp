@@ -2,7 +2,7 @@
 
 #include <QPainter>
 
-#include "heatchain_view/palette.hpp"
+#include "chart_widget.hpp"
 
 namespace heatchain::gui {
 
@@ -23,20 +23,9 @@ void TimeChartWidget::refresh() {
 
 void TimeChartWidget::paintEvent(QPaintEvent*) {
     QPainter p(this);
-    p.fillRect(rect(), Qt::white);
-    QFont f = font();
-    f.setBold(true);
-    p.setFont(f);
-    p.setPen(view::ink::text());
-    p.drawText(QRectF(8, 2, width() - 16, 20), Qt::AlignVCenter, tr("Temperature and duty – time"));
     const auto& t = doc_->result().totals;
-    if (t.cycleTime) {
-        p.setFont(font());
-        p.setPen(view::ink::muted());
-        p.drawText(QRectF(8, 2, width() - 16, 20), Qt::AlignVCenter | Qt::AlignRight,
-                   tr("cycle time %1 min").arg(*t.cycleTime / 60.0, 0, 'f', 1));
-    }
-    p.setFont(font());
+    paintPanelHeading(p, *this, tr("Temperature and duty – time"),
+                      t.cycleTime ? tr("cycle time %1 min").arg(*t.cycleTime / 60.0, 0, 'f', 1) : QString());
     chart_.paint(p, QRectF(rect()).adjusted(0, 22, 0, 0));
 }
 
