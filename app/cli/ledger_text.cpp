@@ -246,8 +246,7 @@ std::string ledgerText(const Project& p, const SequenceResult& r) {
                                   e(g.Q)});
     }
     const auto& tt = r.totals;
-    const double eT = std::max({std::fabs(tt.Q), std::fabs(tt.W), std::fabs(tt.dH), std::fabs(tt.dU)});
-    const double sT = std::max(std::fabs(tt.dS), std::fabs(tt.Sgen));
+    const double eT = energyScale(tt), sT = entropyScale(tt);
     auto te = [&](double v) { return fixed(E(forDisplay(v, eT)), dE_); };
     auto ts = [&](double v) { return fixed(S(forDisplay(v, sT)), dS_); };
     t.rows.push_back({tt.complete ? "total" : "total (incomplete)", "", "", "", "", te(tt.Q), te(tt.W), te(tt.dH),

@@ -83,9 +83,9 @@ std::string targetsText(const StreamSet& set, const Recovery& r, bool problemTab
         for (const UtilityPlacement& u : r.utilities.levels)
             o << "  " << std::left << std::setw(16) << u.id << std::right << (u.hot ? " hot  " : " cold ") << std::setw(12)
               << T(u.T) << std::setw(16) << Q(u.duty) << "\n";
-        if (r.utilities.hotUnmet > 1e-9 * std::max(1.0, t.hotUtilityMin))
+        if (hotFallsShort(r.utilities, t))
             o << "  no hot level is hot enough for " << Q(r.utilities.hotUnmet) << "\n";
-        if (r.utilities.coldUnmet > 1e-9 * std::max(1.0, t.coldUtilityMin))
+        if (coldFallsShort(r.utilities, t))
             o << "  no cold level is cold enough for " << Q(r.utilities.coldUnmet) << "\n";
     }
     if (!r.timeAveraged.empty()) {

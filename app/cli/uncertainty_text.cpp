@@ -7,6 +7,8 @@
 #include <sstream>
 #include <utility>
 
+#include "heatchain/rules.hpp"
+
 namespace heatchain::cli {
 
 bool isUncertaintyOption(const std::string& option) {
@@ -58,7 +60,7 @@ std::string uncertaintyText(const Project& project, const UncertaintyResult& r) 
     const bool mc = r.method == UncertaintyMethod::MonteCarlo;
     auto value = [&](UncertainOutput o) {
         // Below the solver's own noise, a spread is none.
-        if (o.u <= 1e-9 * std::abs(o.value)) o.u = 0;
+        o.u = spreadForDisplay(o.u, o.value);
         // ± of a temperature is a temperature difference.
         const Dimension ud = o.dimension == Dimension::Temperature ? Dimension::TemperatureDifference : o.dimension;
         std::string s = formatQuantity(o.value, o.dimension, units, ctx) + " ± " + formatQuantity(o.u, ud, units, ctx);

@@ -13,6 +13,7 @@
 #include <QWheelEvent>
 #include <cmath>
 
+#include "heatchain/rules.hpp"
 #include "heatchain_view/format.hpp"
 #include "heatchain_view/palette.hpp"
 #include "heatchain_view/step_icons.hpp"
@@ -114,11 +115,11 @@ public:
                 line2_ = phaseText(sr.end);
                 const Dimension eD = energyDimension(r.system);
                 QStringList qw;
-                const double scale = std::max({std::fabs(sr.Q), std::fabs(sr.W), std::fabs(sr.dH), 1e-30});
-                if (std::fabs(sr.Q) > 1e-9 * scale || !isPressureChangeKind(s.kind))
-                    qw << QStringLiteral("Q %1").arg(formatWithUnit(sr.Q, eD, u, ctx, 4));
-                if (std::fabs(sr.W) > 1e-9 * scale || isPressureChangeKind(s.kind))
-                    qw << QStringLiteral("W %1").arg(formatWithUnit(sr.W, eD, u, ctx, 4));
+                const double scale = energyScale(sr);
+                if (!showsAsZero(sr.Q, scale) || !isPressureChangeKind(s.kind))
+                    qw << QStringLiteral("Q %1").arg(formatWithUnit(forDisplay(sr.Q, scale), eD, u, ctx, 4));
+                if (!showsAsZero(sr.W, scale) || isPressureChangeKind(s.kind))
+                    qw << QStringLiteral("W %1").arg(formatWithUnit(forDisplay(sr.W, scale), eD, u, ctx, 4));
                 // Heat transfer: a batch step's time, or the area a flowing step needs.
                 if (sr.batch)
                     qw << QStringLiteral("t %1 min").arg(QString::number(sr.batch->duration / 60.0, 'f', 1));

@@ -220,9 +220,9 @@ void HeatRecoveryView::showTargets() {
             for (const UtilityPlacement& p : r.utilities.levels)
                 levels << tr("%1 at %2: %3").arg(qs(p.id), T(p.T), Q(p.duty));
             notes << tr("<b>Utility levels</b> against the grand composite curve: %1.").arg(levels.join(QStringLiteral(", ")));
-            if (r.utilities.hotUnmet > 1e-9 * std::max(1.0, t.hotUtilityMin))
+            if (hotFallsShort(r.utilities, t))
                 notes << tr("No hot level is hot enough for %1.").arg(Q(r.utilities.hotUnmet));
-            if (r.utilities.coldUnmet > 1e-9 * std::max(1.0, t.coldUtilityMin))
+            if (coldFallsShort(r.utilities, t))
                 notes << tr("No cold level is cold enough for %1.").arg(Q(r.utilities.coldUnmet));
         }
         if (!r.timeAveraged.empty()) {

@@ -6,6 +6,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "heatchain/rules.hpp"
 #include "heatchain_view/format.hpp"
 
 namespace heatchain::gui {
@@ -176,7 +177,7 @@ QVariant LedgerModel::siValue(const Row& row, int c) const {
         const UncertainOutput* o = path.empty() ? nullptr : u->find(path);
         if (!o) return {};
         // Below the solver's own noise a spread is none (as the command line).
-        return o->u <= 1e-9 * std::fabs(o->value) ? 0.0 : o->u;
+        return spreadForDisplay(o->u, o->value);
     }
     auto fromState = [&](const State& a, const State& b) -> QVariant {
         switch (c) {
@@ -304,16 +305,20 @@ QString LedgerModel::text(const Row& row, int c) const {
         return noSourceText();
     const QVariant v = siValue(row, c);
     if (!v.isValid()) return {};
-    if (c >= ColQ && c <= ColExd && c != ColdS && c != ColSgen) {
-        // Round-off of a balance (ΔH of a throttle: 8e−13 kW) reads as a
-        // number; below a billionth of the row's largest energy it shows as 0.
-        // The full value stays in the copied text and in SiRole.
-        double scale = 0;
-        for (int k : {int(ColQ), int(ColW), int(ColdH), int(ColdU)}) {
-            const QVariant e = siValue(row, k);
-            if (e.isValid()) scale = std::max(scale, std::fabs(e.toDouble()));
+    if (c >= ColQ && c <= ColExd && !isUncertaintyColumn(c)) {
+        // Round-off of a balance (ΔH of a throttle: 8e−13 kW) shows as 0 by
+        // core's rule, judged within the step (a segment within its step) or
+        // the totals. The full value stays in the copied text and in SiRole.
+        const bool entropy = c == ColdS || c == ColSgen;
+        std::optional<double> scale;
+        if (row.kind == RowKind::Step || row.kind == RowKind::Segment) {
+            const StepResult& s = resultOf(row).steps[std::size_t(row.step)];
+            scale = entropy ? entropyScale(s) : energyScale(s);
+        } else if (row.kind == RowKind::Total) {
+            const Totals& t = resultOf(row).totals;
+            scale = entropy ? entropyScale(t) : energyScale(t);
         }
-        if (std::fabs(v.toDouble()) < 1e-9 * scale) return QStringLiteral("0");
+        if (scale && showsAsZero(v.toDouble(), *scale)) return QStringLiteral("0");
     }
     const double shown = toDisplay(v.toDouble(), dimensionOf(c), p.displayUnits, displayContext(p));
     if (std::size_t(c) < decimals_.size() && decimals_[std::size_t(c)] >= 0)

@@ -150,6 +150,14 @@ Result<Targets> pinchTargets(std::span<const HeatPiece> pieces, double dTmin) {
     return t;
 }
 
+bool hotFallsShort(const UtilityPlan& plan, const Targets& targets) {
+    return plan.hotUnmet > 1e-9 * std::max(1.0, targets.hotUtilityMin);
+}
+
+bool coldFallsShort(const UtilityPlan& plan, const Targets& targets) {
+    return plan.coldUnmet > 1e-9 * std::max(1.0, targets.coldUtilityMin);
+}
+
 UtilityPlan placeUtilities(const Targets& targets, std::span<const UtilityLevel> levels) {
     UtilityPlan plan;
     // Heat flowing down through each shifted temperature, descending; placing

@@ -71,4 +71,12 @@ double energyScale(const StepResult& s) {
 
 double entropyScale(const StepResult& s) { return std::max(std::fabs(s.dS), std::fabs(s.Sgen)); }
 
+double energyScale(const Totals& t) {
+    return std::max({std::fabs(t.Q), std::fabs(t.W), std::fabs(t.dH), std::fabs(t.dU)});
+}
+
+double entropyScale(const Totals& t) { return std::max(std::fabs(t.dS), std::fabs(t.Sgen)); }
+
+double spreadForDisplay(double u, double value) { return u <= 1e-9 * std::fabs(value) ? 0.0 : u; }
+
 }  // namespace heatchain

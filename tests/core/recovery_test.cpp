@@ -204,9 +204,19 @@ TEST(RecoveryUtilities, LevelsAreFilledAgainstTheGrandComposite) {
     EXPECT_NEAR(plan.levels[3].duty, 20e3, 1e-6);
     EXPECT_NEAR(plan.hotUnmet, 0, 1e-6);
     EXPECT_NEAR(plan.coldUnmet, 0, 1e-6);
-    // With only the low-grade level, the whole hot target is unmet.
+    EXPECT_FALSE(hotFallsShort(plan, *t));
+    EXPECT_FALSE(coldFallsShort(plan, *t));
+    // With only the low-grade level, the whole hot target is unmet, and no
+    // cold level at all leaves the whole cold target.
     const std::vector<UtilityLevel> onlyLow{{"low-grade", true, 60 + kC, {}}};
-    EXPECT_NEAR(placeUtilities(*t, onlyLow).hotUnmet, 20e3, 1e-6);
+    const UtilityPlan short_ = placeUtilities(*t, onlyLow);
+    EXPECT_NEAR(short_.hotUnmet, 20e3, 1e-6);
+    EXPECT_TRUE(hotFallsShort(short_, *t));
+    EXPECT_TRUE(coldFallsShort(short_, *t));
+    // Round-off left over is not a shortfall.
+    UtilityPlan noise = plan;
+    noise.hotUnmet = 1e-9 * t->hotUtilityMin * 0.5;
+    EXPECT_FALSE(hotFallsShort(noise, *t));
 }
 
 TEST(RecoveryUtilities, AHotLevelServesBoilingAtItsOwnShiftedTemperature) {

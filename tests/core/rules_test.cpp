@@ -90,3 +90,26 @@ TEST(Rules, WhatShowsAsZero) {
     EXPECT_EQ(forDisplay(-3e-12, 1e4), 0.0);
     EXPECT_EQ(forDisplay(2.5, 1e4), 2.5);
 }
+
+// The scales the rule judges against, for a step and for the totals, and a
+// spread that is the solver's own noise.
+TEST(Rules, ScalesAndSpreadsShownAsZero) {
+    StepResult s;
+    s.Q = -4.0e5;
+    s.W = 1.0e3;
+    s.dH = -3.99e5;
+    s.dU = 2.0e5;
+    s.dS = -1.2e3;
+    s.Sgen = 3.5;
+    EXPECT_EQ(energyScale(s), 4.0e5);
+    EXPECT_EQ(entropyScale(s), 1.2e3);
+    Totals t;
+    t.W = -7.0e4;
+    t.dU = 5.0e4;
+    t.Sgen = 12.0;
+    EXPECT_EQ(energyScale(t), 7.0e4);
+    EXPECT_EQ(entropyScale(t), 12.0);
+    EXPECT_EQ(spreadForDisplay(1e-7, 250.0e3), 0.0);    // 4e-13 of the value: noise
+    EXPECT_EQ(spreadForDisplay(12.5, 250.0e3), 12.5);   // a real spread
+    EXPECT_EQ(spreadForDisplay(0.0, 0.0), 0.0);
+}

@@ -16,6 +16,7 @@
 #include <optional>
 
 #include "gui_app.hpp"
+#include "heatchain/rules.hpp"
 #include "heatchain/project_file.hpp"
 #include "heatchain/report.hpp"
 #include "heatchain/streams.hpp"
@@ -235,23 +236,20 @@ void writeContent(Layout& L, const Content& c) {
     const UnitSystem us = p.displayUnits;
     const UnitContext ctx = view::displayContext(p);
     const Dimension E = view::energyDimension(r.system), S = view::entropyDimension(r.system);
-    // Round-off noise (a throttle's ΔH of 1e-13 kW) prints as zero: below a
-    // billionth of the largest energy or entropy figure of the sequence.
-    double eScale = 0, sScale = 0;
-    for (const StepResult& st : r.steps) {
-        if (!st.computed) continue;
-        for (double v : {st.Q, st.W, st.dH, st.dU}) eScale = std::max(eScale, std::fabs(v));
-        for (double v : {st.dS, st.Sgen}) sScale = std::max(sScale, std::fabs(v));
-    }
     auto fmt = [&](double v, Dimension d) {
-        if (d == E && std::fabs(v) < 1e-9 * eScale) v = 0;
-        if ((d == S) && std::fabs(v) < 1e-9 * sScale) v = 0;
         if (d == Dimension::SpecificVolume) return view::formatNumber(toDisplay(v, d, us, ctx), 5, 9);
         // Small entropy figures (a pump's S_gen) keep four significant digits
         // instead of one: the fixed four decimals of the screen would print 0.0008.
         if (d == S) return view::formatNumber(toDisplay(v, d, us, ctx), 4, 7);
         return formatDisplay(v, d, us, ctx);
     };
+    // A step's and the totals' figures: round-off (a throttle's ΔH of 1e-13
+    // kW) shows as zero by core's rule, judged within the step (a segment
+    // within its step) or the totals, as on screen and in the ledger text.
+    auto stepE = [&](const StepResult& s, double v) { return fmt(forDisplay(v, energyScale(s)), E); };
+    auto stepS = [&](const StepResult& s, double v) { return fmt(forDisplay(v, entropyScale(s)), S); };
+    auto totalE = [&](double v) { return fmt(forDisplay(v, energyScale(r.totals)), E); };
+    auto totalS = [&](double v) { return fmt(forDisplay(v, entropyScale(r.totals)), S); };
     auto withUnit = [&](double v, Dimension d) { return view::formatWithUnit(v, d, us, ctx); };
     const QFont body = L.font(9), small = L.font(8);
 
@@ -392,8 +390,8 @@ void writeContent(Layout& L, const Content& c) {
             if (s.computed) {
                 row.cells = {QString::number(i + 1), qs(s.id), view::stepKindTitle(s.kind),
                              fmt(s.end.T, Dimension::Temperature), fmt(s.end.P, Dimension::Pressure),
-                             view::phaseShort(s.end), fmt(s.Q, E), fmt(s.W, E), fmt(s.dH, E), fmt(s.dS, S),
-                             fmt(s.Sgen, S), view::noSourceGiven(s) ? view::noSourceText() : fmt(s.exergyDestroyed, E)};
+                             view::phaseShort(s.end), stepE(s, s.Q), stepE(s, s.W), stepE(s, s.dH), stepS(s, s.dS),
+                             stepS(s, s.Sgen), view::noSourceGiven(s) ? view::noSourceText() : stepE(s, s.exergyDestroyed)};
                 if (!s.warnings.empty()) row.cells[1] += QStringLiteral(" ⚠");
                 transferCells(row.cells, s.transfer ? s.transfer->area : std::nullopt,
                               s.batch ? std::optional<double>(s.batch->duration) : std::nullopt);
@@ -407,16 +405,16 @@ void writeContent(Layout& L, const Content& c) {
         }
         const Totals& t = r.totals;
         QStringList totalCells = {QString(), QStringLiteral("Total"), QString(), QString(), QString(), QString(),
-                                  fmt(t.Q, E), fmt(t.W, E), fmt(t.dH, E), fmt(t.dS, S), fmt(t.Sgen, S),
-                                  fmt(t.exergyDestroyed, E)};
+                                  totalE(t.Q), totalE(t.W), totalE(t.dH), totalS(t.dS), totalS(t.Sgen),
+                                  totalE(t.exergyDestroyed)};
         // Steady flow adds up its exchangers; a batch's total time is its cycle.
         transferCells(totalCells, t.area, t.cycleTime);
         rows.push_back({totalCells, TableRow::Style::Total});
         rows.push_back({{QString(), QStringLiteral("Heating duty"), QString(), QString(),
-                         QString(), QString(), fmt(t.heatingDuty, E)},
+                         QString(), QString(), totalE(t.heatingDuty)},
                         TableRow::Style::Normal});
         rows.push_back({{QString(), QStringLiteral("Cooling duty"), QString(), QString(),
-                         QString(), QString(), fmt(t.coolingDuty, E)},
+                         QString(), QString(), totalE(t.coolingDuty)},
                         TableRow::Style::Normal});
         L.table(cols, rows, 7.5, QStringLiteral("All steps, continued"));
         QString legend = QStringLiteral("Heating duty: the sum of Q over the steps with Q > 0; cooling duty: the sum of "
@@ -577,16 +575,16 @@ void writeContent(Layout& L, const Content& c) {
                 row.cells = {QString::number(i + 1), qs(s.id), dash, dash, dash, dash, dash};
             } else if (view::noSourceGiven(s)) {
                 const QString dash = QStringLiteral("–");
-                row.cells = {QString::number(i + 1), qs(s.id), fmt(s.dEx, E), dash, view::noSourceText(), dash, dash};
+                row.cells = {QString::number(i + 1), qs(s.id), stepE(s, s.dEx), dash, view::noSourceText(), dash, dash};
             } else {
-                row.cells = {QString::number(i + 1), qs(s.id), fmt(s.dEx, E), fmt(s.exergySupplied, E),
-                             fmt(s.exergyDestroyed, E), pct(s.exergyDestroyedShare), pct(s.secondLawEfficiency)};
+                row.cells = {QString::number(i + 1), qs(s.id), stepE(s, s.dEx), stepE(s, s.exergySupplied),
+                             stepE(s, s.exergyDestroyed), pct(s.exergyDestroyedShare), pct(s.secondLawEfficiency)};
             }
             xrows.push_back(std::move(row));
         }
         const Totals& t = r.totals;
-        xrows.push_back({{QString(), QStringLiteral("Sequence"), fmt(t.dEx, E), fmt(t.exergySupplied, E),
-                          fmt(t.exergyDestroyed, E), QStringLiteral("100"), pct(t.secondLawEfficiency)},
+        xrows.push_back({{QString(), QStringLiteral("Sequence"), totalE(t.dEx), totalE(t.exergySupplied),
+                          totalE(t.exergyDestroyed), QStringLiteral("100"), pct(t.secondLawEfficiency)},
                          TableRow::Style::Total});
         L.table(xcol, xrows, 7.5, QStringLiteral("Exergy account, continued"));
         view::ExergyBarChart bars;
@@ -635,7 +633,7 @@ void writeContent(Layout& L, const Content& c) {
                 const UncertainOutput* o = u.find(path);
                 if (!o) return QStringLiteral("–");
                 const Dimension ud = d == Dimension::Temperature ? Dimension::TemperatureDifference : d;
-                const double sd = o->u <= 1e-9 * std::fabs(o->value) ? 0.0 : o->u;
+                const double sd = spreadForDisplay(o->u, o->value);
                 QString t = fmt(o->value, d) + QStringLiteral(" ± ") + fmt(sd, ud);
                 if (mc && o->p025 && o->p975)
                     t += QStringLiteral(" (95 %: %1 to %2)").arg(fmt(*o->p025, d), fmt(*o->p975, d));
@@ -732,8 +730,8 @@ void writeContent(Layout& L, const Content& c) {
                  unitSymbol(Dimension::Temperature, us), 1, Qt::AlignRight},
             };
             L.table(rcol,
-                    {TableRow{{fmt(s.Q, E), fmt(s.W, E), fmt(s.dH, E), fmt(s.dU, E), fmt(s.dS, S), fmt(s.Sgen, S),
-                               fmt(s.exergyDestroyed, E),
+                    {TableRow{{stepE(s, s.Q), stepE(s, s.W), stepE(s, s.dH), stepE(s, s.dU), stepS(s, s.dS), stepS(s, s.Sgen),
+                               stepE(s, s.exergyDestroyed),
                                s.reservoirT ? fmt(*s.reservoirT, Dimension::Temperature) : QStringLiteral("–")}}},
                     7.5);
             if (s.utility) {
@@ -758,7 +756,7 @@ void writeContent(Layout& L, const Content& c) {
                 for (const SegmentResult& g : s.segments)
                     grows.push_back({{qs(g.label), fmt(g.start.T, Dimension::Temperature),
                                       fmt(g.end.T, Dimension::Temperature), fmt(g.end.P, Dimension::Pressure),
-                                      view::phaseText(g.end), fmt(g.Q, E)}});
+                                      view::phaseText(g.end), stepE(s, g.Q)}});
                 L.table(gcol, grows, 7.5, QStringLiteral("Segments of %1, continued").arg(qs(s.id)));
             }
         }

@@ -146,10 +146,10 @@ int heatRecoverySection(Layout& L, const StreamSet& set, const std::vector<Seque
         L.paragraph(QStringLiteral("Hot levels are filled from the coldest up, cold levels from the warmest down: each "
                                    "takes as much of the target as the grand composite curve allows at its temperature."),
                     small, view::ink::muted());
-        if (r.utilities.hotUnmet > 1e-9 * std::max(1.0, t.hotUtilityMin))
+        if (hotFallsShort(r.utilities, t))
             L.paragraph(QStringLiteral("No hot level is hot enough for %1.").arg(Q(r.utilities.hotUnmet)), small,
                         view::ink::warning().darker(130));
-        if (r.utilities.coldUnmet > 1e-9 * std::max(1.0, t.coldUtilityMin))
+        if (coldFallsShort(r.utilities, t))
             L.paragraph(QStringLiteral("No cold level is cold enough for %1.").arg(Q(r.utilities.coldUnmet)), small,
                         view::ink::warning().darker(130));
     }

@@ -94,6 +94,10 @@ struct UtilityPlan {
     double hotUnmet = 0;   // W of the minimum hot utility no level is hot enough for
     double coldUnmet = 0;  // W of the minimum cold utility no level is cold enough for
 };
+// Whether some of the minimum hot (cold) utility is left without a level, by
+// more than round-off (1e-9 of the target, or of 1 W): what every view says.
+bool hotFallsShort(const UtilityPlan& plan, const Targets& targets);
+bool coldFallsShort(const UtilityPlan& plan, const Targets& targets);
 
 // Hot levels are filled from the coldest up (the cheapest first), cold
 // levels from the warmest down: each takes as much as the grand composite

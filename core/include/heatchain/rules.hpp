@@ -57,5 +57,12 @@ double forDisplay(double v, double scale);
 // |ΔH|, |ΔU| (energies) and its largest |ΔS|, |S_gen| (entropies).
 double energyScale(const StepResult& s);
 double entropyScale(const StepResult& s);
+// The same for the totals row: its |Q|, |W|, |ΔH|, |ΔU|, and |ΔS|, |S_gen|.
+// A segment is judged against its step.
+double energyScale(const Totals& t);
+double entropyScale(const Totals& t);
+// A standard deviation shown: none (0) when at or below 1e-9 of the value's
+// magnitude, the solver's own noise, else u.
+double spreadForDisplay(double u, double value);
 
 }  // namespace heatchain
