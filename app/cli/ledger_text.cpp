@@ -142,7 +142,7 @@ std::string utilitiesText(const Project& p, const SequenceResult& r) {
         std::string where = u.position + " of " + (u.segment < s.segments.size() ? s.segments[u.segment].label : "");
         if (u.position != "start" || u.segment != 0) where += ", after " + d.E(u.approachDuty);
         std::string approach = fixed(u.minApproach, 1) + " K";
-        if (approachBelowRequired(u.minApproach, p.minApproachK(), u.duty, true)) approach += " (!)";
+        if (approachBelowRequired(u, p.minApproachK())) approach += " (!)";
         t.rows.push_back({s.id, u.id, u.asSource ? "source" : "sink", d.E(u.duty), use, exergy(s.exergyHeat), approach, where});
     }
     for (const auto& u : r.utilities) {

@@ -5,6 +5,7 @@
 #include <QStyle>
 #include <algorithm>
 
+#include "heatchain/rules.hpp"
 #include "heatchain_view/format.hpp"
 #include "heatchain_view/palette.hpp"
 #include "heatchain_view/utility_text.hpp"
@@ -107,7 +108,7 @@ void SecondLawPanel::refresh() {
                 row[ColUse] = cell(utilityUseText(su.kind, su.mass, su.volume, r.system, u, ctx));
                 if (su.volume) row[ColUse]->setToolTip(utilityMassText(su.kind, su.mass, r.system, u, ctx));
                 row[ColApproach] = cell(formatDisplay(su.minApproach, Dimension::TemperatureDifference, u, ctx, 4));
-                if (approachBelowMinimum(su, minAp)) {
+                if (approachBelowRequired(su, minAp)) {
                     row[ColApproach]->setForeground(ink::error());
                     row[ColApproach]->setToolTip(tr("below the required minimum approach of %1")
                                                      .arg(formatWithUnit(minAp, Dimension::TemperatureDifference, u, ctx, 3)));

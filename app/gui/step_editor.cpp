@@ -1,6 +1,7 @@
 #include "step_editor.hpp"
 #include "transfer_fields.hpp"
 
+#include "heatchain/rules.hpp"
 #include "heatchain/project_file.hpp"
 
 #include <QHBoxLayout>
@@ -573,7 +574,7 @@ void StepEditor::refresh() {
             }
             if (sr.utility) {
                 const StepUtility& su = *sr.utility;
-                const bool tight = approachBelowMinimum(su, doc_->project().minApproachK());
+                const bool tight = approachBelowRequired(su, doc_->project().minApproachK());
                 rows.push_back({QString(), QString(), QString(), true});
                 rows.push_back({su.asSource ? tr("Source") : tr("Sink"), qs(su.id), utilityKindText(su.kind)});
                 rows.push_back({tr("Uses"), utilityUseText(su.kind, su.mass, su.volume, r.system, u, ctx),

@@ -31,7 +31,7 @@ Json utilityStepJson(const StepUtility& u, double minApproach, const std::vector
     Json a = Json::object();
     a["minimum_K"] = u.minApproach;
     a["required_K"] = minApproach;
-    a["belowRequired"] = approachBelowRequired(u.minApproach, minApproach, u.duty, true);
+    a["belowRequired"] = approachBelowRequired(u, minApproach);
     a["segment"] = u.segment;
     a["segmentLabel"] = u.segment < segs.size() ? segs[u.segment].label : std::string();
     a["position"] = u.position;

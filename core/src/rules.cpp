@@ -59,6 +59,10 @@ bool approachBelowRequired(double closest_K, double required_K, double duty, boo
     return utility && duty != 0 && closest_K < required_K - 1e-6;
 }
 
+bool approachBelowRequired(const StepUtility& u, double required_K) {
+    return approachBelowRequired(u.minApproach, required_K, u.duty, true);
+}
+
 bool showsAsZero(double v, double scale) {
     return std::fabs(v) < std::max(1e-9 * std::fabs(scale), 1e-12);
 }

@@ -81,6 +81,13 @@ TEST(Rules, RequiredApproachRule) {
     EXPECT_FALSE(approachBelowRequired(10.0 - 1e-9, 10.0, 1.0, true));  // round-off of typed values
     EXPECT_FALSE(approachBelowRequired(9.0, 10.0, 0.0, true));         // nothing exchanged
     EXPECT_FALSE(approachBelowRequired(9.0, 10.0, 1.0, false));        // a plain temperature
+    StepUtility u;
+    u.minApproach = 9.0;
+    u.duty = 2.0e4;
+    EXPECT_TRUE(approachBelowRequired(u, 10.0));   // what the step panel, chart and report flag
+    EXPECT_FALSE(approachBelowRequired(u, 9.0));
+    u.duty = 0.0;
+    EXPECT_FALSE(approachBelowRequired(u, 10.0));
 }
 
 TEST(Rules, WhatShowsAsZero) {

@@ -522,7 +522,7 @@ void writeContent(Layout& L, const Content& c) {
             const StepUtility& su = *s.utility;
             TableRow row;
             row.marker = view::stepColour(int(i));
-            const bool below = view::approachBelowMinimum(su, p.minApproachK());
+            const bool below = approachBelowRequired(su, p.minApproachK());
             row.cells = {QString::number(i + 1), qs(s.id),
                          QStringLiteral("%1 (%2)").arg(qs(su.id), su.asSource ? QStringLiteral("source") : QStringLiteral("sink")),
                          fmt(su.duty, E), view::utilityUseText(su.kind, su.mass, su.volume, r.system, us, ctx),
@@ -741,7 +741,7 @@ void writeContent(Layout& L, const Content& c) {
                                      view::utilityUseText(su.kind, su.mass, su.volume, r.system, us, ctx),
                                      withUnit(su.minApproach, Dimension::TemperatureDifference),
                                      view::approachWhereText(s)),
-                            small, view::approachBelowMinimum(su, p.minApproachK()) ? view::ink::error() : view::ink::text());
+                            small, approachBelowRequired(su, p.minApproachK()) ? view::ink::error() : view::ink::text());
             }
             if (s.segments.size() > 1) {
                 std::vector<TableColumn> gcol = {

@@ -187,7 +187,7 @@ void ProcessChart::setData(const Project& project, const SequenceResult& result,
             const double q = qStart + (st.Q >= 0 ? u.approachDuty : -u.approachDuty);
             Approach a{int(i), toDisplay(q, xDim, units_, ctx_), Y(u.Tmaterial), Y(u.Tutility),
                        toDisplay(u.minApproach, Dimension::TemperatureDifference, units_, ctx_),
-                       approachBelowMinimum(u, minApproachK_)};
+                       approachBelowRequired(u, minApproachK_)};
             stepApproaches_.push_back(a);
             if (u.minApproach < minDT) {
                 minDT = u.minApproach;

@@ -44,6 +44,8 @@ std::optional<std::string> checkBounded(BoundedField field, double value);
 // exchanged (duty 0), nothing to hold. 1 µK of slack: "38 degC" against
 // "28 degC" is 10 K, not 9.999999999999943 K.
 bool approachBelowRequired(double closest_K, double required_K, double duty, bool utility);
+// The same for a step served by a utility: its closest approach and duty.
+bool approachBelowRequired(const StepUtility& u, double required_K);
 
 // ---- Showing results -----------------------------------------------------
 // A result shown as zero: |v| below 1e-9 of the largest magnitude the step

@@ -26,12 +26,6 @@ QString approachWhereText(const StepResult& step);
 // A utility's temperatures: "143.6 °C at 4.013 bar" (steam), "28.0 → 32.0 °C"
 // (sensible), "350.0 °C" (fixed); empty when not resolved.
 QString utilityTemperaturesText(const UtilityProfile& p, UnitSystem units, const UnitContext& ctx = {});
-// Whether a served step keeps less than the worksheet's minimum approach
-// (the rule of core's results JSON, "belowRequired": a step with no duty
-// exchanges nothing and is never flagged).
-inline bool approachBelowMinimum(const StepUtility& u, double minimumK) {
-    return u.minApproach < minimumK - 1e-6 && u.duty > 0;
-}
 // Second-law efficiency as a percentage ("83.1 %"), "–" when nothing was supplied.
 QString efficiencyText(const std::optional<double>& eta);
 
