@@ -6,6 +6,7 @@
 #include <sstream>
 #include <vector>
 
+#include "heatchain/cautions.hpp"
 #include "heatchain/rules.hpp"
 #include "heatchain/units.hpp"
 #include "transfer_text.hpp"
@@ -82,7 +83,7 @@ struct Display {
     UnitContext ctx;
     bool closed;
     std::string text(double si, Dimension d, int decimals) const {
-        return fixed(toDisplay(si, d, us, ctx), decimals) + " " + unitLabel(displayUnit(d, us));
+        return fixed(toDisplay(si, d, us, ctx), decimals) + " " + unitLabel(displayUnit(d, us, ctx));
     }
     std::string T(double K) const { return text(K, Dimension::Temperature, 1); }
     std::string E(double v) const {
@@ -290,12 +291,11 @@ std::string ledgerText(const Project& p, const SequenceResult& r) {
         if (!anyNote) { o << "\nnotes:\n"; anyNote = true; }
         o << "  " << n << "\n";
     }
-    o << "\nIdealised process paths. Pressure equipment, steam, cryogens and hot surfaces are governed by\n"
-         "local codes and licensed practice; have results checked by a qualified engineer.\n";
-    // The substance's hazards, wrapped at about 100 columns like the lines above.
-    if (const std::string hz = hazardSentence(p.substance); !hz.empty()) {
+    // The cautions, each wrapped at about 100 columns: the standing one, the
+    // substance's hazards, then what the process reaches (core's words).
+    auto wrapped = [&](const std::string& text) {
         std::string line;
-        std::istringstream words("Caution - " + hz);
+        std::istringstream words(text);
         std::string w;
         while (words >> w) {
             if (!line.empty() && line.size() + 1 + w.size() > 100) {
@@ -305,7 +305,17 @@ std::string ledgerText(const Project& p, const SequenceResult& r) {
             line += (line.empty() ? "" : " ") + w;
         }
         o << line << "\n";
-    }
+    };
+    o << "\n";
+    wrapped(std::string(generalCaution()));
+    if (const std::string hz = hazardSentence(p.substance); !hz.empty()) wrapped("Caution - " + hz);
+    const Display d{p.displayUnits, p.unitContext(), p.system == SystemKind::Closed};
+    for (const std::string& c : processCautionSentences(processCautions(p, r), [&](double si, Dimension dim, bool gauge) {
+             Display shown = d;
+             if (dim == Dimension::Pressure) shown.ctx.gaugeDisplay = gauge;
+             return shown.text(si, dim, dim == Dimension::Pressure ? 3 : 1);
+         }))
+        wrapped("Caution - " + c);
     return o.str();
 }
 

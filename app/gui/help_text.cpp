@@ -4,16 +4,13 @@
 #include <QApplication>
 #include <QMessageBox>
 
+#include "heatchain/cautions.hpp"
 #include "heatchain/substance.hpp"
 #include "heatchain_view/step_icons.hpp"
 
 namespace heatchain::gui::help {
 
 namespace {
-const char* const kCaution =
-    "Heatchain computes idealised process paths. Pressure equipment, steam, cryogens and hot "
-    "surfaces are governed by local codes and licensed practice; have results checked by a "
-    "qualified engineer.";
 using heatchain::view::qs;
 
 // The quick-add phrases, for its tooltip and the getting-started page.
@@ -30,7 +27,7 @@ const char* const kQuickAddPhrases[][2] = {
 
 }  // namespace
 
-QString caution() { return QObject::tr(kCaution); }
+QString caution() { return qs(generalCaution()); }
 
 QString quickAddTooltip() {
     QString t = QObject::tr("Type a step and press Enter, e.g.");
@@ -86,7 +83,7 @@ void showAbout(QWidget* parent, const Project& p, const SequenceResult& r) {
                       "material goes through and read the state after each step with Q, W, ΔH, ΔS, "
                       "S<sub>gen</sub> and exergy destroyed.</p>")
                        .arg(QApplication::applicationVersion());
-    html += QStringLiteral("<p style='color:#8a5a00'><b>%1</b></p>").arg(QObject::tr(kCaution).toHtmlEscaped());
+    html += QStringLiteral("<p style='color:#8a5a00'><b>%1</b></p>").arg(caution().toHtmlEscaped());
     if (r.model) {
         html += QObject::tr("<h4>Property model: %1</h4><p>%2</p><p><i>Range:</i> %3</p>")
                     .arg(qs(r.model->name()).toHtmlEscaped(),

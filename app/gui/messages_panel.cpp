@@ -2,6 +2,7 @@
 
 #include <QHeaderView>
 
+#include "heatchain_view/caution_text.hpp"
 #include "heatchain_view/format.hpp"
 
 namespace heatchain::gui {
@@ -57,6 +58,9 @@ void MessagesPanel::refresh() {
     // The substance's hazards first: a standing caution, not a warning.
     if (const std::string hz = hazardSentence(doc_->project().substance); !hz.empty())
         lines.push_back({Level::Caution, -1, tr("substance"), qs(hz)});
+    // Then what the process reaches: cryogenic, hot, under pressure.
+    for (const QString& c : view::processCautionText(doc_->project(), processCautions(doc_->project(), r)))
+        lines.push_back({Level::Caution, -1, tr("process"), c});
     if (r.startError) lines.push_back({Level::Error, -1, tr("start"), view::escapedText(r.startError->text())});
     for (const std::string& w : r.warnings) lines.push_back({Level::Warning, -1, tr("sequence"), qs(w)});
     for (const std::string& n : view::notesOf(r)) lines.push_back({Level::Note, -1, tr("sequence"), qs(n)});

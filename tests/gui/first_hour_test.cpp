@@ -414,6 +414,21 @@ private slots:
             if (line.startsWith(QStringLiteral("note|"))) ++shownNotes;
         QCOMPARE(shownNotes, notes);
 
+        // Cautions of the process itself: the stream is boiled at 5 barg with
+        // a source at 200 °C, so the panel cautions of steam and hot surfaces
+        // (above 60 °C) and of pressure (above 0.5 bar gauge), as the report
+        // and the command line do; in the worksheet's display units (SI here:
+        // 200 °C is 473.15 K, 5 barg is 601.325 kPa absolute).
+        bool steam = false, pressure = false;
+        for (const QString& line : panel->visibleLines()) {
+            if (line.startsWith(QStringLiteral("caution|process|Steam and hot surfaces above about 60 °C")) &&
+                line.contains(QStringLiteral("heat sources up to 473.1")))
+                steam = true;
+            if (line.startsWith(QStringLiteral("caution|process|High pressure: up to 601.3"))) pressure = true;
+        }
+        QVERIFY2(steam, qPrintable(panel->visibleLines().join(QLatin1Char('\n'))));
+        QVERIFY2(pressure, qPrintable(panel->visibleLines().join(QLatin1Char('\n'))));
+
         // The cards: a warning marks the border in the warning colour and
         // takes the last line in bold; a note takes it quietly and leaves the
         // border as an ordinary card's.

@@ -134,7 +134,7 @@ TEST(Report, EverySampleHasItsStepsTotalsAndCautions) {
 
 TEST(Report, HazardsFollowTheConditions) {
     // nitrogen-warmup starts as a cryogenic liquid; boiler-feed makes steam
-    // at over 20 barg. Thresholds: common practice (see report_pdf.cpp).
+    // at over 20 barg. Thresholds: core/include/heatchain/cautions.hpp.
     const fs::path n2 = scratch("n2.pdf"), boiler = scratch("boiler.pdf");
     ASSERT_EQ(runCommand(cli("report " + sample("nitrogen-warmup") + " -o " + n2.string())).exit, 0);
     ASSERT_EQ(runCommand(cli("report " + sample("boiler-feed") + " -o " + boiler.string())).exit, 0);

@@ -21,6 +21,7 @@
 #include "heatchain/report.hpp"
 #include "heatchain/streams.hpp"
 #include "heatchain/uncertainty.hpp"
+#include "heatchain_view/caution_text.hpp"
 #include "heatchain_view/format.hpp"
 #include "heatchain_view/palette.hpp"
 #include "heatchain_view/process_chart.hpp"
@@ -48,94 +49,10 @@ using view::unitSymbol;
 
 using heatchain::view::qs;
 
-// The conditions met anywhere along the sequence, for the cautions.
-struct Extremes {
-    double Tmin = std::numeric_limits<double>::infinity();
-    double Tmax = -std::numeric_limits<double>::infinity();
-    double Pmax = 0;
-    double reservoirTmax = -std::numeric_limits<double>::infinity();
-    bool vapourOfWater = false;
-};
-
-Extremes extremes(const Project& project, const SequenceResult& r) {
-    Extremes e;
-    auto state = [&](const State& s) {
-        if (!std::isfinite(s.T)) return;
-        e.Tmin = std::min(e.Tmin, s.T);
-        e.Tmax = std::max(e.Tmax, s.T);
-        if (std::isfinite(s.P)) e.Pmax = std::max(e.Pmax, s.P);
-        if (project.substance.id == "water" &&
-            (s.phase == Phase::Vapor || s.phase == Phase::LiquidVapor || s.phase == Phase::Supercritical))
-            e.vapourOfWater = true;
-    };
-    if (!r.startError) state(r.start);
-    for (const StepResult& st : r.steps) {
-        if (!st.computed) continue;
-        state(st.start);
-        state(st.end);
-        for (const SegmentResult& g : st.segments) {
-            for (const CurvePoint& c : g.curve) {
-                if (!std::isfinite(c.T)) continue;
-                e.Tmin = std::min(e.Tmin, c.T);
-                e.Tmax = std::max(e.Tmax, c.T);
-                if (std::isfinite(c.P)) e.Pmax = std::max(e.Pmax, c.P);
-            }
-        }
-        if (st.reservoirT) e.reservoirTmax = std::max(e.reservoirTmax, *st.reservoirT);
-    }
-    return e;
-}
-
-// Thresholds of the hazard notes. Common practice, not a code: cryogenic
-// below −150 °C (123.15 K); skin-contact burns from surfaces above about
-// 60 °C; pressure-equipment rules commonly start at 0.5 bar gauge (the scope
-// of the EU Pressure Equipment Directive 2014/68/EU, Art. 1 — from memory).
-constexpr double kCryogenicBelow_K = 123.15;
-constexpr double kHotAbove_K = 333.15;
-constexpr double kPressureAboveGauge_Pa = 0.5e5;
-
 QStringList cautionLines(const Project& project, const SequenceResult& r) {
-    const UnitSystem us = project.displayUnits;
-    const UnitContext ctx = view::displayContext(project);
-    auto T = [&](double v) { return view::formatWithUnit(v, Dimension::Temperature, us, ctx); };
-    QStringList lines;
-    lines << QStringLiteral(
-        "Heatchain computes idealised process paths. Pressure equipment, steam, cryogens and hot surfaces are "
-        "governed by local codes and licensed practice; have results checked by a qualified engineer.");
+    QStringList lines{qs(generalCaution())};
     if (const std::string hz = hazardSentence(project.substance); !hz.empty()) lines << qs(hz);
-    const Extremes e = extremes(project, r);
-    if (e.Tmin < kCryogenicBelow_K)
-        lines << QStringLiteral("Cryogenic temperatures: the material reaches %1. Cold burns and frostbite on "
-                                "contact, embrittlement of ordinary carbon steel, and pressure rise when cold "
-                                "liquid is trapped and warms; boil-off can displace the oxygen of a room.")
-                     .arg(T(e.Tmin));
-    const bool hotMaterial = e.Tmax > kHotAbove_K;
-    const bool hotSource = e.reservoirTmax > kHotAbove_K;
-    if (hotMaterial || hotSource) {
-        QString what = e.vapourOfWater && hotMaterial ? QStringLiteral("Steam and hot surfaces")
-                                                      : QStringLiteral("Hot surfaces");
-        QString text = QStringLiteral("%1 above about 60 °C: ").arg(what);
-        if (hotMaterial) text += QStringLiteral("the material reaches %1").arg(T(e.Tmax));
-        if (hotSource)
-            text += (hotMaterial ? QStringLiteral(", heat sources up to %1") : QStringLiteral("heat sources up to %1"))
-                        .arg(T(e.reservoirTmax));
-        text += QStringLiteral(". Contact burns; insulate or guard surfaces people can touch");
-        if (e.vapourOfWater && hotMaterial) text += QStringLiteral(", and treat any steam release as a scalding hazard");
-        text += QLatin1Char('.');
-        lines << text;
-    }
-    const double gauge = e.Pmax - project.atmosphereOrDefault().si;
-    if (gauge > kPressureAboveGauge_Pa)
-    {
-        UnitContext absolute = ctx, gaugeCtx = ctx;
-        absolute.gaugeDisplay = false;
-        gaugeCtx.gaugeDisplay = true;
-        lines << QStringLiteral("High pressure: up to %1 (%2). Above about 0.5 bar gauge pressure-equipment "
-                                "rules commonly apply to vessels and piping; stored energy is released violently "
-                                "on failure. Relief, design pressure and inspection follow the applicable code.")
-                     .arg(view::formatWithUnit(e.Pmax, Dimension::Pressure, us, absolute),
-                          view::formatWithUnit(e.Pmax, Dimension::Pressure, us, gaugeCtx));
-    }
+    lines << view::processCautionText(project, processCautions(project, r));
     return lines;
 }
 
