@@ -59,7 +59,7 @@ public:
         colour_ = QColor();
         accent_ = QColor(0x4d, 0x55, 0x60);
         heading_ = p.steps.empty() ? QStringLiteral("Start · click to choose") : QStringLiteral("Start");
-        title_ = qs(p.substance.name.empty() ? p.substance.id : p.substance.name);
+        title_ = qs(p.substance.displayName());
         const QString model = modelTitle(p.model);
         spec_ = QStringLiteral("%1 · %2").arg(model, p.system == SystemKind::Closed
                                                          ? QStringLiteral("closed batch")
@@ -544,7 +544,7 @@ void ChainView::rebuild() {
             lane.item = nullptr;
         }
         if (lane.item) {
-            const QString material = qs(p.substance.name.empty() ? p.substance.id : p.substance.name);
+            const QString material = qs(p.substance.displayName());
             const QString system = p.system == SystemKind::Closed ? tr("closed batch") : tr("steady flow");
             QString rest = stream.name ? qs(*stream.name) + QStringLiteral("  ·  ") : QString();
             rest += material + QStringLiteral(" · ") + system;

@@ -720,7 +720,7 @@ void MainWindow::updateStatus() {
     const SequenceResult& r = doc_.result();
     const Project& p = doc_.project();
     QString solveText = tr("%1 · %2 · %3 steps ·")
-                            .arg(qs(p.substance.name.empty() ? p.substance.id : p.substance.name),
+                            .arg(qs(p.substance.displayName()),
                                  r.model ? qs(r.model->name()) : qs(modelId(p.model)))
                             .arg(p.steps.size());
     if (doc_.streamCount() > 1)

@@ -27,8 +27,10 @@
 #include <set>
 #include <string>
 #include <utility>
+#include <variant>
 #include <vector>
 
+#include "json_text.hpp"
 #include "project_file_parts.hpp"
 #include "substance_definition_json.hpp"
 #include "substance_fields.hpp"
@@ -144,37 +146,6 @@ Error positioned(std::string message, std::string_view file, std::string_view te
     return e;
 }
 
-// "[json.exception.parse_error.101] parse error at line 2, column 10: syntax
-// error ..." → "syntax error ..." (the position is given separately).
-// The parser quotes the bytes it last read, which may be anything (a UTF-16
-// byte-order mark, binary data): every byte outside printable ASCII is shown
-// as \xHH so a message never carries raw bytes to a terminal or a dialog.
-std::string parserReason(std::string_view what) {
-    std::string_view reason = what;
-    const std::size_t at = what.find("column ");
-    const std::size_t colon = at == std::string_view::npos ? std::string_view::npos : what.find(": ", at);
-    if (colon != std::string_view::npos) {
-        reason = what.substr(colon + 2);
-    } else {
-        const std::size_t bracket = what.find("] ");
-        if (bracket != std::string_view::npos) reason = what.substr(bracket + 2);
-    }
-    static constexpr char kHex[] = "0123456789ABCDEF";
-    std::string out;
-    out.reserve(reason.size());
-    for (const char c : reason) {
-        const auto byte = static_cast<unsigned char>(c);
-        if (byte >= 0x20 && byte < 0x7F) {
-            out += c;
-        } else {
-            out += "\\x";
-            out += kHex[byte >> 4];
-            out += kHex[byte & 0xF];
-        }
-    }
-    return out;
-}
-
 Result<Project> parseChecked(std::string_view text, std::string_view file) {
     // Empty or blank file.
     std::size_t first = text.substr(0, 3) == "\xEF\xBB\xBF" ? 3 : 0;
@@ -184,32 +155,15 @@ Result<Project> parseChecked(std::string_view text, std::string_view file) {
     if (first >= text.size())
         return positioned("the file is empty; a Heatchain project is a JSON object starting with {", file, text, 0);
 
-    const detail::PrescanResult pre = detail::prescanJson(text, kMaxDepth, detail::kMaxJsonValues);
-    if (pre.tooDeep)
-        return positioned("JSON nested deeper than " + std::to_string(kMaxDepth) +
-                              " levels; a Heatchain project never needs that (is this the right file?)",
-                          file, text, pre.tooDeep->offset);
-    if (pre.tooManyValues)
-        return positioned(pre.tooManyValues->message +
-                              "; a Heatchain project of the largest allowed length has far fewer (is this the "
-                              "right file?)",
-                          file, text, pre.tooManyValues->offset);
-
-    Json root;
-    try {
-        root = Json::parse(text.begin(), text.end());
-    } catch (const Json::parse_error& e) {
-        const std::size_t offset = e.byte > 0 ? e.byte - 1 : 0;
-        return positioned("not valid JSON: " + parserReason(e.what()), file, text, offset);
-    } catch (const Json::out_of_range&) {
-        if (pre.numberOutOfRange)
-            return positioned(pre.numberOutOfRange->message, file, text, pre.numberOutOfRange->offset);
-        return positioned("a number is beyond the range of a double", file, text, 0);
+    auto parsed = detail::parseJsonText(text, kMaxDepth, detail::kMaxJsonValues);
+    if (auto* fault = std::get_if<detail::JsonTextFault>(&parsed)) {
+        using Kind = detail::JsonTextFault::Kind;
+        if (fault->kind == Kind::TooDeep) fault->message += "; a Heatchain project never needs that (is this the right file?)";
+        if (fault->kind == Kind::TooManyValues)
+            fault->message += "; a Heatchain project of the largest allowed length has far fewer (is this the right file?)";
+        return positioned(std::move(fault->message), file, text, fault->offset);
     }
-    if (pre.duplicateKey)
-        return positioned(pre.duplicateKey->message + " (at " + detail::formatJsonPath(pre.duplicateKey->path) +
-                              "); each key may appear once",
-                          file, text, pre.duplicateKey->offset);
+    const Json root = std::move(std::get<Json>(parsed));
 
     Reader r(text, file, root);
     const JsonPath top;

@@ -11,10 +11,12 @@
 #include <initializer_list>
 #include <string>
 #include <utility>
+#include <variant>
 
 #include "heatchain/constants.hpp"
 #include "heatchain/embedded_resources.hpp"
 #include "heatchain/latent_heat.hpp"
+#include "json_text.hpp"
 #include "substance_definition_json.hpp"
 #include "substance_fields.hpp"
 
@@ -327,36 +329,17 @@ namespace {
 // A library file: the definition is the whole text, and an error is labelled
 // with `name` (the file's path, or "texts[i]") and the path from its root.
 Result<Substance> parseText(std::string_view text, const std::string& name) {
-    auto at = [&](std::string message, std::size_t offset) {
-        Error err = makeError(std::move(message), name);
-        const auto pos = detail::positionOfOffset(text, offset);
+    // A library text holds a few hundred values a dozen levels deep at most:
+    // these limits only stop a broken or hostile text.
+    auto parsed = detail::parseJsonText(text, 64, 1'000'000);
+    if (auto* fault = std::get_if<detail::JsonTextFault>(&parsed)) {
+        Error err = makeError(std::move(fault->message), name);
+        const auto pos = detail::positionOfOffset(text, fault->offset);
         err.line = pos.line;
         err.column = pos.column;
         return err;
-    };
-    // What the parser does not check, as for a project file: a library text
-    // holds a few hundred values a dozen levels deep at most, so these limits
-    // only stop a broken or hostile text.
-    constexpr int kMaxDepth = 64;
-    constexpr std::size_t kMaxValues = 1'000'000;
-    const detail::PrescanResult pre = detail::prescanJson(text, kMaxDepth, kMaxValues);
-    if (pre.tooDeep)
-        return at("JSON nested deeper than " + std::to_string(kMaxDepth) + " levels", pre.tooDeep->offset);
-    if (pre.tooManyValues) return at(pre.tooManyValues->message, pre.tooManyValues->offset);
-    Json j;
-    try {
-        j = Json::parse(text);
-    } catch (const Json::parse_error& e) {
-        return at("not valid JSON: " + std::string(e.what()), e.byte > 0 ? e.byte - 1 : 0);
-    } catch (const Json::out_of_range&) {
-        if (pre.numberOutOfRange) return at(pre.numberOutOfRange->message, pre.numberOutOfRange->offset);
-        return at("a number is beyond the range of a double", 0);
     }
-    // The parser would keep only the last of a repeated key, silently.
-    if (pre.duplicateKey)
-        return at(pre.duplicateKey->message + " (at " + detail::formatJsonPath(pre.duplicateKey->path) +
-                      "); each key may appear once",
-                  pre.duplicateKey->offset);
+    const Json j = std::move(std::get<Json>(parsed));
     const JsonReader r(text, name, j, JsonReader::Labels::PathOnly);
     try {
         Substance s = detail::readSubstanceDefinition(r, j, {});

@@ -53,7 +53,7 @@ int streamsSection(Layout& L, const StreamSet& set, const std::vector<SequenceRe
         };
         const bool solved = k < results.size();
         row.cells = {qs(s.id), s.name ? qs(*s.name) : dash,
-                     qs(p.substance.name.empty() ? p.substance.id : p.substance.name),
+                     qs(p.substance.displayName()),
                      closed ? QStringLiteral("closed batch") : QStringLiteral("steady flow"),
                      QString::number(p.steps.size()), solved ? duty(results[k].totals.heatingDuty) : dash,
                      solved ? duty(results[k].totals.coolingDuty) : dash};

@@ -2,13 +2,12 @@
 // A pure substance: its constants, its per-phase heat capacities, and the
 // published source of every value. The built-in library is read from the
 // JSON files in resources/substances/, embedded in the binaries.
+#include <memory>
 #include <optional>
 #include <span>
 #include <string>
 #include <string_view>
 #include <vector>
-
-#include <memory>
 
 #include <nlohmann/json_fwd.hpp>
 
@@ -111,6 +110,8 @@ struct Substance {
     std::vector<SourceNote> sources;
 
     double gasConstant() const;  // specific gas constant R / M, J/(kg K)
+    // Its name for people; its id when the definition gives no name.
+    const std::string& displayName() const { return name.empty() ? id : name; }
 };
 
 // Reads one substance definition (the library's JSON or a project file's
