@@ -60,7 +60,7 @@ void MessagesPanel::refresh() {
         lines.push_back({Level::Caution, -1, tr("substance"), qs(hz)});
     // Then what the process reaches: cryogenic, hot, under pressure.
     for (const QString& c : view::processCautionText(doc_->project(), processCautions(doc_->project(), r)))
-        lines.push_back({Level::Caution, -1, tr("process"), c});
+        lines.push_back({Level::Caution, -1, tr("sequence"), c});
     if (r.startError) lines.push_back({Level::Error, -1, tr("start"), view::escapedText(r.startError->text())});
     for (const std::string& w : r.warnings) lines.push_back({Level::Warning, -1, tr("sequence"), qs(w)});
     for (const std::string& n : view::notesOf(r)) lines.push_back({Level::Note, -1, tr("sequence"), qs(n)});

@@ -12,6 +12,7 @@ ProcessCautions processCautions(const Project& project, const SequenceResult& r)
     double Tmax = -std::numeric_limits<double>::infinity();
     double Pmax = 0;
     double sourceTmax = -std::numeric_limits<double>::infinity();
+    double sinkTmax = -std::numeric_limits<double>::infinity();
     bool vapourOfWater = false;
     auto point = [&](double T, double P) {
         if (!std::isfinite(T)) return;
@@ -21,9 +22,10 @@ ProcessCautions processCautions(const Project& project, const SequenceResult& r)
     };
     auto state = [&](const State& s) {
         point(s.T, s.P);
-        if (std::isfinite(s.T) && project.substance.id == "water" &&
-            (s.phase == Phase::Vapor || s.phase == Phase::LiquidVapor || s.phase == Phase::Supercritical))
-            vapourOfWater = true;
+        // A saturated liquid (x = 0) holds no vapour yet.
+        const bool vapour = s.phase == Phase::Vapor || s.phase == Phase::Supercritical ||
+                            (s.phase == Phase::LiquidVapor && s.quality.value_or(1.0) > 0.0);
+        if (std::isfinite(s.T) && project.substance.id == "water" && vapour) vapourOfWater = true;
     };
     if (!r.startError) state(r.start);
     for (const StepResult& st : r.steps) {
@@ -32,12 +34,16 @@ ProcessCautions processCautions(const Project& project, const SequenceResult& r)
         state(st.end);
         for (const SegmentResult& g : st.segments)
             for (const CurvePoint& c : g.curve) point(c.T, c.P);
-        if (st.reservoirT) sourceTmax = std::max(sourceTmax, *st.reservoirT);
+        if (st.reservoirT) {
+            double& hottest = st.Q < 0 ? sinkTmax : sourceTmax;  // a cooling step's reservoir is its sink
+            hottest = std::max(hottest, *st.reservoirT);
+        }
     }
     ProcessCautions c;
     if (Tmin < kCryogenicBelow_K) c.coldest_K = Tmin;
     if (Tmax > kHotAbove_K) c.hottest_K = Tmax;
     if (sourceTmax > kHotAbove_K) c.hottestSource_K = sourceTmax;
+    if (sinkTmax > kHotAbove_K) c.hottestSink_K = sinkTmax;
     c.steam = vapourOfWater && c.hottest_K.has_value();
     if (Pmax - project.atmosphereOrDefault().si > kPressureAboveGauge_Pa) c.highestP_Pa = Pmax;
     return c;
@@ -55,12 +61,15 @@ std::vector<std::string> processCautionSentences(const ProcessCautions& c, const
         lines.push_back("Cryogenic temperatures: the material reaches " + T(*c.coldest_K) +
                         ". Cold burns and frostbite on contact, embrittlement of ordinary carbon steel, and pressure "
                         "rise when cold liquid is trapped and warms; boil-off can displace the oxygen of a room.");
-    if (c.hottest_K || c.hottestSource_K) {
+    if (c.hottest_K || c.hottestSource_K || c.hottestSink_K) {
         std::string text = c.steam ? "Steam and hot surfaces" : "Hot surfaces";
         text += " above about 60 °C: ";
-        if (c.hottest_K) text += "the material reaches " + T(*c.hottest_K);
-        if (c.hottestSource_K) text += (c.hottest_K ? ", heat sources up to " : "heat sources up to ") + T(*c.hottestSource_K);
-        text += ". Contact burns; insulate or guard surfaces people can touch";
+        std::string what;
+        auto add = [&](const std::string& part) { what += (what.empty() ? "" : ", ") + part; };
+        if (c.hottest_K) add("the material reaches " + T(*c.hottest_K));
+        if (c.hottestSource_K) add("heat sources up to " + T(*c.hottestSource_K));
+        if (c.hottestSink_K) add("sinks up to " + T(*c.hottestSink_K));
+        text += what + ". Contact burns; insulate or guard surfaces people can touch";
         if (c.steam) text += ", and treat any steam release as a scalding hazard";
         text += '.';
         lines.push_back(std::move(text));

@@ -65,6 +65,36 @@ TEST(Cautions, HotWaterBelowBoilingIsNotSteam) {
     EXPECT_FALSE(c.highestP_Pa.has_value());  // 1 atm is no gauge pressure
 }
 
+TEST(Cautions, ASaturatedLiquidHoldsNoSteam) {
+    // Water starting as saturated liquid at 1 atm (x = 0, its boiling point,
+    // about 100 °C) and cooled: hot, but no vapour anywhere along the path.
+    const auto c = cautionsOf(R"({ "P": "1 atm", "quality": 0 })",
+                              R"([ { "id": "cool", "kind": "cool", "to": { "T": "70 degC" } } ])");
+    ASSERT_TRUE(c.hottest_K.has_value());
+    EXPECT_NEAR(*c.hottest_K, 373.12, 0.05);  // IAPWS-IF97 saturation at 101.325 kPa: 373.124 K (python3-iapws, IAPWS97(P=0.101325, x=0))
+    EXPECT_FALSE(c.steam);
+    // With one per cent boiled, there is steam.
+    const auto wet = cautionsOf(R"({ "P": "1 atm", "quality": 0.01 })",
+                                R"([ { "id": "cool", "kind": "cool", "to": { "T": "70 degC" } } ])");
+    EXPECT_TRUE(wet.steam);
+}
+
+TEST(Cautions, AHotSinkIsNamedAsASink) {
+    // Cooled from 95 °C against a sink at 75 °C: the sink is a hot surface
+    // too, and is said to be a sink, not a heat source.
+    const auto c = cautionsOf(R"({ "T": "95 degC", "P": "1 atm" })",
+                              R"([ { "id": "trim", "kind": "cool", "to": { "T": "85 degC" }, "sink": { "T": "75 degC" } } ])");
+    ASSERT_TRUE(c.hottestSink_K.has_value());
+    EXPECT_NEAR(*c.hottestSink_K, 75 + 273.15, 1e-6);
+    EXPECT_FALSE(c.hottestSource_K.has_value());
+    const auto words = processCautionSentences(c, [](double si, Dimension, bool) {
+        return std::to_string(int(std::lround(si - 273.15))) + " C";
+    });
+    ASSERT_EQ(words.size(), 1u);
+    EXPECT_EQ(words[0].rfind("Hot surfaces above about 60 °C: the material reaches 95 C, sinks up to 75 C.", 0), 0u)
+        << words[0];
+}
+
 TEST(Cautions, AHotSourceAloneIsCautioned) {
     // The material stays at 40 °C; the heating medium is at 90 °C.
     const auto c = cautionsOf(R"({ "T": "20 degC", "P": "1 atm" })",

@@ -421,10 +421,10 @@ private slots:
         // 200 °C is 473.15 K, 5 barg is 601.325 kPa absolute).
         bool steam = false, pressure = false;
         for (const QString& line : panel->visibleLines()) {
-            if (line.startsWith(QStringLiteral("caution|process|Steam and hot surfaces above about 60 °C")) &&
+            if (line.startsWith(QStringLiteral("caution|sequence|Steam and hot surfaces above about 60 °C")) &&
                 line.contains(QStringLiteral("heat sources up to 473.1")))
                 steam = true;
-            if (line.startsWith(QStringLiteral("caution|process|High pressure: up to 601.3"))) pressure = true;
+            if (line.startsWith(QStringLiteral("caution|sequence|High pressure: up to 601.3"))) pressure = true;
         }
         QVERIFY2(steam, qPrintable(panel->visibleLines().join(QLatin1Char('\n'))));
         QVERIFY2(pressure, qPrintable(panel->visibleLines().join(QLatin1Char('\n'))));

@@ -29,10 +29,11 @@ inline constexpr double kPressureAboveGauge_Pa = 0.5e5;
 struct ProcessCautions {
     std::optional<double> coldest_K;        // the material's lowest T, when below kCryogenicBelow_K
     std::optional<double> hottest_K;        // the material's highest T, when above kHotAbove_K
-    std::optional<double> hottestSource_K;  // the hottest heat source or sink, when above kHotAbove_K
-    bool steam = false;                     // water as vapour somewhere while the material is hot
+    std::optional<double> hottestSource_K;  // the hottest source of a heating step, when above kHotAbove_K
+    std::optional<double> hottestSink_K;    // the hottest sink of a cooling step, when above kHotAbove_K
+    bool steam = false;  // water as vapour (superheated, supercritical, or x > 0) while the material is hot
     std::optional<double> highestP_Pa;      // absolute; when above the atmosphere by more than kPressureAboveGauge_Pa
-    bool any() const { return coldest_K || hottest_K || hottestSource_K || highestP_Pa; }
+    bool any() const { return coldest_K || hottest_K || hottestSource_K || hottestSink_K || highestP_Pa; }
 };
 
 // Judged on every computed state along the path (each step's start and end
